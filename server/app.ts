@@ -1,0 +1,86 @@
+import path from 'node:path';
+import { existsSync } from 'node:fs';
+import express from 'express';
+import helmet from 'helmet';
+import type { Sequelize } from 'sequelize';
+import type { AppConfig } from './config';
+import { projectRoot } from './config';
+import { AppError, errorHandler } from './errors';
+import { createLogger } from './lib/logger';
+import type { Logger } from './lib/logger';
+import { csrfGuard, noStore, requestId } from './lib/request-guards';
+import type { RouteTableEntry } from './lib/routes';
+import { absoluteTimeout, sessionMiddleware } from './modules/auth/session';
+import { configurePassport } from './modules/auth/passport';
+import { authRouter } from './modules/auth/auth.router';
+import { gardensRouter } from './modules/gardens/gardens.router';
+import { healthRouter } from './modules/health/health.router';
+
+export interface AppDeps {
+  config: AppConfig;
+  sequelize: Sequelize;
+  logger?: Logger;
+  /** Folder with the built client; served with a single-page fallback when present. */
+  clientDir?: string | null;
+}
+
+export function createApp({ config, sequelize, logger = createLogger(config.logLevel), clientDir }: AppDeps) {
+  const app = express();
+  const routes: RouteTableEntry[] = [];
+  app.locals.routes = routes;
+  app.disable('x-powered-by');
+  if (config.trustProxy) app.set('trust proxy', config.trustProxy);
+
+  app.use(requestId);
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        useDefaults: true,
+        directives: {
+          'default-src': ["'self'"],
+          'script-src': ["'self'"],
+          'style-src': ["'self'", "'unsafe-inline'"],
+          'img-src': ["'self'", 'data:', 'blob:'],
+          'font-src': ["'self'"],
+          'connect-src': ["'self'"],
+          'object-src': ["'none'"],
+          'base-uri': ["'none'"],
+          'frame-ancestors': ["'none'"],
+          'form-action': ["'self'"],
+          'upgrade-insecure-requests': config.cookieSecure ? [] : null,
+        },
+      },
+      strictTransportSecurity: config.cookieSecure,
+    }),
+  );
+
+  const api = express.Router();
+  api.use(noStore);
+  // Health and readiness must answer even when sessions (in MariaDB) cannot load.
+  api.use(healthRouter(sequelize, routes));
+  api.use(express.json({ limit: '100kb', strict: true, type: 'application/json' }));
+  api.use(csrfGuard);
+  api.use(sessionMiddleware(sequelize, config));
+  api.use(absoluteTimeout(config));
+  const passport = configurePassport();
+  api.use(passport.initialize());
+  api.use(passport.session());
+  api.use(authRouter({ sequelize, config, passport, table: routes }));
+  api.use(gardensRouter(routes));
+  api.use('/api', () => {
+    throw new AppError(404, 'not_found', 'No such API route.');
+  });
+  app.use(api);
+
+  const dir = clientDir === undefined ? path.join(projectRoot, 'dist', 'client') : clientDir;
+  if (dir && existsSync(path.join(dir, 'index.html'))) {
+    app.use(express.static(dir, { index: false, maxAge: '1h', immutable: false }));
+    app.get('/{*splat}', (_req, res) => {
+      res.set('Cache-Control', 'no-cache');
+      res.sendFile(path.join(dir, 'index.html'));
+    });
+  }
+
+  app.use(errorHandler(logger));
+  return app;
+}

@@ -1,0 +1,128 @@
+import { existsSync, readFileSync, writeFileSync, mkdirSync } from 'node:fs';
+import { randomBytes } from 'node:crypto';
+import path from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { z } from 'zod';
+
+export const projectRoot = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..');
+
+const envSchema = z.object({
+  NODE_ENV: z.enum(['development', 'production', 'test']).default('development'),
+  HOST: z.string().default('127.0.0.1'),
+  PORT: z.coerce.number().int().min(0).max(65535).default(3000),
+  DATABASE_URL: z.string().url().optional(),
+  DB_HOST: z.string().default('127.0.0.1'),
+  DB_PORT: z.coerce.number().int().positive().default(3306),
+  DB_USER: z.string().default('heatclock'),
+  DB_PASSWORD: z.string().default(''),
+  DB_NAME: z.string().default('heatclock'),
+  DB_TEST_NAME: z.string().default('heatclock_test'),
+  DB_POOL_MAX: z.coerce.number().int().min(1).max(200).default(10),
+  SESSION_SECRET: z.string().min(32).optional(),
+  SESSION_IDLE_MINUTES: z.coerce.number().int().positive().default(8 * 60),
+  SESSION_ABSOLUTE_HOURS: z.coerce.number().int().positive().default(7 * 24),
+  LOGIN_MAX_FAILURES: z.coerce.number().int().positive().default(8),
+  LOGIN_WINDOW_MINUTES: z.coerce.number().positive().default(15),
+  TRUST_PROXY: z.string().optional(),
+  COOKIE_SECURE: z.enum(['true', 'false']).optional(),
+  LOG_LEVEL: z.enum(['silent', 'error', 'warn', 'info', 'debug']).optional(),
+});
+
+export interface DbConfig {
+  host: string;
+  port: number;
+  user: string;
+  password: string;
+  database: string;
+  poolMax: number;
+}
+
+export interface AppConfig {
+  env: 'development' | 'production' | 'test';
+  host: string;
+  port: number;
+  db: DbConfig;
+  sessionSecret: string;
+  sessionIdleMs: number;
+  sessionAbsoluteMs: number;
+  loginMaxFailures: number;
+  loginWindowMs: number;
+  trustProxy: string | undefined;
+  /** Secure cookies need HTTPS; a production server bound to loopback is assumed to be a local demo unless told otherwise. */
+  cookieSecure: boolean;
+  logLevel: 'silent' | 'error' | 'warn' | 'info' | 'debug';
+}
+
+/** Values written by scripts/db.sh for the project's own MariaDB; real environment variables win. */
+function readLocalDbEnv(): Record<string, string> {
+  const file = path.join(projectRoot, '.data', 'db.env');
+  if (!existsSync(file)) return {};
+  const out: Record<string, string> = {};
+  for (const line of readFileSync(file, 'utf8').split('\n')) {
+    const m = /^([A-Z_]+)=(.*)$/.exec(line.trim());
+    if (m) out[m[1]] = m[2];
+  }
+  return out;
+}
+
+/** A stable secret for local runs, kept out of git; production must set SESSION_SECRET. */
+function localSessionSecret(): string {
+  const dir = path.join(projectRoot, '.data');
+  const file = path.join(dir, 'session-secret');
+  if (existsSync(file)) return readFileSync(file, 'utf8').trim();
+  mkdirSync(dir, { recursive: true });
+  const secret = randomBytes(32).toString('hex');
+  writeFileSync(file, secret, { mode: 0o600 });
+  return secret;
+}
+
+function dbFromUrl(url: string, poolMax: number): DbConfig {
+  const u = new URL(url);
+  if (!/^(mariadb|mysql):$/.test(u.protocol)) {
+    throw new Error(`DATABASE_URL must start with mariadb:// or mysql://, got ${u.protocol}`);
+  }
+  return {
+    host: u.hostname,
+    port: Number(u.port || 3306),
+    user: decodeURIComponent(u.username),
+    password: decodeURIComponent(u.password),
+    database: u.pathname.replace(/^\//, ''),
+    poolMax,
+  };
+}
+
+export function loadConfig(source: NodeJS.ProcessEnv = process.env): AppConfig {
+  const parsed = envSchema.safeParse({ ...readLocalDbEnv(), ...source });
+  if (!parsed.success) {
+    const detail = parsed.error.issues.map((i) => `${i.path.join('.')}: ${i.message}`).join('; ');
+    throw new Error(`Invalid configuration: ${detail}`);
+  }
+  const e = parsed.data;
+  if (e.NODE_ENV === 'production' && !e.SESSION_SECRET && e.DATABASE_URL) {
+    throw new Error('Invalid configuration: SESSION_SECRET (32+ characters) is required with DATABASE_URL in production');
+  }
+  const db: DbConfig = e.DATABASE_URL
+    ? dbFromUrl(e.DATABASE_URL, e.DB_POOL_MAX)
+    : {
+        host: e.DB_HOST,
+        port: e.DB_PORT,
+        user: e.DB_USER,
+        password: e.DB_PASSWORD,
+        database: e.NODE_ENV === 'test' ? e.DB_TEST_NAME : e.DB_NAME,
+        poolMax: e.DB_POOL_MAX,
+      };
+  return {
+    env: e.NODE_ENV,
+    host: e.HOST,
+    port: e.PORT,
+    db,
+    sessionSecret: e.SESSION_SECRET ?? localSessionSecret(),
+    sessionIdleMs: e.SESSION_IDLE_MINUTES * 60_000,
+    sessionAbsoluteMs: e.SESSION_ABSOLUTE_HOURS * 3_600_000,
+    loginMaxFailures: e.LOGIN_MAX_FAILURES,
+    loginWindowMs: e.LOGIN_WINDOW_MINUTES * 60_000,
+    trustProxy: e.TRUST_PROXY,
+    cookieSecure: e.COOKIE_SECURE ? e.COOKIE_SECURE === 'true' : e.NODE_ENV === 'production' && !/^(127\.|localhost$|::1$)/.test(e.HOST),
+    logLevel: e.LOG_LEVEL ?? (e.NODE_ENV === 'test' ? 'silent' : 'info'),
+  };
+}

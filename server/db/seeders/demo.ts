@@ -1,0 +1,62 @@
+import type { Sequelize } from 'sequelize';
+import { Garden, Membership, User } from '../models';
+import { hashPassword } from '../../modules/auth/password';
+import type { Role } from '#shared/schemas/gardens';
+
+/** Invented demo scenario: every name and place here is fictional. */
+export const DEMO_PASSWORD = 'heatclock-demo';
+
+export const DEMO_USERS = [
+  { email: 'coordinator@hollowbrook.example', name: 'Ada Marchetti', role: 'owner' },
+  { email: 'grower.rosa@hollowbrook.example', name: 'Rosa Lindqvist', role: 'grower' },
+  { email: 'grower.tomasz@hollowbrook.example', name: 'Tomasz Okafor', role: 'grower' },
+  { email: 'volunteer@hollowbrook.example', name: 'Wren Abernathy', role: 'viewer' },
+] as const satisfies ReadonlyArray<{ email: string; name: string; role: Role }>;
+
+export const DEMO_GARDENS = [
+  {
+    name: 'Hollowbrook Teaching Garden',
+    latitude: 42.28,
+    longitude: -83.74,
+    elevationM: 256,
+    timeZone: 'America/Detroit',
+    units: 'F' as const,
+  },
+  {
+    name: 'Saltbush Lane School Garden',
+    latitude: -37.82,
+    longitude: 145.12,
+    elevationM: 95,
+    timeZone: 'Australia/Melbourne',
+    units: 'C' as const,
+  },
+];
+
+/** Idempotent: finds or creates each account, garden and membership by its natural key. */
+export async function seedDemo(sequelize: Sequelize) {
+  const hash = await hashPassword(DEMO_PASSWORD);
+  return sequelize.transaction(async (transaction) => {
+    const users = [];
+    for (const u of DEMO_USERS) {
+      const [user] = await User.findOrCreate({
+        where: { email: u.email },
+        defaults: { email: u.email, name: u.name, passwordHash: hash },
+        transaction,
+      });
+      users.push({ user, role: u.role });
+    }
+    const gardens = [];
+    for (const g of DEMO_GARDENS) {
+      const [garden] = await Garden.findOrCreate({ where: { name: g.name }, defaults: g, transaction });
+      gardens.push(garden);
+      for (const { user, role } of users) {
+        await Membership.findOrCreate({
+          where: { userId: user.id, gardenId: garden.id },
+          defaults: { userId: user.id, gardenId: garden.id, role },
+          transaction,
+        });
+      }
+    }
+    return { users: users.map((u) => u.user), gardens };
+  });
+}

@@ -1,0 +1,95 @@
+import type { ErrorRequestHandler } from 'express';
+import { ZodError } from 'zod';
+import type { Logger } from './lib/logger';
+
+export class AppError extends Error {
+  constructor(
+    readonly status: number,
+    readonly code: string,
+    message: string,
+    readonly fields?: Record<string, string>,
+    readonly headers?: Record<string, string>,
+  ) {
+    super(message);
+  }
+
+  static notFound(what = 'That record') {
+    return new AppError(404, 'not_found', `${what} was not found.`);
+  }
+  static forbidden(message = 'Your role in this garden does not allow this.') {
+    return new AppError(403, 'forbidden', message);
+  }
+  static unauthenticated() {
+    return new AppError(401, 'unauthenticated', 'Please sign in.');
+  }
+}
+
+function label(path: PropertyKey[]): string {
+  return path.length ? path.map(String).join('.') : '_';
+}
+
+/** Turns a zod failure into one message per field, naming unknown fields too. */
+export function validationError(err: ZodError, where: 'body' | 'query' | 'params' = 'body'): AppError {
+  const fields: Record<string, string> = {};
+  for (const issue of err.issues) {
+    if (issue.code === 'unrecognized_keys') {
+      for (const key of issue.keys) fields[label([...issue.path, key])] = `Unknown field "${key}" is not accepted.`;
+    } else {
+      const key = label(issue.path);
+      fields[key] ??= issue.message;
+    }
+  }
+  const names = Object.keys(fields).join(', ');
+  return new AppError(400, 'validation_failed', `Please check the ${where === 'body' ? 'fields' : where}: ${names}.`, fields);
+}
+
+const dbDownNames = new Set([
+  'SequelizeConnectionError',
+  'SequelizeConnectionRefusedError',
+  'SequelizeConnectionAcquireTimeoutError',
+  'SequelizeConnectionTimedOutError',
+  'SequelizeHostNotReachableError',
+  'SequelizeAccessDeniedError',
+]);
+
+export function isDatabaseDown(err: unknown): boolean {
+  return err instanceof Error && dbDownNames.has(err.name);
+}
+
+interface BodyParserError extends Error {
+  type?: string;
+  status?: number;
+}
+
+export function errorHandler(logger: Logger): ErrorRequestHandler {
+  return (err, req, res, _next) => {
+    const requestId = res.locals.requestId as string | undefined;
+    let appErr: AppError;
+    const bp = err as BodyParserError;
+    if (err instanceof AppError) appErr = err;
+    else if (err instanceof ZodError) appErr = validationError(err);
+    else if (bp.type === 'entity.too.large') appErr = new AppError(413, 'payload_too_large', 'The request body is too large.');
+    else if (bp.type === 'entity.parse.failed') appErr = new AppError(400, 'malformed_json', 'The request body is not valid JSON.');
+    else if (bp.type === 'encoding.unsupported' || bp.type === 'charset.unsupported')
+      appErr = new AppError(415, 'unsupported_media_type', 'The request body encoding is not supported.');
+    else if (isDatabaseDown(err))
+      appErr = new AppError(503, 'database_unavailable', 'The database is not reachable right now. Please try again shortly.', undefined, {
+        'Retry-After': '5',
+      });
+    else appErr = new AppError(500, 'internal_error', 'Something went wrong on our side. The error has been logged.');
+
+    if (appErr.status >= 500) {
+      logger.error('request failed', {
+        requestId,
+        method: req.method,
+        path: req.path,
+        userId: (req.user as { id?: number } | undefined)?.id,
+        error: err instanceof Error ? err.stack : String(err),
+      });
+    }
+    if (appErr.headers) res.set(appErr.headers);
+    res.status(appErr.status).json({
+      error: { code: appErr.code, message: appErr.message, ...(appErr.fields ? { fields: appErr.fields } : {}), requestId },
+    });
+  };
+}

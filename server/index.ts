@@ -1,0 +1,40 @@
+import { loadConfig } from './config';
+import { createSequelize } from './db/sequelize';
+import { initModels } from './db/models';
+import { createApp } from './app';
+import { createLogger } from './lib/logger';
+
+const config = loadConfig();
+const logger = createLogger(config.logLevel);
+const sequelize = createSequelize(config.db);
+initModels(sequelize);
+
+const app = createApp({ config, sequelize, logger });
+const server = app.listen(config.port, config.host, () => {
+  const addr = server.address();
+  const port = typeof addr === 'object' && addr ? addr.port : config.port;
+  const host = config.host.includes(':') ? `[${config.host}]` : config.host;
+  process.stdout.write(`\nHeatclock is running at http://${host}:${port}\n\n`);
+});
+server.keepAliveTimeout = 65_000;
+server.headersTimeout = 66_000;
+
+let stopping = false;
+async function shutdown(signal: string) {
+  if (stopping) return;
+  stopping = true;
+  logger.info('shutting down', { signal });
+  server.close();
+  server.closeIdleConnections();
+  await sequelize.close().catch(() => undefined);
+  process.exit(0);
+}
+process.on('SIGTERM', () => void shutdown('SIGTERM'));
+process.on('SIGINT', () => void shutdown('SIGINT'));
+process.on('unhandledRejection', (reason) => {
+  logger.error('unhandled rejection', { error: reason instanceof Error ? reason.stack : String(reason) });
+});
+process.on('uncaughtException', (err) => {
+  logger.error('uncaught exception', { error: err.stack });
+  void shutdown('uncaughtException');
+});

@@ -1,0 +1,118 @@
+import { Router } from 'express';
+import type { Request, Response, NextFunction } from 'express';
+import type { PassportStatic } from 'passport';
+import type { Sequelize } from 'sequelize';
+import { rateLimit, ipKeyGenerator } from 'express-rate-limit';
+import { loginSchema, registerSchema } from '#shared/schemas/auth';
+import type { UserDto } from '#shared/schemas/auth';
+import type { AppConfig } from '../../config';
+import { AppError } from '../../errors';
+import { parseBody } from '../../lib/validate';
+import { mountRoutes } from '../../lib/routes';
+import type { RouteTableEntry } from '../../lib/routes';
+import { presentGarden } from '../gardens/gardens.presenter';
+import { MariaDbRateLimitStore } from './rate-limit-store';
+import { INVALID_CREDENTIALS, registerUser } from './auth.service';
+import { presentUser } from './auth.presenter';
+
+/** Passport ≥ 0.6 regenerates the session at login (new id); save it before answering. */
+function signIn(req: Request, user: UserDto): Promise<void> {
+  return new Promise((resolve, reject) =>
+    req.login(user, (err) => {
+      if (err) return reject(err);
+      req.session.signedInAt = Date.now();
+      req.session.save((e) => (e ? reject(e) : resolve()));
+    }),
+  );
+}
+
+export function authRouter(deps: { sequelize: Sequelize; config: AppConfig; passport: PassportStatic; table: RouteTableEntry[] }) {
+  const { sequelize, config, passport, table } = deps;
+  const router = Router();
+
+  const loginLimiter = rateLimit({
+    windowMs: config.loginWindowMs,
+    limit: config.loginMaxFailures,
+    skipSuccessfulRequests: true,
+    standardHeaders: 'draft-8',
+    legacyHeaders: false,
+    store: new MariaDbRateLimitStore(sequelize, 'login:'),
+    keyGenerator: (req) => `${String(req.body?.email ?? '').trim().toLowerCase()}|${ipKeyGenerator(req.ip ?? '')}`,
+    handler: (_req, res, _next, options) => {
+      const retry = res.getHeader('Retry-After');
+      res.status(options.statusCode).json({
+        error: {
+          code: 'rate_limited',
+          message: `Too many sign-in attempts. Try again in ${retry ?? Math.ceil(options.windowMs / 1000)} seconds.`,
+          requestId: res.locals.requestId,
+        },
+      });
+    },
+  });
+
+  mountRoutes(
+    router,
+    '/api/auth',
+    [
+      {
+        method: 'post',
+        path: '/register',
+        access: 'public',
+        handler: async (req, res) => {
+          const input = parseBody(registerSchema, req.body);
+          const { user, garden } = await registerUser(sequelize, input);
+          await signIn(req, presentUser(user));
+          res.status(201).json({ user: presentUser(user), garden: presentGarden(garden, 'owner') });
+        },
+      },
+      {
+        method: 'post',
+        path: '/login',
+        access: 'public',
+        before: [
+          (req, _res, next) => {
+            req.body = parseBody(loginSchema, req.body);
+            next();
+          },
+          loginLimiter,
+        ],
+        handler: (req: Request, res: Response, next: NextFunction) => {
+          passport.authenticate('local', (err: unknown, user: UserDto | false) => {
+            if (err) return next(err);
+            if (!user) return next(new AppError(401, 'invalid_credentials', INVALID_CREDENTIALS));
+            signIn(req, user).then(() => res.json({ user }), next);
+          })(req, res, next);
+        },
+      },
+      {
+        method: 'post',
+        path: '/logout',
+        access: 'public',
+        handler: (req, res, next) => {
+          if (!req.user) {
+            res.status(204).end();
+            return;
+          }
+          req.logout((err) => {
+            if (err) return next(err);
+            req.session.destroy((e) => {
+              if (e) return next(e);
+              res.clearCookie('heatclock.sid', { path: '/' });
+              res.status(204).end();
+            });
+          });
+        },
+      },
+      {
+        method: 'get',
+        path: '/me',
+        access: 'signed-in',
+        handler: (req, res) => {
+          res.json({ user: req.user });
+        },
+      },
+    ],
+    table,
+  );
+  return router;
+}

@@ -1,0 +1,16 @@
+import type { GardenDto, Role } from '#shared/schemas/gardens';
+import type { Garden } from '../../db/models';
+
+export function presentGarden(g: Garden, role: Role): GardenDto {
+  return {
+    id: g.id,
+    name: g.name,
+    latitude: g.latitude,
+    longitude: g.longitude,
+    elevationM: g.elevationM,
+    timeZone: g.timeZone,
+    units: g.units,
+    hemisphere: (g.latitude ?? 0) < 0 ? 'S' : 'N',
+    role,
+  };
+}

@@ -1,0 +1,48 @@
+import { Router } from 'express';
+import { gardenUpdateSchema } from '#shared/schemas/gardens';
+import { parseBody } from '../../lib/validate';
+import { mountRoutes, requireSignedIn } from '../../lib/routes';
+import type { RouteTableEntry } from '../../lib/routes';
+import { getGarden, listGardensFor, updateGarden } from './gardens.service';
+import { presentGarden } from './gardens.presenter';
+
+export function gardensRouter(table: RouteTableEntry[]) {
+  const router = Router();
+  mountRoutes(
+    router,
+    '/api/gardens',
+    [
+      {
+        method: 'get',
+        path: '/',
+        access: 'signed-in',
+        handler: async (req, res) => {
+          const user = requireSignedIn(req);
+          const rows = await listGardensFor(user.id);
+          res.json({ gardens: rows.map((r) => presentGarden(r.garden, r.role)) });
+        },
+      },
+      {
+        method: 'get',
+        path: '/:gardenId',
+        access: 'viewer',
+        handler: async (req, res) => {
+          const m = req.membership!;
+          res.json({ garden: presentGarden(await getGarden(m.gardenId), m.role) });
+        },
+      },
+      {
+        method: 'patch',
+        path: '/:gardenId',
+        access: 'owner',
+        handler: async (req, res) => {
+          const m = req.membership!;
+          const input = parseBody(gardenUpdateSchema, req.body);
+          res.json({ garden: presentGarden(await updateGarden(m.gardenId, input), m.role) });
+        },
+      },
+    ],
+    table,
+  );
+  return router;
+}

@@ -1,0 +1,113 @@
+import { describe, expect, it } from 'vitest';
+import { testApp, agent } from '../helpers/test-app';
+import { createUser, PASSWORD, uniqueEmail, signIn } from '../helpers/factories';
+import { User, Session } from '../../server/db/models';
+import { hashParams } from '../../server/modules/auth/password';
+
+const app = testApp();
+
+function sidOf(res: { headers: Record<string, unknown> }) {
+  const cookies = ([] as string[]).concat((res.headers['set-cookie'] as string[] | undefined) ?? []);
+  const c = cookies.find((x) => x.startsWith('heatclock.sid='));
+  return c?.split(';')[0];
+}
+
+describe('registration and sign-in', () => {
+  it('when a grower registers, signs out and signs in again, then me follows each step', async () => {
+    const a = agent(app);
+    const email = uniqueEmail('reg');
+    const reg = await a.post('/api/auth/register').send({ email, password: PASSWORD, name: 'Mara', gardenName: 'Back plot' });
+    expect(reg.status).toBe(201);
+    expect(reg.body.user).toMatchObject({ email, name: 'Mara' });
+    expect(reg.body.garden).toMatchObject({ name: 'Back plot', role: 'owner' });
+    expect(reg.body.user).not.toHaveProperty('passwordHash');
+
+    expect((await a.get('/api/auth/me')).body.user.email).toBe(email);
+    const gardens = await a.get('/api/gardens');
+    expect(gardens.body.gardens).toHaveLength(1);
+
+    expect((await a.post('/api/auth/logout').set('X-Requested-With', 'heatclock')).status).toBe(204);
+    const after = await a.get('/api/auth/me');
+    expect(after.status).toBe(401);
+    expect(after.body.error.code).toBe('unauthenticated');
+
+    await signIn(a, email);
+    expect((await a.get('/api/auth/me')).body.user.email).toBe(email);
+  });
+
+  it('when an e-mail is registered twice, then the second gets 409 naming the e-mail field', async () => {
+    const email = uniqueEmail('dup');
+    await agent(app).post('/api/auth/register').send({ email, password: PASSWORD, name: 'A', gardenName: 'G' });
+    const again = await agent(app)
+      .post('/api/auth/register')
+      .send({ email: email.toUpperCase(), password: PASSWORD, name: 'B', gardenName: 'H' });
+    expect(again.status).toBe(409);
+    expect(again.body.error.fields.email).toMatch(/already exists/);
+  });
+
+  it('when a password is stored, then it is a slow scrypt hash, never the password', async () => {
+    const email = uniqueEmail('hash');
+    await agent(app).post('/api/auth/register').send({ email, password: PASSWORD, name: 'A', gardenName: 'G' });
+    const user = await User.findOne({ where: { email } });
+    expect(user!.passwordHash).not.toContain(PASSWORD);
+    // OWASP Password Storage Cheat Sheet: scrypt with N ≥ 2^15, r = 8, p ≥ 3 (or the listed equivalents).
+    const p = hashParams(user!.passwordHash);
+    expect(p.N * p.r * p.p).toBeGreaterThanOrEqual(2 ** 15 * 8 * 3);
+  });
+
+  it('when the password is wrong or the e-mail unknown, then both answers are identical', async () => {
+    const user = await createUser();
+    const wrong = await agent(app).post('/api/auth/login').send({ email: user.email, password: 'not the password' });
+    const unknown = await agent(app).post('/api/auth/login').send({ email: uniqueEmail('nobody'), password: 'not the password' });
+    expect(wrong.status).toBe(401);
+    expect(unknown.status).toBe(401);
+    const strip = (b: { error: { requestId?: string } }) => ({ ...b.error, requestId: undefined });
+    expect(strip(wrong.body)).toEqual(strip(unknown.body));
+  });
+
+  it('when a visitor signs in, then the session id changes and the old one is not signed in', async () => {
+    const user = await createUser();
+    const a = agent(app);
+    const anon = await a.post('/api/auth/login').send({ email: user.email, password: 'wrong password' });
+    const before = sidOf(anon);
+    const ok = await a.post('/api/auth/login').send({ email: user.email, password: PASSWORD });
+    const after = sidOf(ok);
+    expect(after).toBeDefined();
+    expect(after).not.toEqual(before);
+    expect(String(ok.headers['set-cookie'])).toMatch(/HttpOnly/i);
+    expect(String(ok.headers['set-cookie'])).toMatch(/SameSite=Lax/i);
+  });
+
+  it('when someone signs in, then the session is stored in MariaDB with the user id, and logout removes it', async () => {
+    const user = await createUser();
+    const a = agent(app);
+    await signIn(a, user.email);
+    expect(await Session.count({ where: { userId: user.id } })).toBe(1);
+    await a.post('/api/auth/logout').set('X-Requested-With', 'heatclock');
+    expect(await Session.count({ where: { userId: user.id } })).toBe(0);
+  });
+
+  it('when sign-in fails too often for one e-mail and address, then 429 with Retry-After, even for the right password', async () => {
+    const limited = testApp({ loginMaxFailures: 3 });
+    const user = await createUser();
+    for (let i = 0; i < 3; i++) {
+      expect((await agent(limited).post('/api/auth/login').send({ email: user.email, password: 'wrong-password' })).status).toBe(401);
+    }
+    const blocked = await agent(limited).post('/api/auth/login').send({ email: user.email, password: PASSWORD });
+    expect(blocked.status).toBe(429);
+    expect(blocked.body.error.code).toBe('rate_limited');
+    expect(Number(blocked.headers['retry-after'])).toBeGreaterThan(0);
+    // Another account from the same address is not locked out.
+    const other = await createUser();
+    expect((await agent(limited).post('/api/auth/login').send({ email: other.email, password: PASSWORD })).status).toBe(200);
+  });
+
+  it('when sessions older than the absolute lifetime come back, then they are signed out', async () => {
+    const short = testApp({ sessionAbsoluteMs: 50 });
+    const user = await createUser();
+    const a = agent(short);
+    await signIn(a, user.email);
+    await new Promise((r) => setTimeout(r, 80));
+    expect((await a.get('/api/auth/me')).status).toBe(401);
+  });
+});
