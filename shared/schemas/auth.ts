@@ -4,6 +4,7 @@ export const emailSchema = z
   .string({ error: 'E-mail is required.' })
   .trim()
   .toLowerCase()
+  .min(1, 'E-mail is required.')
   .max(254, 'E-mail must be at most 254 characters.')
   .pipe(z.email({ error: 'Enter a valid e-mail address, like name@example.org.' }));
 

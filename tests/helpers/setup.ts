@@ -10,7 +10,12 @@ beforeEach(() => {
     errors.push(args);
   });
 });
-afterEach(() => {
+afterEach(async () => {
+  // Component tests share one jsdom page per file; unmount whatever a test rendered.
+  if (typeof document !== 'undefined') {
+    const { cleanup } = await import('@testing-library/react');
+    cleanup();
+  }
   vi.mocked(console.error).mockRestore();
   if (errors.length) {
     const first = errors[0].map((a) => (a instanceof Error ? a.stack : String(a))).join(' ');

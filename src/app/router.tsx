@@ -1,0 +1,37 @@
+import { createBrowserRouter } from 'react-router-dom';
+import type { RouteObject } from 'react-router-dom';
+import { NotFoundMessage } from '@/components/ui/not-found-message';
+import { RequireAuth } from '@/features/auth/components/require-auth';
+import { RegisterPage } from '@/app/routes/auth/register';
+import { SignInPage } from '@/app/routes/auth/sign-in';
+import { FirstGardenPage } from '@/app/routes/gardens/first-garden';
+import { GardenHomePage } from '@/app/routes/gardens/garden-home';
+import { GardenLayout } from '@/app/routes/gardens/garden-layout';
+import { GardenSettingsPage } from '@/app/routes/gardens/garden-settings';
+import { NotFoundPage } from '@/app/routes/misc/not-found';
+
+export const routes: RouteObject[] = [
+  { path: '/sign-in', element: <SignInPage /> },
+  { path: '/register', element: <RegisterPage /> },
+  {
+    element: <RequireAuth />,
+    children: [
+      { path: '/', element: <FirstGardenPage /> },
+      {
+        path: '/g/:gardenId',
+        element: <GardenLayout />,
+        children: [
+          { index: true, element: <GardenHomePage /> },
+          { path: 'settings', element: <GardenSettingsPage /> },
+          // Inside a garden, an unknown page keeps the header so the grower can find their way.
+          { path: '*', element: <NotFoundMessage /> },
+        ],
+      },
+    ],
+  },
+  { path: '*', element: <NotFoundPage /> },
+];
+
+export function createAppRouter() {
+  return createBrowserRouter(routes);
+}

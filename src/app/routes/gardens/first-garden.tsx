@@ -1,0 +1,40 @@
+import { Navigate } from 'react-router-dom';
+import { Button } from '@/components/ui/button';
+import { Loading } from '@/components/ui/loading';
+import { Notice } from '@/components/ui/notice';
+import { Wordmark } from '@/components/ui/wordmark';
+import { SignOutButton } from '@/features/auth/components/sign-out-button';
+import { useGardens } from '@/features/gardens/api/get-gardens';
+
+/** `/` has no page of its own: it opens the first of the grower's gardens. */
+export function FirstGardenPage() {
+  const gardens = useGardens();
+
+  if (gardens.isPending) return <Loading label="Loading your gardens…" />;
+  if (gardens.isSuccess && gardens.data.length > 0) return <Navigate to={`/g/${gardens.data[0].id}`} replace />;
+
+  return (
+    <div className="mx-auto flex max-w-xl flex-col items-start gap-4 px-4 py-6">
+      <title>Your gardens · Heatclock</title>
+      <Wordmark />
+      <main className="flex w-full flex-col items-start gap-4">
+        {gardens.isError ? (
+          <>
+            <Notice tone="error" title="Your gardens could not be loaded" live="alert">
+              {gardens.error.message}
+            </Notice>
+            <Button variant="quiet" onClick={() => gardens.refetch()}>
+              Try again
+            </Button>
+          </>
+        ) : (
+          <>
+            <h1 className="text-2xl font-bold">No gardens yet</h1>
+            <p>You are not a member of any garden. A garden’s owner can add you as a member.</p>
+          </>
+        )}
+        <SignOutButton />
+      </main>
+    </div>
+  );
+}

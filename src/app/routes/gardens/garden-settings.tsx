@@ -1,0 +1,29 @@
+import { Notice } from '@/components/ui/notice';
+import { GardenFacts } from '@/features/gardens/components/garden-facts';
+import { GardenSettingsForm } from '@/features/gardens/components/garden-settings-form';
+import { useCurrentGarden } from '@/app/routes/gardens/garden-layout';
+
+export function GardenSettingsPage() {
+  const garden = useCurrentGarden();
+  const isOwner = garden.role === 'owner';
+
+  return (
+    <div className="flex max-w-2xl flex-col gap-6">
+      <title>{`Garden settings · ${garden.name} · Heatclock`}</title>
+      <h1 className="text-2xl font-bold sm:text-3xl">Garden settings</h1>
+      {isOwner ? (
+        // Keyed so switching garden starts from that garden's values, not the last one's edits.
+        <GardenSettingsForm key={garden.id} garden={garden} />
+      ) : (
+        <>
+          <Notice tone="info" title="Read only">
+            Only the garden’s owner can change these settings.
+          </Notice>
+          <section className="rounded-lg border border-line bg-paper-raised px-4 sm:px-6">
+            <GardenFacts garden={garden} showName />
+          </section>
+        </>
+      )}
+    </div>
+  );
+}

@@ -1,0 +1,24 @@
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { api, isApiError } from '@/lib/api-client';
+import { authKeys } from '@/features/auth/api/auth-keys';
+
+export async function logout(): Promise<void> {
+  try {
+    await api.post<void>('/api/auth/logout');
+  } catch (error) {
+    // An already-expired session is the outcome the grower asked for.
+    if (!isApiError(error, 401)) throw error;
+  }
+}
+
+export function useLogout() {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: logout,
+    onSuccess: () => {
+      // Drop every cached record so nothing of this account stays in memory on a shared computer.
+      queryClient.removeQueries();
+      queryClient.setQueryData(authKeys.me(), null);
+    },
+  });
+}

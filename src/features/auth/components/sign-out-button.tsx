@@ -1,0 +1,22 @@
+import { LogOut } from 'lucide-react';
+import { useNavigate } from 'react-router-dom';
+import { Button } from '@/components/ui/button';
+import { useLogout } from '@/features/auth/api/logout';
+
+export function SignOutButton() {
+  const logout = useLogout();
+  const navigate = useNavigate();
+
+  return (
+    <Button
+      variant="quiet"
+      className="min-h-10 px-3 text-sm"
+      disabled={logout.isPending}
+      onClick={() => logout.mutate(undefined, { onSuccess: () => navigate('/sign-in', { replace: true }) })}
+      title={logout.isError ? `Not signed out: ${logout.error.message}` : undefined}
+    >
+      <LogOut className="size-4" aria-hidden="true" />
+      {logout.isError ? 'Sign out failed — try again' : 'Sign out'}
+    </Button>
+  );
+}

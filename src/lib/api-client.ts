@@ -1,0 +1,116 @@
+import type { ApiErrorBody } from '#shared/schemas/errors';
+
+/** Any failed call to the Heatclock API, with the server's stable code and per-field messages. */
+export class ApiError extends Error {
+  readonly status: number;
+  readonly code: string;
+  readonly fields: Record<string, string>;
+  readonly requestId?: string;
+  /** From Retry-After on 429/503, in whole seconds, when the server sent one. */
+  readonly retryAfterSeconds?: number;
+
+  constructor(init: {
+    status: number;
+    code: string;
+    message: string;
+    fields?: Record<string, string>;
+    requestId?: string;
+    retryAfterSeconds?: number;
+  }) {
+    super(init.message);
+    this.name = 'ApiError';
+    this.status = init.status;
+    this.code = init.code;
+    this.fields = init.fields ?? {};
+    this.requestId = init.requestId;
+    this.retryAfterSeconds = init.retryAfterSeconds;
+  }
+}
+
+export function isApiError(error: unknown, status?: number): error is ApiError {
+  return error instanceof ApiError && (status === undefined || error.status === status);
+}
+
+/** Retry-After is either delta-seconds or an HTTP date (RFC 9110 §10.2.3). */
+export function parseRetryAfter(value: string | null, now = Date.now()): number | undefined {
+  if (!value) return undefined;
+  const trimmed = value.trim();
+  if (/^\d+$/.test(trimmed)) return Number(trimmed);
+  const at = Date.parse(trimmed);
+  if (Number.isNaN(at)) return undefined;
+  return Math.max(0, Math.ceil((at - now) / 1000));
+}
+
+function isErrorBody(body: unknown): body is ApiErrorBody {
+  if (typeof body !== 'object' || body === null || !('error' in body)) return false;
+  const error = (body as { error: unknown }).error;
+  return typeof error === 'object' && error !== null && 'code' in error && 'message' in error;
+}
+
+async function readJson(response: Response): Promise<unknown> {
+  const text = await response.text();
+  if (!text) return undefined;
+  try {
+    return JSON.parse(text);
+  } catch {
+    return undefined;
+  }
+}
+
+// Resolving against the document keeps paths relative to wherever the app is served, and gives
+// fetch an absolute URL in environments (jsdom under Node) that cannot resolve a bare path.
+function toUrl(path: string): string {
+  return new URL(path, document.baseURI).toString();
+}
+
+type Method = 'GET' | 'POST' | 'PATCH' | 'PUT' | 'DELETE';
+
+interface RequestOptions {
+  body?: unknown;
+  signal?: AbortSignal;
+}
+
+async function request<T>(method: Method, path: string, options: RequestOptions = {}): Promise<T> {
+  const headers: Record<string, string> = { Accept: 'application/json' };
+  // The server's CSRF rule: every mutating request carries this header.
+  if (method !== 'GET') headers['X-Requested-With'] = 'heatclock';
+  if (options.body !== undefined) headers['Content-Type'] = 'application/json';
+
+  let response: Response;
+  try {
+    response = await fetch(toUrl(path), {
+      method,
+      headers,
+      credentials: 'same-origin',
+      body: options.body === undefined ? undefined : JSON.stringify(options.body),
+      signal: options.signal,
+    });
+  } catch (cause) {
+    if (cause instanceof DOMException && cause.name === 'AbortError') throw cause;
+    throw new ApiError({
+      status: 0,
+      code: 'network_error',
+      message: 'Heatclock could not be reached. Check your connection and try again.',
+    });
+  }
+
+  const body = await readJson(response);
+  if (response.ok) return body as T;
+
+  const retryAfterSeconds = parseRetryAfter(response.headers.get('Retry-After'));
+  if (isErrorBody(body)) {
+    throw new ApiError({ status: response.status, ...body.error, retryAfterSeconds });
+  }
+  throw new ApiError({
+    status: response.status,
+    code: 'http_error',
+    message: `The server answered with an unexpected error (HTTP ${response.status}). Please try again.`,
+    retryAfterSeconds,
+  });
+}
+
+export const api = {
+  get: <T>(path: string, signal?: AbortSignal) => request<T>('GET', path, { signal }),
+  post: <T>(path: string, body?: unknown) => request<T>('POST', path, { body }),
+  patch: <T>(path: string, body: unknown) => request<T>('PATCH', path, { body }),
+};

@@ -1,0 +1,105 @@
+// @vitest-environment jsdom
+import { describe, expect, it } from 'vitest';
+import { screen, within } from '@testing-library/react';
+import { http, HttpResponse } from 'msw';
+import { seen, server, setupClientTests } from './helpers/msw-server';
+import { aGarden, grower } from './helpers/data';
+import { memberOf, renderApp, signedInAs } from './helpers/render-app';
+
+setupClientTests();
+
+const north = aGarden();
+const south = aGarden({
+  id: 2,
+  name: 'Wattle Creek School Garden',
+  latitude: -37.81,
+  longitude: 144.96,
+  elevationM: 31,
+  timeZone: 'Australia/Melbourne',
+  units: 'C',
+  hemisphere: 'S',
+  role: 'viewer',
+});
+
+describe('app shell', () => {
+  it('when a signed-in grower opens /, then they land on their first garden', async () => {
+    server.use(signedInAs(grower), ...memberOf([north, south]));
+    const { router } = renderApp('/');
+
+    expect(await screen.findByRole('heading', { name: 'Hollowbrook Teaching Garden' })).toBeTruthy();
+    expect(router.state.location.pathname).toBe('/g/1');
+    expect(screen.getByText('Mara Quill')).toBeTruthy();
+    expect(screen.getByRole('link', { name: 'Overview' }).getAttribute('aria-current')).toBe('page');
+    expect(screen.getByRole('link', { name: 'Change garden settings' })).toBeTruthy();
+    expect(screen.getByText('Northern hemisphere: seasons run January–December.')).toBeTruthy();
+  });
+
+  it('when the grower picks another garden, then the same page opens for it with their role in words', async () => {
+    server.use(signedInAs(grower), ...memberOf([north, south]));
+    const { user, router } = renderApp('/g/1/settings');
+
+    const switcher = await screen.findByRole('combobox', { name: 'Garden' });
+    expect(await within(switcher).findByRole('option', { name: 'Wattle Creek School Garden (Viewer)' })).toBeTruthy();
+    await user.selectOptions(switcher, '2');
+
+    expect(await screen.findByText('Only the garden’s owner can change these settings.')).toBeTruthy();
+    expect(router.state.location.pathname).toBe('/g/2/settings');
+  });
+
+  it('when a southern garden is shown, then its season and figures carry words and units', async () => {
+    server.use(signedInAs(grower), ...memberOf([north, south]));
+    renderApp('/g/2');
+
+    expect(await screen.findByText('Southern hemisphere: seasons run July–June.')).toBeTruthy();
+    expect(screen.getByText('37.81° S, 144.96° E')).toBeTruthy();
+    expect(screen.getByText('31 m')).toBeTruthy();
+    expect(screen.getByText('°C (Celsius)')).toBeTruthy();
+    expect(screen.getByText('Viewer')).toBeTruthy();
+    expect(screen.queryByRole('link', { name: 'Change garden settings' })).toBeNull();
+  });
+
+  it('when the garden is not one of mine, then a not-found page says so inside the shell', async () => {
+    server.use(signedInAs(grower), ...memberOf([north]));
+    renderApp('/g/99');
+
+    expect(await screen.findByRole('heading', { name: 'Garden not found' })).toBeTruthy();
+    expect(screen.getByRole('combobox', { name: 'Garden' })).toBeTruthy();
+  });
+
+  it('when the address is unknown, then the not-found page offers a way home', async () => {
+    renderApp('/compost-heap');
+
+    expect(await screen.findByRole('heading', { name: 'Page not found' })).toBeTruthy();
+    expect(screen.getByRole('link', { name: 'Go to your gardens' }).getAttribute('href')).toBe('/');
+  });
+
+  it('when the grower signs out, then the session ends on the server and the sign-in page opens', async () => {
+    server.use(
+      signedInAs(grower),
+      ...memberOf([north]),
+      http.post('/api/auth/logout', () => new HttpResponse(null, { status: 204 })),
+    );
+    const { user, router } = renderApp('/g/1');
+
+    await user.click(await screen.findByRole('button', { name: 'Sign out' }));
+
+    expect(await screen.findByRole('heading', { name: 'Sign in' })).toBeTruthy();
+    expect(router.state.location.pathname).toBe('/sign-in');
+    const logout = seen.find((r) => r.path === '/api/auth/logout');
+    expect(logout?.headers.get('x-requested-with')).toBe('heatclock');
+    expect(logout?.headers.get('content-type')).toBeNull();
+  });
+
+  it('when the session expires mid-visit, then the grower is sent to sign in and back', async () => {
+    server.use(
+      signedInAs(grower),
+      http.get('/api/gardens', () =>
+        HttpResponse.json({ error: { code: 'unauthenticated', message: 'Please sign in.' } }, { status: 401 }),
+      ),
+    );
+    const { router } = renderApp('/');
+
+    expect(await screen.findByRole('heading', { name: 'Sign in' })).toBeTruthy();
+    expect(router.state.location.pathname).toBe('/sign-in');
+  });
+});

@@ -1,0 +1,59 @@
+import { describe, expect, it } from 'vitest';
+import { parseRetryAfter } from '@/lib/api-client';
+import { formatElevation, formatLocation, formatWait } from '@/lib/format';
+import { parseId } from '@/lib/ids';
+import { safeNextPath, signInPathFor } from '@/lib/safe-redirect';
+
+describe('Retry-After', () => {
+  it('when given delta-seconds, then returns them', () => {
+    expect(parseRetryAfter('120')).toBe(120);
+  });
+
+  it('when given an HTTP date, then returns the seconds until it, rounded up', () => {
+    const now = Date.parse('2025-05-01T12:00:00Z');
+    expect(parseRetryAfter('Thu, 01 May 2025 12:00:30 GMT', now)).toBe(30);
+  });
+
+  it('when missing or garbled, then returns undefined', () => {
+    expect(parseRetryAfter(null)).toBeUndefined();
+    expect(parseRetryAfter('soon')).toBeUndefined();
+  });
+});
+
+describe('wording and units', () => {
+  it('when a wait is under a minute, then it is in seconds; otherwise whole minutes rounded up', () => {
+    expect(formatWait(1)).toBe('1 second');
+    expect(formatWait(45)).toBe('45 seconds');
+    expect(formatWait(60)).toBe('1 minute');
+    expect(formatWait(61)).toBe('2 minutes');
+  });
+
+  it('when coordinates are negative, then they read as south and west with degree signs', () => {
+    expect(formatLocation({ latitude: -33.4489, longitude: -70.6693 })).toBe('33.4489° S, 70.6693° W');
+    expect(formatLocation({ latitude: null, longitude: 10 })).toBeNull();
+  });
+
+  it('when elevation is known, then it carries metres', () => {
+    expect(formatElevation(1520)).toBe('1,520 m');
+    expect(formatElevation(null)).toBeNull();
+  });
+});
+
+describe('addresses', () => {
+  it('when next is off-site or odd, then sign-in goes home instead', () => {
+    expect(safeNextPath('/g/3/settings')).toBe('/g/3/settings');
+    for (const bad of ['//evil.example', 'https://evil.example', '/\\evil.example', '', null]) {
+      expect(safeNextPath(bad)).toBe('/');
+    }
+  });
+
+  it('when sending a visitor to sign in, then the page they wanted travels along', () => {
+    expect(signInPathFor({ pathname: '/g/3', search: '?x=1' })).toBe('/sign-in?next=%2Fg%2F3%3Fx%3D1');
+    expect(signInPathFor({ pathname: '/', search: '' })).toBe('/sign-in');
+  });
+
+  it('when a route id is not a positive whole number, then it names no record', () => {
+    expect(parseId('12')).toBe(12);
+    for (const bad of ['0', '-1', '1.5', 'abc', '01', undefined]) expect(parseId(bad)).toBeNull();
+  });
+});

@@ -1,0 +1,44 @@
+import { render } from '@testing-library/react';
+import userEvent from '@testing-library/user-event';
+import { QueryClient } from '@tanstack/react-query';
+import { createMemoryRouter, RouterProvider } from 'react-router-dom';
+import { http, HttpResponse } from 'msw';
+import type { UserDto } from '#shared/schemas/auth';
+import type { GardenDto } from '#shared/schemas/gardens';
+import { AppProviders } from '@/app/providers';
+import { routes } from '@/app/router';
+
+/** Renders the whole app at `path` with a fresh client that never retries. */
+export function renderApp(path: string) {
+  const queryClient = new QueryClient({
+    defaultOptions: { queries: { retry: false }, mutations: { retry: false } },
+  });
+  const router = createMemoryRouter(routes, { initialEntries: [path] });
+  const user = userEvent.setup();
+  const view = render(
+    <AppProviders queryClient={queryClient}>
+      <RouterProvider router={router} />
+    </AppProviders>,
+  );
+  return { ...view, user, router, queryClient };
+}
+
+export function signedInAs(user: UserDto) {
+  return http.get('/api/auth/me', () => HttpResponse.json({ user }));
+}
+
+export const signedOut = http.get('/api/auth/me', () =>
+  HttpResponse.json({ error: { code: 'unauthenticated', message: 'Please sign in.' } }, { status: 401 }),
+);
+
+export function memberOf(gardens: GardenDto[]) {
+  return [
+    http.get('/api/gardens', () => HttpResponse.json({ gardens })),
+    http.get('/api/gardens/:gardenId', ({ params }) => {
+      const garden = gardens.find((g) => String(g.id) === params.gardenId);
+      return garden
+        ? HttpResponse.json({ garden })
+        : HttpResponse.json({ error: { code: 'not_found', message: 'Garden not found.' } }, { status: 404 });
+    }),
+  ];
+}
