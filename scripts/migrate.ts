@@ -1,9 +1,14 @@
-/** Applies migrations to the configured database; with --seed-demo also seeds the demo scenario. */
+/**
+ * Applies migrations to the configured database. With --seed-demo it also seeds the invented
+ * demo scenario and fetches its gardens' weather (from the local fake unless WEATHER_MODE=live).
+ */
 import { loadConfig } from '../server/config';
 import { createSequelize } from '../server/db/sequelize';
 import { initModels } from '../server/db/models';
 import { migrate } from '../server/db/migrate';
 import { seedDemo } from '../server/db/seeders/demo';
+import { createLogger } from '../server/lib/logger';
+import { createWeatherService } from '../server/app';
 
 const config = loadConfig();
 const sequelize = createSequelize(config.db);
@@ -14,6 +19,15 @@ try {
   if (process.argv.includes('--seed-demo')) {
     const { users, gardens } = await seedDemo(sequelize);
     console.log(`[db] demo ready: ${gardens.length} gardens, ${users.length} accounts`);
+    const fake = config.weather.mode === 'fake' ? (await import('../fixtures/weather/server')).startFakeWeather('error') : null;
+    const weather = createWeatherService(config, sequelize, createLogger('warn'));
+    for (const garden of gardens) {
+      const cellId = (await weather.locateGarden(garden)) ?? garden.weatherCellId;
+      if (cellId) await weather.prepareCell(cellId, garden.id);
+    }
+    await weather.backfillPending();
+    fake?.close();
+    console.log(`[db] demo weather ready (${config.weather.mode})`);
   }
 } finally {
   await sequelize.close();

@@ -15,6 +15,9 @@ import { configurePassport } from './modules/auth/passport';
 import { authRouter } from './modules/auth/auth.router';
 import { gardensRouter } from './modules/gardens/gardens.router';
 import { healthRouter } from './modules/health/health.router';
+import { weatherRouter } from './modules/weather/weather.router';
+import { WeatherService } from './modules/weather/weather.service';
+import { createWeatherClient } from './integrations/weather/open-meteo';
 
 export interface AppDeps {
   config: AppConfig;
@@ -22,10 +25,30 @@ export interface AppDeps {
   logger?: Logger;
   /** Folder with the built client; served with a single-page fallback when present. */
   clientDir?: string | null;
+  /** Injected in tests and benchmarks; built from config otherwise. */
+  weather?: WeatherService;
 }
 
-export function createApp({ config, sequelize, logger = createLogger(config.logLevel), clientDir }: AppDeps) {
+export function createWeatherService(config: AppConfig, sequelize: Sequelize, logger: Logger, now?: () => Date) {
+  const client = createWeatherClient({
+    timeoutMs: config.weather.timeoutMs,
+    retries: config.weather.retries,
+    backoffMs: config.weather.backoffMs,
+    logger,
+  });
+  return new WeatherService({
+    sequelize,
+    client,
+    logger,
+    settings: { historyYears: config.weather.historyYears, concurrency: config.weather.concurrency },
+    now,
+  });
+}
+
+export function createApp({ config, sequelize, logger = createLogger(config.logLevel), clientDir, weather }: AppDeps) {
   const app = express();
+  const weatherService = weather ?? createWeatherService(config, sequelize, logger);
+  app.locals.weather = weatherService;
   const routes: RouteTableEntry[] = [];
   app.locals.routes = routes;
   app.disable('x-powered-by');
@@ -66,7 +89,8 @@ export function createApp({ config, sequelize, logger = createLogger(config.logL
   api.use(passport.initialize());
   api.use(passport.session());
   api.use(authRouter({ sequelize, config, passport, table: routes }));
-  api.use(gardensRouter(routes));
+  api.use(gardensRouter({ table: routes, weather: weatherService }));
+  api.use(weatherRouter({ sequelize, weather: weatherService, table: routes }));
   api.use('/api', () => {
     throw new AppError(404, 'not_found', 'No such API route.');
   });

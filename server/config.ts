@@ -26,6 +26,16 @@ const envSchema = z.object({
   TRUST_PROXY: z.string().optional(),
   COOKIE_SECURE: z.enum(['true', 'false']).optional(),
   LOG_LEVEL: z.enum(['silent', 'error', 'warn', 'info', 'debug']).optional(),
+  UPLOADS_DIR: z.string().min(1).optional(),
+  WEATHER_MODE: z.enum(['fake', 'live']).default('fake'),
+  WEATHER_TIMEOUT_MS: z.coerce.number().int().positive().default(10_000),
+  WEATHER_RETRIES: z.coerce.number().int().min(0).max(10).default(3),
+  WEATHER_BACKOFF_MS: z.coerce.number().int().min(0).default(500),
+  WEATHER_CRON: z.string().default('20 4 * * *'),
+  WEATHER_CRON_TZ: z.string().default('UTC'),
+  WEATHER_HISTORY_YEARS: z.coerce.number().int().min(1).max(40).default(11),
+  WEATHER_CONCURRENCY: z.coerce.number().int().min(1).max(64).default(8),
+  SCHEDULER: z.enum(['on', 'off']).default('on'),
 });
 
 export interface DbConfig {
@@ -51,6 +61,20 @@ export interface AppConfig {
   /** Secure cookies need HTTPS; a production server bound to loopback is assumed to be a local demo unless told otherwise. */
   cookieSecure: boolean;
   logLevel: 'silent' | 'error' | 'warn' | 'info' | 'debug';
+  /** Uploaded photos live here, outside the static root; served only through an access-checked route. */
+  uploads: { dir: string; maxBytes: number; maxPixels: number };
+  weather: {
+    /** 'fake' answers the weather service's URLs in-process from fixtures (MSW); 'live' calls Open-Meteo. */
+    mode: 'fake' | 'live';
+    timeoutMs: number;
+    retries: number;
+    backoffMs: number;
+    cron: string;
+    cronTimeZone: string;
+    historyYears: number;
+    concurrency: number;
+  };
+  scheduler: boolean;
 }
 
 /** Values written by scripts/db.sh for the project's own MariaDB; real environment variables win. */
@@ -124,5 +148,21 @@ export function loadConfig(source: NodeJS.ProcessEnv = process.env): AppConfig {
     trustProxy: e.TRUST_PROXY,
     cookieSecure: e.COOKIE_SECURE ? e.COOKIE_SECURE === 'true' : e.NODE_ENV === 'production' && !/^(127\.|localhost$|::1$)/.test(e.HOST),
     logLevel: e.LOG_LEVEL ?? (e.NODE_ENV === 'test' ? 'silent' : 'info'),
+    uploads: {
+      dir: path.resolve(e.UPLOADS_DIR ?? path.join(projectRoot, '.data', e.NODE_ENV === 'test' ? 'uploads-test' : 'uploads')),
+      maxBytes: 12 * 1024 * 1024,
+      maxPixels: 50_000_000,
+    },
+    weather: {
+      mode: e.WEATHER_MODE,
+      timeoutMs: e.WEATHER_TIMEOUT_MS,
+      retries: e.WEATHER_RETRIES,
+      backoffMs: e.NODE_ENV === 'test' ? Math.min(e.WEATHER_BACKOFF_MS, 20) : e.WEATHER_BACKOFF_MS,
+      cron: e.WEATHER_CRON,
+      cronTimeZone: e.WEATHER_CRON_TZ,
+      historyYears: e.WEATHER_HISTORY_YEARS,
+      concurrency: e.WEATHER_CONCURRENCY,
+    },
+    scheduler: e.SCHEDULER === 'on' && e.NODE_ENV !== 'test',
   };
 }

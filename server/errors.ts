@@ -3,6 +3,9 @@ import { ZodError } from 'zod';
 import type { Logger } from './lib/logger';
 
 export class AppError extends Error {
+  /** Further machine-readable detail for the client, e.g. the line/column report of a CSV upload. */
+  extra?: Record<string, unknown>;
+
   constructor(
     readonly status: number,
     readonly code: string,
@@ -89,7 +92,13 @@ export function errorHandler(logger: Logger): ErrorRequestHandler {
     }
     if (appErr.headers) res.set(appErr.headers);
     res.status(appErr.status).json({
-      error: { code: appErr.code, message: appErr.message, ...(appErr.fields ? { fields: appErr.fields } : {}), requestId },
+      error: {
+        code: appErr.code,
+        message: appErr.message,
+        ...(appErr.fields ? { fields: appErr.fields } : {}),
+        ...appErr.extra,
+        requestId,
+      },
     });
   };
 }

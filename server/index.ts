@@ -3,13 +3,27 @@ import { createSequelize } from './db/sequelize';
 import { initModels } from './db/models';
 import { createApp } from './app';
 import { createLogger } from './lib/logger';
+import { scheduleWeatherJob } from './jobs/weather-job';
+import type { WeatherService } from './modules/weather/weather.service';
 
 const config = loadConfig();
 const logger = createLogger(config.logLevel);
 const sequelize = createSequelize(config.db);
 initModels(sequelize);
 
+if (config.weather.mode === 'fake') {
+  const { startFakeWeather } = await import('../fixtures/weather/server');
+  startFakeWeather('bypass');
+  logger.info('weather service: local fake (fixtures); set WEATHER_MODE=live for Open-Meteo');
+}
+
 const app = createApp({ config, sequelize, logger });
+const weather = app.locals.weather as WeatherService;
+const task = config.scheduler
+  ? scheduleWeatherJob(weather, { cron: config.weather.cron, timeZone: config.weather.cronTimeZone, logger })
+  : null;
+// History left incomplete by an earlier stop is resumed in the background.
+void weather.backfillPending().catch((err: Error) => logger.error('backfill on start failed', { error: err.message }));
 const server = app.listen(config.port, config.host, () => {
   const addr = server.address();
   const port = typeof addr === 'object' && addr ? addr.port : config.port;
@@ -24,8 +38,10 @@ async function shutdown(signal: string) {
   if (stopping) return;
   stopping = true;
   logger.info('shutting down', { signal });
+  await task?.stop();
   server.close();
   server.closeIdleConnections();
+  await weather.idle();
   await sequelize.close().catch(() => undefined);
   process.exit(0);
 }

@@ -76,10 +76,10 @@ function accessMiddleware(access: Access): RequestHandler[] {
 
 export function mountRoutes(router: Router, base: string, specs: RouteSpec[], table: RouteTableEntry[]) {
   for (const spec of specs) {
-    if (spec.path.includes(':gardenId') !== ['viewer', 'grower', 'owner'].includes(spec.access)) {
-      throw new Error(`Route ${spec.method.toUpperCase()} ${base}${spec.path}: garden routes need a garden role and only they`);
-    }
     const full = spec.path === '/' ? base : base + spec.path;
+    if (full.includes(':gardenId') !== ['viewer', 'grower', 'owner'].includes(spec.access)) {
+      throw new Error(`Route ${spec.method.toUpperCase()} ${full}: garden routes need a garden role and only they`);
+    }
     router[spec.method](full, ...accessMiddleware(spec.access), ...(spec.before ?? []), spec.handler);
     table.push({ method: spec.method, path: full, access: spec.access });
   }

@@ -17,6 +17,10 @@ const EXPECTED: Record<string, RouteTableEntry['access']> = {
   'get /api/gardens': 'signed-in',
   'get /api/gardens/:gardenId': 'viewer',
   'patch /api/gardens/:gardenId': 'owner',
+  'get /api/gardens/:gardenId/weather': 'viewer',
+  'post /api/gardens/:gardenId/weather/refresh': 'grower',
+  'post /api/gardens/:gardenId/weather/imports': 'grower',
+  'get /api/gardens/:gardenId/weather/runs': 'owner',
 };
 
 const app = testApp();

@@ -5,18 +5,31 @@ import { loadConfig } from '../../server/config';
 import type { AppConfig } from '../../server/config';
 import { createSequelize } from '../../server/db/sequelize';
 import { initModels } from '../../server/db/models';
-import { createApp } from '../../server/app';
+import { createApp, createWeatherService } from '../../server/app';
+import type { WeatherService } from '../../server/modules/weather/weather.service';
+import { createLogger } from '../../server/lib/logger';
+import { startFakeWeather } from '../../fixtures/weather/server';
+import { fakeWeather } from '../../fixtures/weather/control';
 
 let shared: { sequelize: Sequelize; config: AppConfig } | null = null;
+const services: WeatherService[] = [];
 
-/** One Sequelize per test file against the real test database; closed after the file. */
+/**
+ * One Sequelize per test file against the real test database, and the fake weather service
+ * (MSW) answering the weather hosts, with any other outgoing request an error: no test reaches
+ * the network. Background weather work is awaited before the connection closes.
+ */
 export function testDb() {
   if (!shared) {
     const config = loadConfig({ ...process.env, NODE_ENV: 'test' });
     const sequelize = createSequelize(config.db);
     initModels(sequelize);
+    const fake = startFakeWeather('error');
     shared = { sequelize, config };
     afterAll(async () => {
+      await Promise.all(services.map((s) => s.idle()));
+      fake.close();
+      fakeWeather.reset();
       await shared?.sequelize.close();
       shared = null;
     });
@@ -24,9 +37,19 @@ export function testDb() {
   return shared;
 }
 
-export function testApp(overrides: Partial<AppConfig> = {}) {
+/** A weather service as a separate app instance would have it (its own leases and id). */
+export function testWeather(settings: Partial<AppConfig['weather']> = {}, now?: () => Date) {
   const { sequelize, config } = testDb();
-  return createApp({ config: { ...config, ...overrides }, sequelize, clientDir: null });
+  const service = createWeatherService({ ...config, weather: { ...config.weather, ...settings } }, sequelize, createLogger('silent'), now);
+  services.push(service);
+  return service;
+}
+
+export function testApp(overrides: Partial<AppConfig> = {}, weather?: WeatherService) {
+  const { sequelize, config } = testDb();
+  const app = createApp({ config: { ...config, ...overrides }, sequelize, clientDir: null, weather });
+  services.push(app.locals.weather as WeatherService);
+  return app;
 }
 
 export type TestAgent = ReturnType<typeof request.agent>;

@@ -9,6 +9,7 @@ export class Garden extends Model<InferAttributes<Garden>, InferCreationAttribut
   declare elevationM: number | null;
   declare timeZone: string;
   declare units: 'F' | 'C';
+  declare weatherCellId: CreationOptional<number | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
@@ -22,6 +23,7 @@ export class Garden extends Model<InferAttributes<Garden>, InferCreationAttribut
         elevationM: { type: DataTypes.DOUBLE, allowNull: true },
         timeZone: { type: DataTypes.STRING(64), allowNull: false, defaultValue: 'UTC' },
         units: { type: DataTypes.ENUM('F', 'C'), allowNull: false, defaultValue: 'F' },
+        weatherCellId: { type: DataTypes.INTEGER, allowNull: true },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },

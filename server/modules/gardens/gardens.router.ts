@@ -5,8 +5,10 @@ import { mountRoutes, requireSignedIn } from '../../lib/routes';
 import type { RouteTableEntry } from '../../lib/routes';
 import { getGarden, listGardensFor, updateGarden } from './gardens.service';
 import { presentGarden } from './gardens.presenter';
+import type { WeatherService } from '../weather/weather.service';
 
-export function gardensRouter(table: RouteTableEntry[]) {
+export function gardensRouter(deps: { table: RouteTableEntry[]; weather: WeatherService }) {
+  const { table, weather } = deps;
   const router = Router();
   mountRoutes(
     router,
@@ -38,7 +40,10 @@ export function gardensRouter(table: RouteTableEntry[]) {
         handler: async (req, res) => {
           const m = req.membership!;
           const input = parseBody(gardenUpdateSchema, req.body);
-          res.json({ garden: presentGarden(await updateGarden(m.gardenId, input), m.role) });
+          const garden = await updateGarden(m.gardenId, input);
+          const newCell = await weather.locateGarden(garden);
+          if (newCell) void weather.prepareCell(newCell, garden.id);
+          res.json({ garden: presentGarden(garden, m.role) });
         },
       },
     ],

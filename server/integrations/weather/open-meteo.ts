@@ -1,0 +1,193 @@
+/**
+ * Client for the Open-Meteo daily weather API (no key): the forecast endpoint for recent days and
+ * up to 16 days ahead, the archive endpoint for history. Every call has a timeout and bounded
+ * retries with exponential backoff and jitter that honour Retry-After; each day of a response is
+ * validated on its own, so one bad day is rejected and logged while the good days are kept.
+ */
+import axios from 'axios';
+import type { AxiosError, AxiosInstance } from 'axios';
+import axiosRetry, { isNetworkOrIdempotentRequestError } from 'axios-retry';
+import { z } from 'zod';
+import type { Logger } from '../../lib/logger';
+
+export const OPEN_METEO_FORECAST_URL = 'https://api.open-meteo.com/v1/forecast';
+export const OPEN_METEO_ARCHIVE_URL = 'https://archive-api.open-meteo.com/v1/archive';
+
+export interface WeatherClientOptions {
+  timeoutMs: number;
+  retries: number;
+  /** First backoff step; doubles each retry, with random jitter. */
+  backoffMs: number;
+  forecastUrl?: string;
+  archiveUrl?: string;
+  logger: Logger;
+}
+
+export interface FetchedDay {
+  date: string;
+  tmax: number;
+  tmin: number;
+}
+
+export interface RejectedDay {
+  date: string | null;
+  reason: string;
+}
+
+export interface FetchResult {
+  days: FetchedDay[];
+  rejected: RejectedDay[];
+  /** HTTP requests made, retries included. */
+  requests: number;
+}
+
+export class WeatherServiceError extends Error {
+  constructor(
+    message: string,
+    readonly status?: number,
+  ) {
+    super(message);
+    this.name = 'WeatherServiceError';
+  }
+}
+
+const responseSchema = z.object({
+  daily_units: z.object({ temperature_2m_max: z.string(), temperature_2m_min: z.string() }),
+  daily: z.object({
+    time: z.array(z.unknown()),
+    temperature_2m_max: z.array(z.unknown()),
+    temperature_2m_min: z.array(z.unknown()),
+  }),
+});
+
+const dateSchema = z.iso.date();
+// Plausible screen-level air temperatures; anything outside is a broken value, not weather.
+const tempSchema = z.number().finite().min(-90).max(60);
+
+function toCelsius(unit: string): ((v: number) => number) | null {
+  if (unit === '°C') return (v) => v;
+  if (unit === '°F') return (v) => Math.round(((v - 32) / 1.8) * 10) / 10;
+  return null;
+}
+
+/** Splits a response into valid days and rejected ones, each with its reason. */
+export function parseDaily(body: unknown): { days: FetchedDay[]; rejected: RejectedDay[] } {
+  const parsed = responseSchema.safeParse(body);
+  if (!parsed.success) throw new WeatherServiceError(`Unexpected response shape: ${parsed.error.issues[0]?.message ?? 'invalid'}`);
+  const { daily, daily_units: units } = parsed.data;
+  const convertMax = toCelsius(units.temperature_2m_max);
+  const convertMin = toCelsius(units.temperature_2m_min);
+  if (!convertMax || !convertMin) {
+    throw new WeatherServiceError(`Unexpected temperature units ${units.temperature_2m_max}/${units.temperature_2m_min}`);
+  }
+  const days: FetchedDay[] = [];
+  const rejected: RejectedDay[] = [];
+  const seen = new Set<string>();
+  daily.time.forEach((rawDate, i) => {
+    const date = dateSchema.safeParse(rawDate);
+    if (!date.success) return rejected.push({ date: null, reason: `day ${i}: date ${JSON.stringify(rawDate)} is not YYYY-MM-DD` });
+    if (seen.has(date.data)) return rejected.push({ date: date.data, reason: 'date appears twice' });
+    seen.add(date.data);
+    const hi = tempSchema.safeParse(daily.temperature_2m_max[i]);
+    const lo = tempSchema.safeParse(daily.temperature_2m_min[i]);
+    if (!hi.success || !lo.success) {
+      const bad = !hi.success ? ['high', daily.temperature_2m_max[i]] : ['low', daily.temperature_2m_min[i]];
+      return rejected.push({ date: date.data, reason: `${bad[0]} ${JSON.stringify(bad[1])} is not a plausible temperature` });
+    }
+    const tmax = convertMax(hi.data);
+    const tmin = convertMin(lo.data);
+    if (tmin > tmax) return rejected.push({ date: date.data, reason: `low ${tmin} °C is above high ${tmax} °C` });
+    days.push({ date: date.data, tmax, tmin });
+  });
+  return { days, rejected };
+}
+
+function retryAfterMs(err: AxiosError): number {
+  const header = err.response?.headers?.['retry-after'];
+  if (!header) return 0;
+  const secs = Number(header);
+  if (Number.isFinite(secs)) return Math.max(0, secs * 1000);
+  const at = Date.parse(String(header));
+  return Number.isFinite(at) ? Math.max(0, at - Date.now()) : 0;
+}
+
+export interface WeatherClient {
+  /** Recent observed days and the forecast, as local calendar days in timeZone. */
+  recent(p: { latitude: number; longitude: number; timeZone: string; pastDays: number; forecastDays: number }): Promise<FetchResult>;
+  /** Observed history for an inclusive date range. */
+  history(p: { latitude: number; longitude: number; timeZone: string; from: string; to: string }): Promise<FetchResult>;
+}
+
+export function createWeatherClient(opts: WeatherClientOptions): WeatherClient {
+  const http: AxiosInstance = axios.create({ timeout: opts.timeoutMs, headers: { Accept: 'application/json' } });
+  let requests = 0;
+  http.interceptors.request.use((config) => {
+    requests++;
+    return config;
+  });
+  axiosRetry(http, {
+    retries: opts.retries,
+    shouldResetTimeout: true,
+    retryCondition: (err) =>
+      isNetworkOrIdempotentRequestError(err) || err.code === 'ECONNABORTED' || err.code === 'ETIMEDOUT' || err.response?.status === 429,
+    // Exponential with full jitter; a longer Retry-After from the service wins (capped at 60 s).
+    retryDelay: (count, err) => {
+      const backoff = opts.backoffMs * 2 ** (count - 1);
+      return Math.min(60_000, Math.max(retryAfterMs(err), backoff / 2 + Math.random() * (backoff / 2)));
+    },
+    onRetry: (count, err, config) =>
+      opts.logger.warn('weather request retry', { attempt: count, status: err.response?.status, code: err.code, url: config.url }),
+  });
+
+  async function get(url: string, params: Record<string, string | number>): Promise<FetchResult> {
+    const before = requests;
+    try {
+      const res = await http.get(url, { params, responseType: 'text', transformResponse: (x) => x });
+      let body: unknown;
+      try {
+        body = JSON.parse(String(res.data));
+      } catch {
+        throw new WeatherServiceError('The weather service sent a body that is not JSON');
+      }
+      const out = parseDaily(body);
+      for (const r of out.rejected) opts.logger.warn('weather day rejected', { date: r.date, reason: r.reason, url });
+      return { ...out, requests: requests - before };
+    } catch (err) {
+      if (err instanceof WeatherServiceError) throw Object.assign(err, { requests: requests - before });
+      const ax = err as AxiosError<string>;
+      const status = ax.response?.status;
+      const reason = ax.code === 'ECONNABORTED' || ax.code === 'ETIMEDOUT' ? `timed out after ${opts.timeoutMs} ms` : ax.message;
+      throw Object.assign(new WeatherServiceError(`Weather service request failed: ${status ? `HTTP ${status}` : reason}`, status), {
+        requests: requests - before,
+      });
+    }
+  }
+
+  const daily = 'temperature_2m_max,temperature_2m_min';
+  return {
+    recent: (p) =>
+      get(opts.forecastUrl ?? OPEN_METEO_FORECAST_URL, {
+        latitude: p.latitude,
+        longitude: p.longitude,
+        daily,
+        timezone: p.timeZone,
+        past_days: p.pastDays,
+        forecast_days: p.forecastDays,
+        temperature_unit: 'celsius',
+      }),
+    history: (p) =>
+      get(opts.archiveUrl ?? OPEN_METEO_ARCHIVE_URL, {
+        latitude: p.latitude,
+        longitude: p.longitude,
+        daily,
+        timezone: p.timeZone,
+        start_date: p.from,
+        end_date: p.to,
+        temperature_unit: 'celsius',
+      }),
+  };
+}
+
+export function requestsOf(err: unknown): number {
+  return (err as { requests?: number })?.requests ?? 0;
+}

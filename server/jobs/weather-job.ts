@@ -1,0 +1,20 @@
+import cron from 'node-cron';
+import type { Logger } from '../lib/logger';
+import type { WeatherService } from '../modules/weather/weather.service';
+
+/**
+ * The nightly weather pull. noOverlap keeps one run per process at a time; across processes the
+ * per-cell leases (FOR UPDATE SKIP LOCKED) make sure each cell is refreshed once.
+ */
+export function scheduleWeatherJob(weather: WeatherService, opts: { cron: string; timeZone: string; logger: Logger }) {
+  if (!cron.validate(opts.cron)) throw new Error(`Invalid configuration: WEATHER_CRON "${opts.cron}" is not a cron expression`);
+  return cron.schedule(
+    opts.cron,
+    async () => {
+      const run = await weather.runRefresh({ kind: 'nightly' });
+      opts.logger.info('weather run finished', { ...run });
+      await weather.backfillPending();
+    },
+    { timezone: opts.timeZone, noOverlap: true, name: 'weather-nightly' },
+  );
+}

@@ -1,0 +1,246 @@
+/** Data access for weather cells, daily values, imports and job runs (raw SQL for bulk upserts). */
+import { QueryTypes } from 'sequelize';
+import type { Sequelize, Transaction } from 'sequelize';
+import type { TempSource } from '#shared/thermal/types';
+
+export interface CellRow {
+  id: number;
+  latitude: number;
+  longitude: number;
+  timeZone: string;
+  historyFrom: string | null;
+  historyThrough: string | null;
+  backfillTargetFrom: string | null;
+  backfillError: string | null;
+  refreshedAt: Date | null;
+}
+
+export interface StoredDay {
+  date: string;
+  tmax: number;
+  tmin: number;
+  source: TempSource;
+  note: string | null;
+}
+
+export type CellSource = 'observed' | 'forecast' | 'filled';
+/** An observation replaces a fill, and a fill replaces a forecast; never the other way round. */
+const RANK: Record<CellSource, number> = { forecast: 1, filled: 2, observed: 3 };
+
+const cellColumns = `id, latitude, longitude, time_zone AS timeZone, history_from AS historyFrom,
+  history_through AS historyThrough, backfill_target_from AS backfillTargetFrom,
+  backfill_error AS backfillError, refreshed_at AS refreshedAt`;
+
+export function cellKey(latitude: number, longitude: number) {
+  return { latKey: Math.round(latitude * 10), lonKey: Math.round(longitude * 10) };
+}
+
+export class WeatherRepository {
+  constructor(private readonly db: Sequelize) {}
+
+  async findOrCreateCell(latitude: number, longitude: number, timeZone: string, transaction?: Transaction): Promise<number> {
+    const { latKey, lonKey } = cellKey(latitude, longitude);
+    await this.db.query(
+      `INSERT IGNORE INTO weather_cells (lat_key, lon_key, time_zone, latitude, longitude, created_at, updated_at)
+       VALUES (?, ?, ?, ?, ?, UTC_TIMESTAMP(3), UTC_TIMESTAMP(3))`,
+      { replacements: [latKey, lonKey, timeZone, latKey / 10, lonKey / 10], transaction },
+    );
+    const [row] = await this.db.query<{ id: number }>(
+      'SELECT id FROM weather_cells WHERE lat_key = ? AND lon_key = ? AND time_zone = ?',
+      { replacements: [latKey, lonKey, timeZone], type: QueryTypes.SELECT, transaction },
+    );
+    return row.id;
+  }
+
+  async cell(id: number): Promise<CellRow | null> {
+    const [row] = await this.db.query<CellRow>(`SELECT ${cellColumns} FROM weather_cells WHERE id = ?`, {
+      replacements: [id],
+      type: QueryTypes.SELECT,
+    });
+    return row ?? null;
+  }
+
+  /**
+   * Claims one cell that gardens use and that nobody refreshed since `cutoff`, by a lease taken
+   * under FOR UPDATE SKIP LOCKED: concurrent instances never claim the same cell.
+   */
+  async claimCell(owner: string, cutoff: Date, leaseMs: number, onlyCellId?: number): Promise<CellRow | null> {
+    return this.db.transaction(async (transaction) => {
+      const [row] = await this.db.query<{ id: number }>(
+        `SELECT c.id FROM weather_cells c
+          WHERE EXISTS (SELECT 1 FROM gardens g WHERE g.weather_cell_id = c.id)
+            AND (c.refreshed_at IS NULL OR c.refreshed_at < ?)
+            AND (c.lease_until IS NULL OR c.lease_until < UTC_TIMESTAMP(3))
+            ${onlyCellId ? 'AND c.id = ?' : ''}
+          ORDER BY c.id LIMIT 1 FOR UPDATE SKIP LOCKED`,
+        { replacements: onlyCellId ? [cutoff, onlyCellId] : [cutoff], type: QueryTypes.SELECT, transaction },
+      );
+      if (!row) return null;
+      await this.db.query(
+        'UPDATE weather_cells SET lease_owner = ?, lease_until = UTC_TIMESTAMP(3) + INTERVAL ? MICROSECOND WHERE id = ?',
+        { replacements: [owner, leaseMs * 1000, row.id], transaction },
+      );
+      const [cell] = await this.db.query<CellRow>(`SELECT ${cellColumns} FROM weather_cells WHERE id = ?`, {
+        replacements: [row.id],
+        type: QueryTypes.SELECT,
+        transaction,
+      });
+      return cell;
+    });
+  }
+
+  /** Takes the lease of one cell regardless of its refresh time (backfill), if nobody holds it. */
+  async leaseCell(id: number, owner: string, leaseMs: number): Promise<boolean> {
+    const [, affected] = await this.db.query(
+      `UPDATE weather_cells SET lease_owner = ?, lease_until = UTC_TIMESTAMP(3) + INTERVAL ? MICROSECOND
+        WHERE id = ? AND (lease_until IS NULL OR lease_until < UTC_TIMESTAMP(3) OR lease_owner = ?)`,
+      { replacements: [owner, leaseMs * 1000, id, owner], type: QueryTypes.UPDATE },
+    );
+    return affected === 1;
+  }
+
+  async releaseCell(id: number, owner: string, patch: { refreshed?: boolean; historyFrom?: string; historyThrough?: string; backfillError?: string | null; backfillTargetFrom?: string } = {}) {
+    await this.db.query(
+      `UPDATE weather_cells SET lease_owner = NULL, lease_until = NULL,
+         refreshed_at = IF(?, UTC_TIMESTAMP(3), refreshed_at),
+         history_from = COALESCE(LEAST(history_from, ?), history_from, ?),
+         history_through = COALESCE(GREATEST(history_through, ?), history_through, ?),
+         backfill_error = IF(?, ?, backfill_error),
+         backfill_target_from = COALESCE(?, backfill_target_from),
+         updated_at = UTC_TIMESTAMP(3)
+       WHERE id = ? AND lease_owner = ?`,
+      {
+        replacements: [
+          patch.refreshed ? 1 : 0,
+          patch.historyFrom ?? null,
+          patch.historyFrom ?? null,
+          patch.historyThrough ?? null,
+          patch.historyThrough ?? null,
+          patch.backfillError !== undefined ? 1 : 0,
+          patch.backfillError ?? null,
+          patch.backfillTargetFrom ?? null,
+          id,
+          owner,
+        ],
+      },
+    );
+  }
+
+  async cellDays(cellId: number, from: string, to: string, transaction?: Transaction): Promise<StoredDay[]> {
+    const rows = await this.db.query<{ date: string; tmax: number; tmin: number; source: CellSource; note: string | null }>(
+      `SELECT date, tmax_c AS tmax, tmin_c AS tmin, source, fill_note AS note FROM weather_days
+        WHERE cell_id = ? AND date BETWEEN ? AND ? ORDER BY date`,
+      { replacements: [cellId, from, to], type: QueryTypes.SELECT, transaction },
+    );
+    return rows.map((r) => ({ ...r, tmax: Number(r.tmax), tmin: Number(r.tmin) }));
+  }
+
+  /**
+   * Writes days for a cell, skipping any that would lower provenance or change nothing, so a
+   * re-run of the same day writes nothing. Returns how many rows were inserted or changed.
+   */
+  async upsertCellDays(
+    cellId: number,
+    days: Array<{ date: string; tmax: number; tmin: number; source: CellSource; note?: string | null }>,
+  ): Promise<number> {
+    if (!days.length) return 0;
+    const sorted = [...days].sort((a, b) => (a.date < b.date ? -1 : 1));
+    return this.db.transaction(async (transaction) => {
+      const existing = new Map(
+        (await this.cellDays(cellId, sorted[0].date, sorted[sorted.length - 1].date, transaction)).map((d) => [d.date, d]),
+      );
+      const writes = sorted.filter((d) => {
+        const old = existing.get(d.date);
+        if (!old) return true;
+        if (RANK[d.source] < RANK[old.source as CellSource]) return false;
+        return old.tmax !== d.tmax || old.tmin !== d.tmin || old.source !== d.source || (old.note ?? null) !== (d.note ?? null);
+      });
+      for (let i = 0; i < writes.length; i += 1000) {
+        const chunk = writes.slice(i, i + 1000);
+        await this.db.query(
+          `INSERT INTO weather_days (cell_id, date, tmax_c, tmin_c, source, fill_note, fetched_at)
+           VALUES ${chunk.map(() => '(?, ?, ?, ?, ?, ?, UTC_TIMESTAMP(3))').join(', ')}
+           ON DUPLICATE KEY UPDATE tmax_c = VALUES(tmax_c), tmin_c = VALUES(tmin_c), fill_note = VALUES(fill_note),
+             fetched_at = VALUES(fetched_at), source = VALUES(source)`,
+          { replacements: chunk.flatMap((d) => [cellId, d.date, d.tmax, d.tmin, d.source, d.note ?? null]), transaction },
+        );
+      }
+      return writes.length;
+    });
+  }
+
+  async gardenDays(gardenId: number, from: string, to: string, transaction?: Transaction) {
+    const rows = await this.db.query<{ date: string; tmax: number; tmin: number }>(
+      `SELECT date, tmax_c AS tmax, tmin_c AS tmin FROM garden_weather_days
+        WHERE garden_id = ? AND date BETWEEN ? AND ? ORDER BY date`,
+      { replacements: [gardenId, from, to], type: QueryTypes.SELECT, transaction },
+    );
+    return rows.map((r) => ({ date: r.date, tmax: Number(r.tmax), tmin: Number(r.tmin) }));
+  }
+
+  async gardensOfCell(cellId: number): Promise<number[]> {
+    const rows = await this.db.query<{ id: number }>('SELECT id FROM gardens WHERE weather_cell_id = ?', {
+      replacements: [cellId],
+      type: QueryTypes.SELECT,
+    });
+    return rows.map((r) => r.id);
+  }
+
+  async cellsNeedingBackfill(): Promise<number[]> {
+    const rows = await this.db.query<{ id: number }>(
+      `SELECT c.id FROM weather_cells c
+        WHERE EXISTS (SELECT 1 FROM gardens g WHERE g.weather_cell_id = c.id)
+          AND (c.history_from IS NULL OR c.backfill_target_from IS NULL OR c.history_from > c.backfill_target_from)`,
+      { type: QueryTypes.SELECT },
+    );
+    return rows.map((r) => r.id);
+  }
+
+  async startRun(kind: string, instance: string, gardenId: number | null): Promise<number> {
+    const [id] = (await this.db.query(
+      `INSERT INTO job_runs (kind, instance, garden_id, started_at, status) VALUES (?, ?, ?, UTC_TIMESTAMP(3), 'running')`,
+      { replacements: [kind, instance, gardenId] },
+    )) as unknown as [number, number];
+    return id;
+  }
+
+  async finishRun(id: number, r: RunTotals) {
+    const status = r.cellsFailed === 0 ? 'ok' : r.cellsOk > 0 ? 'partial' : 'failed';
+    await this.db.query(
+      `UPDATE job_runs SET finished_at = UTC_TIMESTAMP(3), status = ?, cells_ok = ?, cells_failed = ?, cells_skipped = ?,
+         days_written = ?, days_rejected = ?, requests = ?, message = ? WHERE id = ?`,
+      {
+        replacements: [status, r.cellsOk, r.cellsFailed, r.cellsSkipped, r.daysWritten, r.daysRejected, r.requests, r.message?.slice(0, 1000) ?? null, id],
+      },
+    );
+  }
+
+  async runs(gardenId: number, limit: number) {
+    return this.db.query<RunRow>(
+      `SELECT id, kind, garden_id AS gardenId, started_at AS startedAt, finished_at AS finishedAt, status,
+              cells_ok AS cellsOk, cells_failed AS cellsFailed, cells_skipped AS cellsSkipped,
+              days_written AS daysWritten, days_rejected AS daysRejected, requests, message
+         FROM job_runs WHERE garden_id IS NULL OR garden_id = ? ORDER BY id DESC LIMIT ?`,
+      { replacements: [gardenId, limit], type: QueryTypes.SELECT },
+    );
+  }
+}
+
+export interface RunTotals {
+  cellsOk: number;
+  cellsFailed: number;
+  cellsSkipped: number;
+  daysWritten: number;
+  daysRejected: number;
+  requests: number;
+  message?: string;
+}
+
+export interface RunRow extends RunTotals {
+  id: number;
+  kind: string;
+  gardenId: number | null;
+  startedAt: Date;
+  finishedAt: Date | null;
+  status: string;
+}

@@ -1,0 +1,128 @@
+import { Router } from 'express';
+import type { RequestHandler } from 'express';
+import multer from 'multer';
+import type { Sequelize } from 'sequelize';
+import { weatherImportFieldsSchema, weatherQuerySchema } from '#shared/schemas/weather';
+import type { WeatherResponse } from '#shared/schemas/weather';
+import { addDays } from '#shared/thermal/dates';
+import { AppError } from '../../errors';
+import { localDate } from '../../lib/local-date';
+import { mountRoutes, requireSignedIn } from '../../lib/routes';
+import type { RouteTableEntry } from '../../lib/routes';
+import { parseBody, parseQuery } from '../../lib/validate';
+import { getGarden } from '../gardens/gardens.service';
+import { findGaps } from './weather.service';
+import type { WeatherService } from './weather.service';
+import { importStationCsv } from './weather-import';
+import { presentDay, presentRun } from './weather.presenter';
+
+const MAX_CSV_BYTES = 2 * 1024 * 1024;
+const CSV_TYPES = new Set(['text/csv', 'text/plain', 'application/csv', 'application/vnd.ms-excel', 'application/octet-stream']);
+
+const upload = multer({
+  storage: multer.memoryStorage(),
+  limits: { fileSize: MAX_CSV_BYTES, files: 1, fields: 4, parts: 6, fieldSize: 1024, headerPairs: 50 },
+  fileFilter: (_req, file, cb) => {
+    if (!CSV_TYPES.has(file.mimetype) || !/\.(csv|txt)$/i.test(file.originalname)) {
+      cb(new AppError(415, 'unsupported_file_type', 'Upload a .csv file (text with columns date, high, low).'));
+    } else cb(null, true);
+  },
+}).single('file');
+
+/** multer's own errors become our error shape: an oversize file is 413, the rest 400. */
+const receiveCsv: RequestHandler = (req, res, next) => {
+  if (!req.is('multipart/form-data')) {
+    next(new AppError(415, 'unsupported_media_type', 'Send the file as multipart/form-data with a "file" field.'));
+    return;
+  }
+  upload(req, res, (err: unknown) => {
+    if (!err) return next();
+    if (err instanceof AppError) return next(err);
+    const e = err as { code?: string; message: string; field?: string };
+    if (e.code === 'LIMIT_FILE_SIZE') return next(new AppError(413, 'payload_too_large', 'The file is larger than 2 MB.'));
+    next(new AppError(400, 'upload_invalid', `The upload could not be read: ${e.message}.`, e.field ? { [e.field]: e.message } : undefined));
+  });
+};
+
+export function weatherRouter(deps: { sequelize: Sequelize; weather: WeatherService; table: RouteTableEntry[] }) {
+  const { sequelize, weather, table } = deps;
+  const router = Router();
+  mountRoutes(
+    router,
+    '/api/gardens/:gardenId/weather',
+    [
+      {
+        method: 'get',
+        path: '/',
+        access: 'viewer',
+        handler: async (req, res) => {
+          const garden = await getGarden(req.membership!.gardenId);
+          const q = parseQuery(weatherQuerySchema, req.query);
+          const today = localDate(garden.timeZone, weather.now());
+          const from = q.from ?? addDays(q.to ?? today, -30);
+          const to = q.to ?? addDays(today, weather.settings.forecastDays - 1);
+          const days = await weather.gardenSeries(garden, from, to);
+          const pastEnd = [to, addDays(today, -1)].sort()[0];
+          const observedDates = new Set(days.filter((d) => d.source !== 'forecast').map((d) => d.date));
+          const status = await weather.backfillStatus(garden.weatherCellId);
+          const body: WeatherResponse = {
+            unit: garden.units,
+            from,
+            to,
+            today,
+            days: days.map((d) => presentDay(d, garden.units)),
+            gaps: from <= pastEnd ? findGaps(observedDates, from, pastEnd) : [],
+            history: status && { ...status, refreshedAt: status.refreshedAt ? new Date(status.refreshedAt).toISOString() : null },
+          };
+          res.json(body);
+        },
+      },
+      {
+        method: 'post',
+        path: '/refresh',
+        access: 'grower',
+        handler: async (req, res) => {
+          const garden = await getGarden(req.membership!.gardenId);
+          if (!garden.weatherCellId) {
+            throw new AppError(409, 'no_location', 'Set the garden location in Garden settings before fetching weather.');
+          }
+          const run = await weather.runRefresh({ kind: 'manual', gardenId: garden.id, cellId: garden.weatherCellId });
+          void weather.backfill(garden.weatherCellId);
+          res.json({ run });
+        },
+      },
+      {
+        method: 'post',
+        path: '/imports',
+        access: 'grower',
+        before: [receiveCsv],
+        handler: async (req, res) => {
+          const user = requireSignedIn(req);
+          const fields = parseBody(weatherImportFieldsSchema, { ...req.body });
+          if (!req.file) throw new AppError(400, 'validation_failed', 'Choose a CSV file to upload.', { file: 'Choose a CSV file to upload.' });
+          const garden = await getGarden(req.membership!.gardenId);
+          const result = await importStationCsv(sequelize, {
+            gardenId: garden.id,
+            userId: user.id,
+            fileName: req.file.originalname,
+            buffer: req.file.buffer,
+            unit: fields.unit,
+            today: localDate(garden.timeZone, weather.now()),
+          });
+          res.status(result.alreadyImported ? 200 : 201).json({ import: result });
+        },
+      },
+      {
+        method: 'get',
+        path: '/runs',
+        access: 'owner',
+        handler: async (req, res) => {
+          const runs = await weather.repo.runs(req.membership!.gardenId, 20);
+          res.json({ runs: runs.map(presentRun) });
+        },
+      },
+    ],
+    table,
+  );
+  return router;
+}

@@ -1,0 +1,82 @@
+import { z } from 'zod';
+import type { TempSource } from '../thermal/types';
+
+const isoDate = z.iso.date({ error: 'Use a date like 2026-05-31 (YYYY-MM-DD).' });
+
+export const weatherQuerySchema = z
+  .object({ from: isoDate.optional(), to: isoDate.optional() })
+  .strict()
+  .refine((q) => !q.from || !q.to || q.from <= q.to, { message: '"from" must not be after "to".', path: ['from'] })
+  .refine((q) => !q.from || !q.to || (Date.parse(q.to) - Date.parse(q.from)) / 86_400_000 <= 800, {
+    message: 'Ask for at most 800 days at a time.',
+    path: ['to'],
+  });
+
+export const weatherImportFieldsSchema = z
+  .object({ unit: z.enum(['F', 'C'], { error: 'Choose the unit of the file: F or C.' }) })
+  .strict();
+
+export interface WeatherDayDto {
+  date: string;
+  tmax: number;
+  tmin: number;
+  source: TempSource;
+  /** How a filled day was made, in words. */
+  note?: string;
+}
+
+export interface WeatherGapDto {
+  from: string;
+  to: string;
+  days: number;
+}
+
+export interface WeatherResponse {
+  unit: 'F' | 'C';
+  from: string;
+  to: string;
+  today: string;
+  days: WeatherDayDto[];
+  gaps: WeatherGapDto[];
+  history: {
+    historyFrom: string | null;
+    historyThrough: string | null;
+    targetFrom: string;
+    percent: number;
+    complete: boolean;
+    error: string | null;
+    refreshedAt: string | null;
+    running: boolean;
+  } | null;
+}
+
+export interface CsvRowError {
+  line: number;
+  column: string | null;
+  message: string;
+}
+
+export interface WeatherImportResult {
+  importId: number | null;
+  rowsInFile: number;
+  rowsAdded: number;
+  rowsChanged: number;
+  alreadyImported: boolean;
+  from: string | null;
+  to: string | null;
+}
+
+export interface JobRunDto {
+  id: number;
+  kind: string;
+  startedAt: string;
+  finishedAt: string | null;
+  status: string;
+  cellsOk: number;
+  cellsFailed: number;
+  cellsSkipped: number;
+  daysWritten: number;
+  daysRejected: number;
+  requests: number;
+  message: string | null;
+}
