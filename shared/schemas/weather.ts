@@ -31,8 +31,17 @@ export interface WeatherGapDto {
   days: number;
 }
 
+/** A crop threshold of a planting in the ground, for reference lines on the weather chart. */
+export interface WeatherThresholdDto {
+  label: string;
+  kind: 'base' | 'upper' | 'bolt-heat';
+  /** In the garden's display unit, like the days. */
+  value: number;
+}
+
 export interface WeatherResponse {
   unit: 'F' | 'C';
+  thresholds: WeatherThresholdDto[];
   from: string;
   to: string;
   today: string;

@@ -67,6 +67,7 @@ export function weatherRouter(deps: { sequelize: Sequelize; weather: WeatherServ
           const status = await weather.backfillStatus(garden.weatherCellId);
           const body: WeatherResponse = {
             unit: garden.units,
+            thresholds: [],
             from,
             to,
             today,
