@@ -131,20 +131,15 @@ function analogStart(c: CivilDate, yearsBack: number, first: number): number {
 function findMaturity(prefix: Float64Array, a: number, lo: number, hi: number, target: number): number {
   const need = prefix[a] + target - TARGET_EPSILON;
   if (hi < lo || prefix[hi + 1] < need) return -1;
-  let step = 1;
-  let left = lo;
-  let right = lo;
-  while (prefix[right + 1] < need) {
-    left = right + 1;
-    right = Math.min(hi, right + step);
-    step *= 2;
-  }
-  while (left < right) {
-    const mid = (left + right) >> 1;
-    if (prefix[mid + 1] >= need) right = mid;
-    else left = mid + 1;
-  }
-  return left;
+  // Consecutive sowing dates mature on non-decreasing days, so walking on from the previous
+  // answer costs about one step per candidate (amortised), cheaper than any search.
+  let m = lo;
+  while (prefix[m + 1] < need) m++;
+  return m;
+}
+
+function dateAfter(sowN: number, days: number | null): string | null {
+  return days === null ? null : fromDayNumber(sowN + days);
 }
 
 function rank(sorted: Float64Array, n: number, p: number): number | null {
@@ -232,12 +227,11 @@ function summarize(offsets: Float64Array, years: number, count: number, fromN: n
     if (used === years) order.set(slots);
     const days = { p10: rank(values, used, 10), p50: rank(values, used, 50), p90: rank(values, used, 90) };
     const sowN = fromN + k;
-    const date = (d: number | null) => (d === null ? null : fromDayNumber(sowN + d));
     candidates.push({
       sowDate: fromDayNumber(sowN),
       analogYears: used,
       maturityDays: days,
-      maturity: { p10: date(days.p10), p50: date(days.p50), p90: date(days.p90) },
+      maturity: { p10: dateAfter(sowN, days.p10), p50: dateAfter(sowN, days.p50), p90: dateAfter(sowN, days.p90) },
       highBoltShare: used ? high[k] / used : 0,
       missCutoffShare: used ? miss[k] / used : 0,
     });
