@@ -73,10 +73,12 @@ start() {
   client <<SQL
 CREATE DATABASE IF NOT EXISTS heatclock CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci;
 CREATE DATABASE IF NOT EXISTS heatclock_test CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci;
+CREATE DATABASE IF NOT EXISTS heatclock_bench CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci;
 CREATE USER IF NOT EXISTS 'heatclock'@'127.0.0.1' IDENTIFIED BY '$pw';
 ALTER USER 'heatclock'@'127.0.0.1' IDENTIFIED BY '$pw';
 GRANT ALL PRIVILEGES ON heatclock.* TO 'heatclock'@'127.0.0.1';
 GRANT ALL PRIVILEGES ON heatclock_test.* TO 'heatclock'@'127.0.0.1';
+GRANT ALL PRIVILEGES ON heatclock_bench.* TO 'heatclock'@'127.0.0.1';
 FLUSH PRIVILEGES;
 SQL
   cat >"$envfile" <<ENV

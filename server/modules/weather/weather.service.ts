@@ -119,8 +119,10 @@ export class WeatherService {
       totals.requests += res.requests;
       totals.daysRejected += res.rejected.length;
       const rows = res.days.map((d) => ({ ...d, source: d.date < today ? ('observed' as const) : ('forecast' as const) }));
-      totals.daysWritten += await this.repo.upsertCellDays(cell.id, rows);
-      totals.daysWritten += await this.fillShortGaps(cell.id, addDays(today, -pastDays), yesterday);
+      // Await first, then add: `total += await …` would read the total before other workers' updates.
+      const written = await this.repo.upsertCellDays(cell.id, rows);
+      const filled = await this.fillShortGaps(cell.id, addDays(today, -pastDays), yesterday);
+      totals.daysWritten += written + filled;
       const observed = rows.filter((r) => r.source === 'observed').map((r) => r.date);
       await this.repo.releaseCell(cell.id, this.instance, {
         refreshed: true,
