@@ -1,0 +1,57 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import path from 'node:path';
+import { Garden } from '../../server/db/models';
+import { screenshotDir, signInAs, startBrowserSession } from '../helpers/browser';
+
+let session: Awaited<ReturnType<typeof startBrowserSession>>;
+beforeAll(async () => {
+  session = await startBrowserSession();
+}, 60_000);
+afterAll(async () => {
+  await session?.close();
+  await Garden.update({ units: 'F' }, { where: { name: 'Hollowbrook Teaching Garden' } });
+});
+
+describe('in the browser (Debian Chromium)', () => {
+  it('when the demo owner signs in and changes the display unit, then it is saved and stays after a reload', async () => {
+    const page = await session.newPage();
+    await signInAs(page, session.baseUrl, 'coordinator@hollowbrook.example');
+    await page.getByRole('link', { name: /settings/i }).first().click();
+    await page.getByLabel('°C (Celsius)').check();
+    await page.getByRole('button', { name: 'Save settings' }).click();
+    await page.getByText('Settings saved.').waitFor({ state: 'visible', timeout: 10_000 });
+    await page.screenshot({ path: path.join(screenshotDir, 'settings-owner.png'), fullPage: true });
+    await page.reload();
+    expect(await page.getByLabel('°C (Celsius)').isChecked()).toBe(true);
+    // The font ships with the app: it is served from our own origin, nothing from the network.
+    const fontLoaded = await page.evaluate(async () => {
+      await document.fonts.ready;
+      return [...document.fonts].some((f) => f.family.includes('Roboto Flex') && f.status === 'loaded');
+    });
+    expect(fontLoaded).toBe(true);
+    expect(session.offsite).toEqual([]);
+    expect(session.pageErrors).toEqual([]);
+  });
+
+  it('when a volunteer viewer opens the settings at phone width, then they are read-only', async () => {
+    const page = await session.newPage(375, 800);
+    await signInAs(page, session.baseUrl, 'volunteer@hollowbrook.example');
+    const id = page.url().match(/\/g\/(\d+)/)![1];
+    await page.goto(`${session.baseUrl}/g/${id}/settings`);
+    await page.getByText(/only the garden.s owner can change/i).first().waitFor({ state: 'visible', timeout: 10_000 });
+    expect(await page.getByRole('button', { name: 'Save settings' }).count()).toBe(0);
+    const overflow = await page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth);
+    expect(overflow).toBeLessThanOrEqual(0);
+    await page.screenshot({ path: path.join(screenshotDir, 'settings-viewer-phone.png'), fullPage: true });
+    expect(session.pageErrors).toEqual([]);
+  });
+
+  it('when a wrong password is typed, then the page says so in words', async () => {
+    const page = await session.newPage();
+    await page.goto(`${session.baseUrl}/sign-in`);
+    await page.getByLabel('E-mail').fill('grower.rosa@hollowbrook.example');
+    await page.getByLabel('Password').fill('not-the-password');
+    await page.getByRole('button', { name: 'Sign in' }).click();
+    await page.getByText('E-mail or password is incorrect.').waitFor({ state: 'visible', timeout: 10_000 });
+  });
+});
