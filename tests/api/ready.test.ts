@@ -4,6 +4,8 @@ import request from 'supertest';
 import { createApp } from '../../server/app';
 import { createSequelize } from '../../server/db/sequelize';
 import { testApp, testDb } from '../helpers/test-app';
+import { createUser, PASSWORD } from '../helpers/factories';
+import { initModels } from '../../server/db/models';
 
 /** A port on loopback that nothing listens on. */
 async function closedPort(): Promise<number> {
@@ -31,6 +33,27 @@ describe('health and readiness', () => {
     expect(res.body.database).toBe('down');
     expect(Date.now() - started).toBeLessThan(5000);
     expect((await request(app).get('/api/health')).status).toBe(200);
+    await dead.close();
+  });
+
+  it('when the database goes away under a signed-in request, then the answer is a fast 503, never a hang', async () => {
+    const { config } = testDb();
+    const live = testApp();
+    const user = await createUser();
+    const login = await request(live).post('/api/auth/login').send({ email: user.email, password: PASSWORD }).expect(200);
+    const cookie = String(login.headers['set-cookie']).split(';')[0];
+    const dead = createSequelize({ ...config.db, port: await closedPort() }, { acquireMs: 1000 });
+    // The models follow the process's one Sequelize instance: point them at the dead one for this request.
+    initModels(dead);
+    const app = createApp({ config, sequelize: dead, clientDir: null });
+    const started = Date.now();
+    const res = await request(app).get('/api/gardens').set('Cookie', cookie);
+    initModels(testDb().sequelize);
+    expect(res.status).toBe(503);
+    expect(res.body.error.code).toBe('database_unavailable');
+    expect(res.headers['retry-after']).toBe('5');
+    expect(JSON.stringify(res.body)).not.toMatch(/ECONNREFUSED|127\.0\.0\.1|Sequelize/);
+    expect(Date.now() - started).toBeLessThan(5000);
     await dead.close();
   });
 });
