@@ -15,6 +15,12 @@ import { configurePassport } from './modules/auth/passport';
 import { authRouter } from './modules/auth/auth.router';
 import { gardensRouter } from './modules/gardens/gardens.router';
 import { healthRouter } from './modules/health/health.router';
+import { bedsRouter } from './modules/beds/beds.router';
+import { cropsRouter } from './modules/crops/crops.router';
+import { varietiesRouter } from './modules/varieties/varieties.router';
+import { seedLotsRouter } from './modules/seed-lots/seed-lots.router';
+import { plantingsRouter } from './modules/plantings/plantings.router';
+import { photosRouter } from './modules/photos/photos.router';
 import { weatherRouter } from './modules/weather/weather.router';
 import { WeatherService } from './modules/weather/weather.service';
 import { createWeatherClient } from './integrations/weather/open-meteo';
@@ -91,6 +97,12 @@ export function createApp({ config, sequelize, logger = createLogger(config.logL
   api.use(authRouter({ sequelize, config, passport, table: routes }));
   api.use(gardensRouter({ table: routes, weather: weatherService }));
   api.use(weatherRouter({ sequelize, weather: weatherService, table: routes }));
+  api.use(bedsRouter(routes));
+  api.use(cropsRouter(routes));
+  api.use(varietiesRouter(routes));
+  api.use(seedLotsRouter(routes));
+  api.use(plantingsRouter(config, routes));
+  api.use(photosRouter(config, routes));
   api.use('/api', () => {
     throw new AppError(404, 'not_found', 'No such API route.');
   });

@@ -9,6 +9,13 @@ import { GardenHomePage } from '@/app/routes/gardens/garden-home';
 import { GardenLayout } from '@/app/routes/gardens/garden-layout';
 import { GardenSettingsPage } from '@/app/routes/gardens/garden-settings';
 import { NotFoundPage } from '@/app/routes/misc/not-found';
+import { WeatherPage } from '@/app/routes/weather/weather';
+import { PlantingsPage } from '@/app/routes/plantings/plantings';
+import { PlantingDetailPage } from '@/app/routes/plantings/planting-detail';
+import { VarietiesPage } from '@/app/routes/varieties/varieties';
+import { SeedLotsPage } from '@/app/routes/seed-lots/seed-lots';
+import { BedsPage } from '@/app/routes/beds/beds';
+import { CropsPage } from '@/app/routes/crops/crops';
 
 export const routes: RouteObject[] = [
   { path: '/sign-in', element: <SignInPage /> },
@@ -22,6 +29,13 @@ export const routes: RouteObject[] = [
         element: <GardenLayout />,
         children: [
           { index: true, element: <GardenHomePage /> },
+          { path: 'plantings', element: <PlantingsPage /> },
+          { path: 'plantings/:plantingId', element: <PlantingDetailPage /> },
+          { path: 'varieties', element: <VarietiesPage /> },
+          { path: 'seed-lots', element: <SeedLotsPage /> },
+          { path: 'beds', element: <BedsPage /> },
+          { path: 'crops', element: <CropsPage /> },
+          { path: 'weather', element: <WeatherPage /> },
           { path: 'settings', element: <GardenSettingsPage /> },
           // Inside a garden, an unknown page keeps the header so the grower can find their way.
           { path: '*', element: <NotFoundMessage /> },

@@ -2,6 +2,8 @@ import type { Sequelize } from 'sequelize';
 import { Garden, Membership, User } from '../models';
 import { hashPassword } from '../../modules/auth/password';
 import type { Role } from '#shared/schemas/gardens';
+import { todayIn } from '../../modules/records/today';
+import { seedGardenRecords } from './demo-records';
 
 /** Invented demo scenario: every name and place here is fictional. */
 export const DEMO_PASSWORD = 'heatclock-demo';
@@ -56,6 +58,12 @@ export async function seedDemo(sequelize: Sequelize) {
           transaction,
         });
       }
+      await seedGardenRecords(
+        garden,
+        users.map((u) => u.user),
+        todayIn(garden.timeZone),
+        transaction,
+      );
     }
     return { users: users.map((u) => u.user), gardens };
   });

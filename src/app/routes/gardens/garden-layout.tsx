@@ -75,6 +75,36 @@ export function GardenLayout() {
                 </NavLink>
               </li>
               <li>
+                <NavLink to={`/g/${gardenId}/plantings`} className={NAV_LINK}>
+                  Plantings
+                </NavLink>
+              </li>
+              <li>
+                <NavLink to={`/g/${gardenId}/varieties`} className={NAV_LINK}>
+                  Varieties
+                </NavLink>
+              </li>
+              <li>
+                <NavLink to={`/g/${gardenId}/seed-lots`} className={NAV_LINK}>
+                  Seed lots
+                </NavLink>
+              </li>
+              <li>
+                <NavLink to={`/g/${gardenId}/beds`} className={NAV_LINK}>
+                  Beds
+                </NavLink>
+              </li>
+              <li>
+                <NavLink to={`/g/${gardenId}/crops`} className={NAV_LINK}>
+                  Crops
+                </NavLink>
+              </li>
+              <li>
+                <NavLink to={`/g/${gardenId}/weather`} className={NAV_LINK}>
+                  Weather
+                </NavLink>
+              </li>
+              <li>
                 <NavLink to={`/g/${gardenId}/settings`} className={NAV_LINK}>
                   Garden settings
                 </NavLink>

@@ -1,0 +1,68 @@
+import { DataTypes, Model } from 'sequelize';
+import type { CreationOptional, InferAttributes, InferCreationAttributes, Sequelize } from 'sequelize';
+import type { DtmFrom, VarietyTrait } from '#shared/schemas/varieties';
+
+export class Variety extends Model<InferAttributes<Variety>, InferCreationAttributes<Variety>> {
+  declare id: CreationOptional<number>;
+  declare gardenId: number;
+  declare cropKey: string;
+  declare name: string;
+  declare dtmDays: number | null;
+  declare dtmFrom: DtmFrom;
+  declare emergenceDaysMin: number | null;
+  declare emergenceDaysMax: number | null;
+  declare boltTolerance: number | null;
+  declare heatTolerance: number | null;
+  /** Stored as a comma-separated list; always read and written as an array. */
+  declare traits: VarietyTrait[];
+  declare containerFriendly: boolean;
+  declare sunHours: number | null;
+  declare waterCmPerWeek: number | null;
+  declare sowDepthCm: number | null;
+  declare spacingCm: number | null;
+  declare thinSpacingCm: number | null;
+  declare gddTargetOverrideC: number | null;
+  declare notes: string;
+  declare createdAt: CreationOptional<Date>;
+  declare updatedAt: CreationOptional<Date>;
+
+  static initModel(sequelize: Sequelize) {
+    Variety.init(
+      {
+        id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
+        gardenId: { type: DataTypes.INTEGER, allowNull: false },
+        cropKey: { type: DataTypes.STRING(40), allowNull: false },
+        name: { type: DataTypes.STRING(100), allowNull: false },
+        dtmDays: { type: DataTypes.INTEGER, allowNull: true },
+        dtmFrom: { type: DataTypes.ENUM('sowing', 'emergence', 'transplant'), allowNull: false },
+        emergenceDaysMin: { type: DataTypes.INTEGER, allowNull: true },
+        emergenceDaysMax: { type: DataTypes.INTEGER, allowNull: true },
+        boltTolerance: { type: DataTypes.TINYINT, allowNull: true },
+        heatTolerance: { type: DataTypes.TINYINT, allowNull: true },
+        traits: {
+          type: DataTypes.STRING(200),
+          allowNull: false,
+          defaultValue: '',
+          get() {
+            const raw = this.getDataValue('traits') as unknown as string;
+            return raw ? (raw.split(',') as VarietyTrait[]) : [];
+          },
+          set(value: VarietyTrait[]) {
+            this.setDataValue('traits', value.join(',') as unknown as VarietyTrait[]);
+          },
+        },
+        containerFriendly: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
+        sunHours: { type: DataTypes.DOUBLE, allowNull: true },
+        waterCmPerWeek: { type: DataTypes.DOUBLE, allowNull: true },
+        sowDepthCm: { type: DataTypes.DOUBLE, allowNull: true },
+        spacingCm: { type: DataTypes.DOUBLE, allowNull: true },
+        thinSpacingCm: { type: DataTypes.DOUBLE, allowNull: true },
+        gddTargetOverrideC: { type: DataTypes.DOUBLE, allowNull: true },
+        notes: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
+        createdAt: DataTypes.DATE,
+        updatedAt: DataTypes.DATE,
+      },
+      { sequelize, tableName: 'varieties', modelName: 'Variety' },
+    );
+  }
+}

@@ -1,0 +1,15 @@
+import type { BedDto } from '#shared/schemas/beds';
+import type { Bed } from '../../db/models';
+
+export function presentBed(b: Bed, activePlantings: number): BedDto {
+  return {
+    id: b.id,
+    name: b.name,
+    kind: b.kind,
+    lengthM: b.lengthM,
+    widthM: b.widthM,
+    areaM2: b.lengthM !== null && b.widthM !== null ? Math.round(b.lengthM * b.widthM * 100) / 100 : null,
+    notes: b.notes,
+    activePlantings,
+  };
+}

@@ -1,0 +1,72 @@
+import { Router } from 'express';
+import { bedCreateSchema, bedListQuerySchema, bedUpdateSchema } from '#shared/schemas/beds';
+import { parseBody, parseQuery } from '../../lib/validate';
+import { mountRoutes } from '../../lib/routes';
+import type { RouteTableEntry } from '../../lib/routes';
+import { recordId } from '../records/params';
+import { pageOf } from '../records/paging';
+import { activeCounts, createBed, deleteBed, getBed, listBeds, updateBed } from './beds.service';
+import { presentBed } from './beds.presenter';
+
+export function bedsRouter(table: RouteTableEntry[]) {
+  const router = Router();
+  const one = async (gardenId: number, bedId: number) => {
+    const bed = await getBed(gardenId, bedId);
+    return presentBed(bed, (await activeCounts(gardenId, [bed.id])).get(bed.id) ?? 0);
+  };
+  mountRoutes(
+    router,
+    '/api/gardens/:gardenId/beds',
+    [
+      {
+        method: 'get',
+        path: '/',
+        access: 'viewer',
+        handler: async (req, res) => {
+          const q = parseQuery(bedListQuerySchema, req.query);
+          const { rows, count, active } = await listBeds(req.membership!.gardenId, q);
+          res.json(pageOf(rows.map((b) => presentBed(b, active.get(b.id) ?? 0)), count, q));
+        },
+      },
+      {
+        method: 'post',
+        path: '/',
+        access: 'grower',
+        handler: async (req, res) => {
+          const bed = await createBed(req.membership!.gardenId, parseBody(bedCreateSchema, req.body));
+          res.status(201).json({ bed: presentBed(bed, 0) });
+        },
+      },
+      {
+        method: 'get',
+        path: '/:bedId',
+        access: 'viewer',
+        handler: async (req, res) => {
+          res.json({ bed: await one(req.membership!.gardenId, recordId(req.params, 'bedId')) });
+        },
+      },
+      {
+        method: 'patch',
+        path: '/:bedId',
+        access: 'grower',
+        handler: async (req, res) => {
+          const gardenId = req.membership!.gardenId;
+          const bedId = recordId(req.params, 'bedId');
+          await updateBed(gardenId, bedId, parseBody(bedUpdateSchema, req.body));
+          res.json({ bed: await one(gardenId, bedId) });
+        },
+      },
+      {
+        method: 'delete',
+        path: '/:bedId',
+        access: 'grower',
+        handler: async (req, res) => {
+          await deleteBed(req.membership!.gardenId, recordId(req.params, 'bedId'));
+          res.status(204).end();
+        },
+      },
+    ],
+    table,
+  );
+  return router;
+}

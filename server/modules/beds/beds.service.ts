@@ -1,0 +1,60 @@
+import { Op, fn, col } from 'sequelize';
+import type { WhereOptions } from 'sequelize';
+import type { BedCreateInput, BedUpdateInput, bedListQuerySchema } from '#shared/schemas/beds';
+import type { z } from 'zod';
+import { Bed, Planting } from '../../db/models';
+import { AppError } from '../../errors';
+import { likeText, limitOffset } from '../records/paging';
+import { uniqueOr409 } from '../records/unique';
+
+type BedListQuery = z.output<typeof bedListQuerySchema>;
+
+const duplicate = 'This garden already has a bed with that name.';
+
+export async function listBeds(gardenId: number, q: BedListQuery) {
+  const where: WhereOptions<Bed> = { gardenId };
+  if (q.q) Object.assign(where, { name: { [Op.like]: likeText(q.q) } });
+  if (q.kind) Object.assign(where, { kind: q.kind });
+  const { rows, count } = await Bed.findAndCountAll({ where, order: [['name', 'ASC'], ['id', 'ASC']], ...limitOffset(q) });
+  return { rows, count, active: await activeCounts(gardenId, rows.map((b) => b.id)) };
+}
+
+/** Planned or growing plantings per bed, for the beds shown. */
+export async function activeCounts(gardenId: number, bedIds: number[]): Promise<Map<number, number>> {
+  if (!bedIds.length) return new Map();
+  const rows = (await Planting.findAll({
+    attributes: ['bedId', [fn('COUNT', col('id')), 'n']],
+    where: { gardenId, bedId: bedIds, status: ['planned', 'growing'] },
+    group: ['bedId'],
+    raw: true,
+  })) as unknown as { bedId: number; n: number }[];
+  return new Map(rows.map((r) => [r.bedId, Number(r.n)]));
+}
+
+export async function getBed(gardenId: number, bedId: number) {
+  const bed = await Bed.findOne({ where: { id: bedId, gardenId } });
+  if (!bed) throw AppError.notFound('That bed');
+  return bed;
+}
+
+export async function createBed(gardenId: number, input: BedCreateInput) {
+  return uniqueOr409(
+    () => Bed.create({ gardenId, name: input.name, kind: input.kind, lengthM: input.lengthM ?? null, widthM: input.widthM ?? null, notes: input.notes ?? '' }),
+    duplicate,
+    'name',
+  );
+}
+
+export async function updateBed(gardenId: number, bedId: number, input: BedUpdateInput) {
+  const bed = await getBed(gardenId, bedId);
+  return uniqueOr409(() => bed.update(input), duplicate, 'name');
+}
+
+export async function deleteBed(gardenId: number, bedId: number) {
+  const bed = await getBed(gardenId, bedId);
+  const used = await Planting.count({ where: { gardenId, bedId } });
+  if (used) {
+    throw new AppError(409, 'in_use', `This bed has ${used} planting${used === 1 ? '' : 's'} on record; move or delete them first.`);
+  }
+  await bed.destroy();
+}

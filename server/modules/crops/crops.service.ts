@@ -1,0 +1,91 @@
+import type { Transaction } from 'sequelize';
+import type { z } from 'zod';
+import { CROP_LIBRARY, findCrop } from '#shared/crops/library';
+import { CROP_PARAM_KEYS } from '#shared/crops/params';
+import type { CropDefinition, CropParamKey, CropParams } from '#shared/crops/params';
+import type { CropOverridesUpdateInput, cropListQuerySchema } from '#shared/schemas/crops';
+import { CropOverride } from '../../db/models';
+import { AppError } from '../../errors';
+import { inTransaction } from '../records/transaction';
+
+type CropListQuery = z.output<typeof cropListQuerySchema>;
+
+export interface CropWithOverrides {
+  crop: CropDefinition;
+  overrides: Map<CropParamKey, CropOverride>;
+}
+
+export function cropOrNotFound(cropKey: string): CropDefinition {
+  const crop = findCrop(cropKey);
+  if (!crop) throw AppError.notFound('That crop');
+  return crop;
+}
+
+async function overridesOf(gardenId: number, cropKeys: string[], transaction?: Transaction) {
+  const rows = await CropOverride.findAll({ where: { gardenId, cropKey: cropKeys }, transaction });
+  const byCrop = new Map<string, Map<CropParamKey, CropOverride>>();
+  for (const row of rows) {
+    if (!(CROP_PARAM_KEYS as string[]).includes(row.paramKey)) continue;
+    const m = byCrop.get(row.cropKey) ?? new Map();
+    m.set(row.paramKey as CropParamKey, row);
+    byCrop.set(row.cropKey, m);
+  }
+  return byCrop;
+}
+
+export function overrideValue(row: CropOverride): unknown {
+  return JSON.parse(row.valueJson);
+}
+
+/** A crop's parameter values as this garden uses them: its overrides over the shared defaults. */
+export function effectiveValues({ crop, overrides }: CropWithOverrides): { [K in CropParamKey]: CropParams[K]['value'] } {
+  const out = {} as Record<CropParamKey, unknown>;
+  for (const key of CROP_PARAM_KEYS) {
+    const o = overrides.get(key);
+    out[key] = o ? overrideValue(o) : crop.params[key].value;
+  }
+  return out as { [K in CropParamKey]: CropParams[K]['value'] };
+}
+
+export async function listCrops(gardenId: number, q: CropListQuery): Promise<CropWithOverrides[]> {
+  const byCrop = await overridesOf(gardenId, CROP_LIBRARY.map((c) => c.key));
+  const text = q.q?.toLowerCase();
+  return CROP_LIBRARY.map((crop) => ({ crop, overrides: byCrop.get(crop.key) ?? new Map() })).filter((c) => {
+    const season = (c.overrides.has('season') ? overrideValue(c.overrides.get('season')!) : c.crop.params.season.value) as string;
+    if (q.season && season !== q.season) return false;
+    return !text || c.crop.name.toLowerCase().includes(text) || c.crop.botanicalName.toLowerCase().includes(text);
+  });
+}
+
+export async function getCrop(gardenId: number, cropKey: string, transaction?: Transaction): Promise<CropWithOverrides> {
+  const crop = cropOrNotFound(cropKey);
+  const byCrop = await overridesOf(gardenId, [crop.key], transaction);
+  return { crop, overrides: byCrop.get(crop.key) ?? new Map() };
+}
+
+/** Sets or clears this garden's own values; the shared library is never written. */
+export async function updateCropOverrides(gardenId: number, userId: number, cropKey: string, input: CropOverridesUpdateInput) {
+  const crop = cropOrNotFound(cropKey);
+  return inTransaction(CropOverride.sequelize!, async (transaction) => {
+    for (const key of CROP_PARAM_KEYS) {
+      const change = input.params[key];
+      if (change === undefined) continue;
+      const where = { gardenId, cropKey: crop.key, paramKey: key };
+      const existing = await CropOverride.findOne({ where, transaction, lock: transaction.LOCK.UPDATE });
+      if (change === null) {
+        await existing?.destroy({ transaction });
+        continue;
+      }
+      const fields = { valueJson: JSON.stringify(change.value), note: change.note ?? '', updatedBy: userId };
+      if (existing) await existing.update(fields, { transaction });
+      else await CropOverride.create({ ...where, ...fields }, { transaction });
+    }
+    return getCrop(gardenId, crop.key, transaction);
+  });
+}
+
+/** Every crop's values as this garden has them, by crop key. */
+export async function effectiveCrops(gardenId: number): Promise<Map<string, ReturnType<typeof effectiveValues>>> {
+  const crops = await listCrops(gardenId, {});
+  return new Map(crops.map((c) => [c.crop.key, effectiveValues(c)]));
+}

@@ -1,0 +1,97 @@
+import type { Transaction } from 'sequelize';
+import type { LogEntryCreateInput } from '#shared/schemas/plantings';
+import { Planting, PlantingLog, User } from '../../db/models';
+import { AppError } from '../../errors';
+import { limitOffset } from '../records/paging';
+import { inTransaction } from '../records/transaction';
+
+async function plantingOf(gardenId: number, plantingId: number, transaction?: Transaction) {
+  const planting = await Planting.findOne({
+    where: { id: plantingId, gardenId },
+    transaction,
+    ...(transaction ? { lock: transaction.LOCK.UPDATE } : {}),
+  });
+  if (!planting) throw AppError.notFound('That planting');
+  return planting;
+}
+
+export async function listLog(gardenId: number, plantingId: number, q: { page: number; pageSize: number }) {
+  await plantingOf(gardenId, plantingId);
+  return PlantingLog.findAndCountAll({
+    where: { plantingId, gardenId },
+    include: [{ model: User, as: 'author', attributes: ['id', 'name'], required: false }],
+    order: [['entryOn', 'DESC'], ['id', 'DESC']],
+    ...limitOffset(q),
+  });
+}
+
+const earliest = (a: string | null, b: string) => (a && a < b ? a : b);
+const latest = (a: string | null, b: string) => (a && a > b ? a : b);
+
+/**
+ * What a log entry says about the planting's stages, so a grower's two taps in the garden keep
+ * the planting's dates and status current without a second form.
+ */
+function stageChanges(p: Planting, e: LogEntryCreateInput): Partial<Planting> {
+  switch (e.kind) {
+    case 'thinned':
+      return p.thinnedOn ? {} : { thinnedOn: e.entryOn };
+    case 'harvest':
+      return {
+        firstHarvestOn: earliest(p.firstHarvestOn, e.entryOn),
+        lastHarvestOn: latest(p.lastHarvestOn, e.entryOn),
+        ...(p.status === 'planned' ? { status: 'growing' as const } : {}),
+      };
+    case 'bolted':
+      return { boltedOn: earliest(p.boltedOn, e.entryOn), status: 'bolted' };
+    default:
+      return {};
+  }
+}
+
+export async function addLogEntry(gardenId: number, plantingId: number, userId: number, input: LogEntryCreateInput, transaction?: Transaction) {
+  const work = async (t: Transaction) => {
+    const planting = await plantingOf(gardenId, plantingId, t);
+    const start = planting.sownOn ?? planting.transplantedOn;
+    if (start && input.entryOn < start && input.kind !== 'observation') {
+      throw new AppError(400, 'validation_failed', 'Please check the fields: entryOn.', {
+        entryOn: `This planting started on ${start}; the entry cannot be earlier.`,
+      });
+    }
+    const changes = stageChanges(planting, input);
+    if (Object.keys(changes).length) await planting.update(changes, { transaction: t });
+    return PlantingLog.create(
+      {
+        gardenId,
+        plantingId,
+        entryOn: input.entryOn,
+        kind: input.kind,
+        amount: input.amount ?? null,
+        amountUnit: input.amountUnit ?? null,
+        note: input.note ?? '',
+        photoId: null,
+        createdBy: userId,
+      },
+      { transaction: t },
+    );
+  };
+  const entry = transaction ? await work(transaction) : await inTransaction(Planting.sequelize!, work);
+  return entry;
+}
+
+export async function getLogEntry(gardenId: number, plantingId: number, entryId: number) {
+  const entry = await PlantingLog.findOne({
+    where: { id: entryId, plantingId, gardenId },
+    include: [{ model: User, as: 'author', attributes: ['id', 'name'], required: false }],
+  });
+  if (!entry) throw AppError.notFound('That log entry');
+  return entry;
+}
+
+export async function deleteLogEntry(gardenId: number, plantingId: number, entryId: number) {
+  const entry = await getLogEntry(gardenId, plantingId, entryId);
+  if (entry.photoId !== null) {
+    throw new AppError(409, 'photo_entry', 'This entry belongs to a photo: delete the photo instead.');
+  }
+  await entry.destroy();
+}

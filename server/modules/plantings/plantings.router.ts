@@ -1,0 +1,153 @@
+import { Router } from 'express';
+import { logEntryCreateSchema, logListQuerySchema, plantingCreateSchema, plantingListQuerySchema, plantingUpdateSchema } from '#shared/schemas/plantings';
+import type { AppConfig } from '../../config';
+import { parseBody, parseQuery } from '../../lib/validate';
+import { mountRoutes, requireSignedIn } from '../../lib/routes';
+import type { RouteTableEntry } from '../../lib/routes';
+import { AppError } from '../../errors';
+import { recordId } from '../records/params';
+import { pageOf } from '../records/paging';
+import { receiveOneFile } from '../records/upload';
+import { todayIn } from '../records/today';
+import { getGarden } from '../gardens/gardens.service';
+import { removePhotoFiles } from '../photos/photos.service';
+import { createPlanting, deletePlanting, getPlanting, listPlantings, updatePlanting } from './plantings.service';
+import { addLogEntry, deleteLogEntry, getLogEntry, listLog } from './planting-log.service';
+import { exportPlantingsCsv, importPlantingsCsv } from './planting-csv';
+import { presentPlanting } from './plantings.presenter';
+import { presentLogEntry } from './planting-log.presenter';
+
+const CSV_MAX_BYTES = 2 * 1024 * 1024;
+
+async function latitudeOf(gardenId: number) {
+  return (await getGarden(gardenId)).latitude ?? 0;
+}
+
+export function plantingsRouter(config: AppConfig, table: RouteTableEntry[]) {
+  const router = Router();
+  mountRoutes(
+    router,
+    '/api/gardens/:gardenId/plantings',
+    [
+      {
+        method: 'get',
+        path: '/',
+        access: 'viewer',
+        handler: async (req, res) => {
+          const gardenId = req.membership!.gardenId;
+          const q = parseQuery(plantingListQuerySchema, req.query);
+          const [{ rows, count }, latitude] = await Promise.all([listPlantings(gardenId, q), latitudeOf(gardenId)]);
+          res.json(pageOf(rows.map((p) => presentPlanting(p, latitude)), count, q));
+        },
+      },
+      {
+        method: 'post',
+        path: '/',
+        access: 'grower',
+        handler: async (req, res) => {
+          const user = requireSignedIn(req);
+          const gardenId = req.membership!.gardenId;
+          const planting = await createPlanting(gardenId, user.id, parseBody(plantingCreateSchema, req.body));
+          res.status(201).json({ planting: presentPlanting(planting, await latitudeOf(gardenId)) });
+        },
+      },
+      // Registered before '/:plantingId' so the literal paths are not read as ids.
+      {
+        method: 'get',
+        path: '/export.csv',
+        access: 'viewer',
+        handler: async (req, res) => {
+          const gardenId = req.membership!.gardenId;
+          const garden = await getGarden(gardenId);
+          const csv = await exportPlantingsCsv(gardenId);
+          res.set({
+            'Content-Type': 'text/csv; charset=utf-8',
+            'Content-Disposition': `attachment; filename="plantings-${todayIn(garden.timeZone)}.csv"`,
+            'X-Content-Type-Options': 'nosniff',
+          });
+          res.send(csv);
+        },
+      },
+      {
+        method: 'post',
+        path: '/import',
+        access: 'grower',
+        handler: async (req, res) => {
+          const user = requireSignedIn(req);
+          const file = await receiveOneFile(req, res, 'file', { maxBytes: CSV_MAX_BYTES, fields: 0 });
+          if (!file) throw new AppError(400, 'validation_failed', 'Please check the fields: file.', { file: 'Attach the plantings CSV file.' });
+          res.json({ report: await importPlantingsCsv(req.membership!.gardenId, user.id, file.buffer) });
+        },
+      },
+      {
+        method: 'get',
+        path: '/:plantingId',
+        access: 'viewer',
+        handler: async (req, res) => {
+          const gardenId = req.membership!.gardenId;
+          const planting = await getPlanting(gardenId, recordId(req.params, 'plantingId'));
+          res.json({ planting: presentPlanting(planting, await latitudeOf(gardenId)) });
+        },
+      },
+      {
+        method: 'patch',
+        path: '/:plantingId',
+        access: 'grower',
+        handler: async (req, res) => {
+          const gardenId = req.membership!.gardenId;
+          const plantingId = recordId(req.params, 'plantingId');
+          const planting = await updatePlanting(gardenId, plantingId, parseBody(plantingUpdateSchema, req.body));
+          res.json({ planting: presentPlanting(planting, await latitudeOf(gardenId)) });
+        },
+      },
+      {
+        method: 'delete',
+        path: '/:plantingId',
+        access: 'grower',
+        handler: async (req, res) => {
+          const files = await deletePlanting(req.membership!.gardenId, recordId(req.params, 'plantingId'));
+          await removePhotoFiles(config.uploads, files);
+          res.status(204).end();
+        },
+      },
+      {
+        method: 'get',
+        path: '/:plantingId/log',
+        access: 'viewer',
+        handler: async (req, res) => {
+          const plantingId = recordId(req.params, 'plantingId');
+          const q = parseQuery(logListQuerySchema, req.query);
+          const { rows, count } = await listLog(req.membership!.gardenId, plantingId, q);
+          res.json(pageOf(rows.map(presentLogEntry), count, q));
+        },
+      },
+      {
+        method: 'post',
+        path: '/:plantingId/log',
+        access: 'grower',
+        handler: async (req, res) => {
+          const user = requireSignedIn(req);
+          const gardenId = req.membership!.gardenId;
+          const plantingId = recordId(req.params, 'plantingId');
+          const entry = await addLogEntry(gardenId, plantingId, user.id, parseBody(logEntryCreateSchema, req.body));
+          const planting = await getPlanting(gardenId, plantingId);
+          res.status(201).json({
+            entry: presentLogEntry(await getLogEntry(gardenId, plantingId, entry.id)),
+            planting: presentPlanting(planting, await latitudeOf(gardenId)),
+          });
+        },
+      },
+      {
+        method: 'delete',
+        path: '/:plantingId/log/:entryId',
+        access: 'grower',
+        handler: async (req, res) => {
+          await deleteLogEntry(req.membership!.gardenId, recordId(req.params, 'plantingId'), recordId(req.params, 'entryId'));
+          res.status(204).end();
+        },
+      },
+    ],
+    table,
+  );
+  return router;
+}

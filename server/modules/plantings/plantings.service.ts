@@ -1,0 +1,143 @@
+import { Op, literal } from 'sequelize';
+import type { Includeable, Order, OrderItem, Transaction, WhereOptions } from 'sequelize';
+import type { z } from 'zod';
+import { plantingCreateSchema } from '#shared/schemas/plantings';
+import type { PlantingCreateInput, PlantingUpdateInput, plantingListQuerySchema } from '#shared/schemas/plantings';
+import { Bed, Planting, PlantingPhoto, SeedLot, Variety } from '../../db/models';
+import { AppError, validationError } from '../../errors';
+import { likeText, limitOffset } from '../records/paging';
+import { bedInGarden, seedLotInGarden, varietyInGarden } from '../records/scope';
+import { inTransaction } from '../records/transaction';
+import { uniqueOr409 } from '../records/unique';
+
+type PlantingListQuery = z.output<typeof plantingListQuerySchema>;
+
+export const duplicatePlanting = 'This garden already has a planting of that variety in that bed, by the same method, started that day.';
+
+export const plantingIncludes: Includeable[] = [
+  { model: Bed, as: 'bed', required: true },
+  { model: Variety, as: 'variety', required: true },
+  { model: SeedLot, as: 'seedLot', required: false },
+];
+
+const logCount = literal('(SELECT COUNT(*) FROM planting_logs AS l WHERE l.planting_id = `Planting`.`id`)');
+
+function orderFor(q: PlantingListQuery): Order {
+  const dir = q.order === 'desc' ? 'DESC' : 'ASC';
+  const byVariety = (field: string): OrderItem => [{ model: Variety, as: 'variety' }, field, dir];
+  const tail: OrderItem[] = [['startOn', dir], ['id', dir]];
+  switch (q.sort) {
+    case 'crop':
+      return [byVariety('cropKey'), byVariety('name'), ...tail];
+    case 'variety':
+      return [byVariety('name'), ...tail];
+    case 'bed':
+      return [[{ model: Bed, as: 'bed' }, 'name', dir], ...tail];
+    case 'status':
+      return [['status', dir], ...tail];
+    default:
+      // Undated (planned) plantings come last whichever way the dates run.
+      return [[literal('`Planting`.`start_on` IS NULL'), 'ASC'], ...tail];
+  }
+}
+
+export async function listPlantings(gardenId: number, q: PlantingListQuery) {
+  const and: WhereOptions<Planting>[] = [{ gardenId }];
+  if (q.status) and.push({ status: q.status });
+  if (q.bedId) and.push({ bedId: q.bedId });
+  if (q.varietyId) and.push({ varietyId: q.varietyId });
+  if (q.seedLotId) and.push({ seedLotId: q.seedLotId });
+  if (q.crop) and.push({ '$variety.crop_key$': q.crop } as WhereOptions<Planting>);
+  if (q.sownFrom) and.push({ startOn: { [Op.gte]: q.sownFrom } });
+  if (q.sownTo) and.push({ startOn: { [Op.lte]: q.sownTo } });
+  if (q.q) {
+    const like = { [Op.like]: likeText(q.q) };
+    and.push({ [Op.or]: [{ '$variety.name$': like }, { '$bed.name$': like }, { notes: like }] } as WhereOptions<Planting>);
+  }
+  const { rows, count } = await Planting.findAndCountAll({
+    where: { [Op.and]: and },
+    include: plantingIncludes,
+    attributes: { include: [[logCount, 'logCount']] },
+    order: orderFor(q),
+    distinct: true,
+    subQuery: false,
+    ...limitOffset(q),
+  });
+  return { rows, count };
+}
+
+export async function getPlanting(gardenId: number, plantingId: number, transaction?: Transaction) {
+  const planting = await Planting.findOne({
+    where: { id: plantingId, gardenId },
+    include: plantingIncludes,
+    attributes: { include: [[logCount, 'logCount']] },
+    transaction,
+  });
+  if (!planting) throw AppError.notFound('That planting');
+  return planting;
+}
+
+/** Bed, variety and seed lot must all be this garden's, and the lot must be seed of the variety. */
+async function checkReferences(gardenId: number, p: Pick<PlantingCreateInput, 'bedId' | 'varietyId' | 'seedLotId'>, transaction: Transaction) {
+  await bedInGarden(gardenId, p.bedId, transaction);
+  await varietyInGarden(gardenId, p.varietyId, transaction);
+  if (p.seedLotId !== null) {
+    const lot = await seedLotInGarden(gardenId, p.seedLotId, transaction);
+    if (lot.varietyId !== p.varietyId) {
+      throw new AppError(400, 'validation_failed', 'Please check the fields: seedLotId.', { seedLotId: 'This seed lot is seed of another variety.' });
+    }
+  }
+}
+
+export async function createPlanting(gardenId: number, userId: number, input: PlantingCreateInput) {
+  const id = await inTransaction(Planting.sequelize!, async (transaction) => {
+    await checkReferences(gardenId, input, transaction);
+    const planting = await uniqueOr409(() => Planting.create({ gardenId, createdBy: userId, ...input }, { transaction }), duplicatePlanting);
+    return planting.id;
+  });
+  return getPlanting(gardenId, id);
+}
+
+export function plantingFields(p: Planting): PlantingCreateInput {
+  return {
+    bedId: p.bedId,
+    varietyId: p.varietyId,
+    seedLotId: p.seedLotId,
+    method: p.method,
+    status: p.status,
+    quantity: p.quantity,
+    quantityUnit: p.quantityUnit,
+    sownOn: p.sownOn,
+    emergedOn: p.emergedOn,
+    thinnedOn: p.thinnedOn,
+    transplantedOn: p.transplantedOn,
+    firstHarvestOn: p.firstHarvestOn,
+    lastHarvestOn: p.lastHarvestOn,
+    boltedOn: p.boltedOn,
+    notes: p.notes,
+  };
+}
+
+export async function updatePlanting(gardenId: number, plantingId: number, input: PlantingUpdateInput) {
+  await inTransaction(Planting.sequelize!, async (transaction) => {
+    const planting = await Planting.findOne({ where: { id: plantingId, gardenId }, transaction, lock: transaction.LOCK.UPDATE });
+    if (!planting) throw AppError.notFound('That planting');
+    // The change must leave a whole, consistent planting (stage order, dates its status needs).
+    const merged = plantingCreateSchema.safeParse({ ...plantingFields(planting), ...input });
+    if (!merged.success) throw validationError(merged.error);
+    await checkReferences(gardenId, merged.data, transaction);
+    await uniqueOr409(() => planting.update(input, { transaction }), duplicatePlanting);
+  });
+  return getPlanting(gardenId, plantingId);
+}
+
+/** Returns the photo files to remove once the rows are gone. */
+export async function deletePlanting(gardenId: number, plantingId: number): Promise<string[]> {
+  return inTransaction(Planting.sequelize!, async (transaction) => {
+    const planting = await Planting.findOne({ where: { id: plantingId, gardenId }, transaction, lock: transaction.LOCK.UPDATE });
+    if (!planting) throw AppError.notFound('That planting');
+    const photos = await PlantingPhoto.findAll({ where: { plantingId }, attributes: ['storageName'], transaction });
+    await planting.destroy({ transaction });
+    return photos.map((p) => p.storageName);
+  });
+}

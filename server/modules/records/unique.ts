@@ -1,0 +1,12 @@
+import { UniqueConstraintError } from 'sequelize';
+import { AppError } from '../../errors';
+
+/** Turns a natural-key clash into a 409 the grower can act on. */
+export async function uniqueOr409<T>(work: () => Promise<T>, message: string, field?: string): Promise<T> {
+  try {
+    return await work();
+  } catch (err) {
+    if (err instanceof UniqueConstraintError) throw new AppError(409, 'conflict', message, field ? { [field]: message } : undefined);
+    throw err;
+  }
+}

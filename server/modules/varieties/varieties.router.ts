@@ -1,0 +1,79 @@
+import { Router } from 'express';
+import { varietyCreateSchema, varietyListQuerySchema, varietyUpdateSchema } from '#shared/schemas/varieties';
+import { parseBody, parseQuery } from '../../lib/validate';
+import { mountRoutes } from '../../lib/routes';
+import type { RouteTableEntry } from '../../lib/routes';
+import { recordId } from '../records/params';
+import { pageOf } from '../records/paging';
+import { getGarden } from '../gardens/gardens.service';
+import { effectiveCrops, effectiveValues, getCrop } from '../crops/crops.service';
+import { createVariety, deleteVariety, getVariety, listVarieties, updateVariety } from './varieties.service';
+import { presentVariety } from './varieties.presenter';
+import { varietyTarget } from './variety-target';
+
+export function varietiesRouter(table: RouteTableEntry[]) {
+  const router = Router();
+  const detail = async (gardenId: number, varietyId: number) => {
+    const variety = await getVariety(gardenId, varietyId);
+    const crop = effectiveValues(await getCrop(gardenId, variety.cropKey));
+    const target = await varietyTarget(await getGarden(gardenId), variety, crop);
+    return presentVariety(variety, crop.season, target);
+  };
+  mountRoutes(
+    router,
+    '/api/gardens/:gardenId/varieties',
+    [
+      {
+        method: 'get',
+        path: '/',
+        access: 'viewer',
+        handler: async (req, res) => {
+          const gardenId = req.membership!.gardenId;
+          const q = parseQuery(varietyListQuerySchema, req.query);
+          const [{ rows, count }, crops] = await Promise.all([listVarieties(gardenId, q), effectiveCrops(gardenId)]);
+          res.json(pageOf(rows.map((v) => presentVariety(v, crops.get(v.cropKey)?.season ?? 'cool')), count, q));
+        },
+      },
+      {
+        method: 'post',
+        path: '/',
+        access: 'grower',
+        handler: async (req, res) => {
+          const gardenId = req.membership!.gardenId;
+          const variety = await createVariety(gardenId, parseBody(varietyCreateSchema, req.body));
+          res.status(201).json({ variety: await detail(gardenId, variety.id) });
+        },
+      },
+      {
+        method: 'get',
+        path: '/:varietyId',
+        access: 'viewer',
+        handler: async (req, res) => {
+          res.json({ variety: await detail(req.membership!.gardenId, recordId(req.params, 'varietyId')) });
+        },
+      },
+      {
+        method: 'patch',
+        path: '/:varietyId',
+        access: 'grower',
+        handler: async (req, res) => {
+          const gardenId = req.membership!.gardenId;
+          const varietyId = recordId(req.params, 'varietyId');
+          await updateVariety(gardenId, varietyId, parseBody(varietyUpdateSchema, req.body));
+          res.json({ variety: await detail(gardenId, varietyId) });
+        },
+      },
+      {
+        method: 'delete',
+        path: '/:varietyId',
+        access: 'grower',
+        handler: async (req, res) => {
+          await deleteVariety(req.membership!.gardenId, recordId(req.params, 'varietyId'));
+          res.status(204).end();
+        },
+      },
+    ],
+    table,
+  );
+  return router;
+}

@@ -1,0 +1,73 @@
+import { Op } from 'sequelize';
+import type { WhereOptions } from 'sequelize';
+import type { z } from 'zod';
+import type { VarietyCreateInput, VarietyUpdateInput, varietyListQuerySchema } from '#shared/schemas/varieties';
+import { varietyCreateSchema } from '#shared/schemas/varieties';
+import { Planting, SeedLot, Variety } from '../../db/models';
+import { AppError, validationError } from '../../errors';
+import { likeText, limitOffset } from '../records/paging';
+import { uniqueOr409 } from '../records/unique';
+
+type VarietyListQuery = z.output<typeof varietyListQuerySchema>;
+
+const duplicate = 'This garden already has a variety of that crop with that name.';
+
+export async function listVarieties(gardenId: number, q: VarietyListQuery) {
+  const where: WhereOptions<Variety> = { gardenId };
+  const and: WhereOptions<Variety>[] = [];
+  if (q.crop) and.push({ cropKey: q.crop });
+  if (q.q) and.push({ name: { [Op.like]: likeText(q.q) } });
+  if (q.trait) and.push({ traits: { [Op.like]: likeText(q.trait) } as never });
+  if (and.length) Object.assign(where, { [Op.and]: and });
+  return Variety.findAndCountAll({ where, order: [['cropKey', 'ASC'], ['name', 'ASC']], ...limitOffset(q) });
+}
+
+export async function getVariety(gardenId: number, varietyId: number) {
+  const variety = await Variety.findOne({ where: { id: varietyId, gardenId } });
+  if (!variety) throw AppError.notFound('That variety');
+  return variety;
+}
+
+export async function createVariety(gardenId: number, input: VarietyCreateInput) {
+  return uniqueOr409(() => Variety.create({ gardenId, ...input }), duplicate, 'name');
+}
+
+export async function updateVariety(gardenId: number, varietyId: number, input: VarietyUpdateInput) {
+  const variety = await getVariety(gardenId, varietyId);
+  // A partial change must still leave a consistent variety (e.g. traits, emergence range).
+  const merged = { ...pickFields(variety), ...input };
+  const check = varietyCreateSchema.safeParse(merged);
+  if (!check.success) throw validationError(check.error);
+  return uniqueOr409(() => variety.update(input), duplicate, 'name');
+}
+
+function pickFields(v: Variety): VarietyCreateInput {
+  return {
+    cropKey: v.cropKey,
+    name: v.name,
+    dtmDays: v.dtmDays,
+    dtmFrom: v.dtmFrom,
+    emergenceDaysMin: v.emergenceDaysMin,
+    emergenceDaysMax: v.emergenceDaysMax,
+    boltTolerance: v.boltTolerance,
+    heatTolerance: v.heatTolerance,
+    traits: v.traits,
+    containerFriendly: v.containerFriendly,
+    sunHours: v.sunHours,
+    waterCmPerWeek: v.waterCmPerWeek,
+    sowDepthCm: v.sowDepthCm,
+    spacingCm: v.spacingCm,
+    thinSpacingCm: v.thinSpacingCm,
+    gddTargetOverrideC: v.gddTargetOverrideC,
+    notes: v.notes,
+  };
+}
+
+export async function deleteVariety(gardenId: number, varietyId: number) {
+  const variety = await getVariety(gardenId, varietyId);
+  const [lots, plantings] = await Promise.all([SeedLot.count({ where: { varietyId } }), Planting.count({ where: { varietyId } })]);
+  if (lots || plantings) {
+    throw new AppError(409, 'in_use', `This variety has ${plantings} planting(s) and ${lots} seed lot(s) on record; delete those first.`);
+  }
+  await variety.destroy();
+}

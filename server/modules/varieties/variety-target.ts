@@ -1,0 +1,83 @@
+/**
+ * The degree-day target of a variety: the grower's override, else the thermal engine's
+ * conversion of the packet's days to maturity over this garden's own past weather.
+ */
+import { QueryTypes } from 'sequelize';
+import { degreeDayTargetFromDtm } from '#shared/thermal/index';
+import type { DailyTemp, DegreeDayMethod } from '#shared/thermal/index';
+import type { GddTargetDto } from '#shared/schemas/varieties';
+import { Planting } from '../../db/models';
+import type { Garden, Variety } from '../../db/models';
+import type { effectiveValues } from '../crops/crops.service';
+
+type Effective = ReturnType<typeof effectiveValues>;
+
+/**
+ * Typical start windows when the garden has no plantings of the variety yet (common practice,
+ * no source): cool-season crops in spring, warm-season crops after the last frost, mirrored
+ * six months for the southern hemisphere.
+ */
+const DEFAULT_WINDOWS = {
+  cool: { N: { from: '03-15', to: '05-15' }, S: { from: '09-15', to: '11-15' } },
+  warm: { N: { from: '05-15', to: '06-30' }, S: { from: '11-15', to: '12-31' } },
+} as const;
+
+async function gardenHistory(gardenId: number): Promise<DailyTemp[]> {
+  const rows = await Planting.sequelize!.query<{ date: string; tmax: number; tmin: number; source: string }>(
+    `SELECT d.date AS date, d.tmax_c AS tmax, d.tmin_c AS tmin, d.source AS source
+       FROM weather_days d JOIN gardens g ON g.weather_cell_id = d.cell_id
+      WHERE g.id = ? AND d.source <> 'forecast' ORDER BY d.date`,
+    { replacements: [gardenId], type: QueryTypes.SELECT },
+  );
+  return rows.map((r) => ({ date: String(r.date).slice(0, 10), tmax: Number(r.tmax), tmin: Number(r.tmin), source: r.source === 'filled' ? 'filled' : 'observed' }));
+}
+
+/** The span of month-days this variety has been started on in this garden, if any. */
+async function ownWindow(variety: Variety): Promise<{ from: string; to: string } | null> {
+  const starts = (await Planting.findAll({ where: { varietyId: variety.id }, attributes: ['startOn'], raw: true }))
+    .map((p) => p.startOn)
+    .filter((d): d is string => !!d)
+    .map((d) => d.slice(5))
+    .sort();
+  if (!starts.length) return null;
+  return { from: starts[0], to: starts[starts.length - 1] };
+}
+
+const none = (explanation: string): GddTargetDto => ({ valueC: null, basis: 'none', countsFrom: null, explanation, p10C: null, p90C: null });
+
+export async function varietyTarget(garden: Garden, variety: Variety, crop: Effective): Promise<GddTargetDto> {
+  const countsFrom = variety.dtmFrom === 'transplant' ? 'transplant' : 'sowing';
+  if (variety.gddTargetOverrideC !== null) {
+    return { valueC: variety.gddTargetOverrideC, basis: 'override', countsFrom, explanation: 'Set by a grower for this variety.', p10C: null, p90C: null };
+  }
+  if (variety.dtmDays === null) return none('Add the packet’s days to maturity to derive a degree-day target.');
+  const history = await gardenHistory(garden.id);
+  if (!history.length) return none('No past weather for this garden yet: the target is derived once its history has been fetched.');
+  const hemisphere = (garden.latitude ?? 0) < 0 ? 'S' : 'N';
+  const own = await ownWindow(variety);
+  const window = own ?? DEFAULT_WINDOWS[crop.season][hemisphere];
+  const method: DegreeDayMethod = { base: crop.baseC!, method: crop.method, cutoff: crop.cutoff, ...(crop.upperC !== null ? { upper: crop.upperC } : {}) };
+  const emergence = variety.emergenceDaysMax ?? variety.emergenceDaysMin ?? undefined;
+  try {
+    const t = degreeDayTargetFromDtm({
+      daysToMaturity: variety.dtmDays,
+      countsFrom: variety.dtmFrom,
+      daysToEmergence: emergence,
+      history,
+      method,
+      window,
+    });
+    const from = own ? 'this variety’s own start dates' : `the usual ${crop.season}-season start window`;
+    return {
+      valueC: t.target,
+      basis: 'derived',
+      countsFrom: t.countsFrom,
+      explanation: `${t.days} days from ${t.countsFrom === 'transplant' ? 'transplanting' : 'sowing'}, measured in this garden’s past weather over ${from} (${window.from} to ${window.to}, ${t.samples} samples).`,
+      p10C: t.p10,
+      p90C: t.p90,
+    };
+  } catch (err) {
+    if (err instanceof RangeError) return none(`The target could not be derived: ${err.message}.`);
+    throw err;
+  }
+}

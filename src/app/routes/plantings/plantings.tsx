@@ -1,0 +1,137 @@
+import { useState } from 'react';
+import { useNavigate } from 'react-router-dom';
+import { Download, Plus, X } from 'lucide-react';
+import { CROP_LIBRARY } from '#shared/crops/library';
+import { PLANTING_STATUSES, STATUS_WORDS } from '#shared/schemas/plantings';
+import type { PlantingListQuery, PlantingStatus } from '#shared/schemas/plantings';
+import { Button } from '@/components/ui/button';
+import { Loading } from '@/components/ui/loading';
+import { Notice } from '@/components/ui/notice';
+import { useCurrentGarden } from '@/app/routes/gardens/garden-layout';
+import { useBeds } from '@/features/beds/api/get-beds';
+import { useVarieties } from '@/features/varieties/api/get-varieties';
+import { useSeedLots } from '@/features/seed-lots/api/get-seed-lots';
+import { usePlantings } from '@/features/plantings/api/get-plantings';
+import { PlantingForm } from '@/features/plantings/components/planting-form';
+import { PlantingsTable } from '@/features/plantings/components/plantings-table';
+import type { SortState } from '@/features/plantings/components/plantings-table';
+import { CONTROL } from '@/features/plantings/components/field-styles';
+import { todayIn } from '@/features/plantings/components/today';
+
+const PAGE_SIZE = 25;
+
+function NewPlanting({ gardenId, today, onClose }: { gardenId: number; today: string; onClose: () => void }) {
+  const navigate = useNavigate();
+  const beds = useBeds(gardenId);
+  const varieties = useVarieties(gardenId);
+  const lots = useSeedLots(gardenId);
+  if (beds.isPending || varieties.isPending || lots.isPending) return <Loading label="Loading beds and varieties…" />;
+  if (beds.isError || varieties.isError || lots.isError) return <Notice tone="error">Beds, varieties or seed lots could not be loaded.</Notice>;
+  return (
+    <section aria-labelledby="new-planting" className="rounded-lg border border-line bg-paper-raised p-4">
+      <div className="mb-3 flex items-center justify-between">
+        <h2 id="new-planting" className="text-lg font-bold">
+          New planting
+        </h2>
+        <Button variant="quiet" onClick={onClose}>
+          <X className="size-5" aria-hidden="true" /> Close
+        </Button>
+      </div>
+      <PlantingForm
+        gardenId={gardenId}
+        today={today}
+        choices={{
+          beds: beds.data.items,
+          varieties: varieties.data.items.map((v) => ({ id: v.id, name: v.name, cropName: v.crop.name })),
+          seedLots: lots.data.items.map((l) => ({ id: l.id, varietyId: l.variety.id, label: [l.lotNumber && `Lot ${l.lotNumber}`, l.packedForYear && `packed for ${l.packedForYear}`].filter(Boolean).join(', ') || 'Unlabelled lot' })),
+        }}
+        onSaved={(p) => navigate(`/g/${gardenId}/plantings/${p.id}`)}
+      />
+    </section>
+  );
+}
+
+export function PlantingsPage() {
+  const garden = useCurrentGarden();
+  const canEdit = garden.role !== 'viewer';
+  const today = todayIn(garden.timeZone);
+  const [adding, setAdding] = useState(false);
+  const [status, setStatus] = useState<PlantingStatus | ''>('');
+  const [crop, setCrop] = useState('');
+  const [q, setQ] = useState('');
+  const [sort, setSort] = useState<SortState>({ sort: 'sown', order: 'desc' });
+  const [page, setPage] = useState(1);
+  const query: PlantingListQuery = { status: status || undefined, crop: crop || undefined, q: q || undefined, ...sort, page, pageSize: PAGE_SIZE };
+  const plantings = usePlantings(garden.id, query);
+  const pages = plantings.data ? Math.max(1, Math.ceil(plantings.data.total / PAGE_SIZE)) : 1;
+
+  return (
+    <div className="flex flex-col gap-4">
+      <title>{`Plantings · ${garden.name} · Heatclock`}</title>
+      <div className="flex flex-wrap items-center justify-between gap-3">
+        <h1 className="text-2xl font-bold sm:text-3xl">Plantings</h1>
+        <div className="flex flex-wrap gap-2">
+          <a href={`/api/gardens/${garden.id}/plantings/export.csv`} className="inline-flex min-h-11 items-center gap-2 rounded-md border border-line bg-paper-raised px-4 font-semibold" download>
+            <Download className="size-5" aria-hidden="true" /> Export CSV
+          </a>
+          {canEdit && !adding && (
+            <Button onClick={() => setAdding(true)}>
+              <Plus className="size-5" aria-hidden="true" /> New planting
+            </Button>
+          )}
+        </div>
+      </div>
+      {!canEdit && (
+        <Notice tone="info" title="Read only">
+          Viewers see every planting but cannot change them.
+        </Notice>
+      )}
+      {adding && <NewPlanting gardenId={garden.id} today={today} onClose={() => setAdding(false)} />}
+      <form role="search" className="grid gap-3 sm:grid-cols-3" onSubmit={(e) => e.preventDefault()}>
+        <label className="flex flex-col gap-1">
+          <span className="font-semibold">Status</span>
+          <select className={CONTROL} value={status} onChange={(e) => { setStatus(e.target.value as PlantingStatus | ''); setPage(1); }}>
+            <option value="">All statuses</option>
+            {PLANTING_STATUSES.map((s) => (
+              <option key={s} value={s}>{STATUS_WORDS[s]}</option>
+            ))}
+          </select>
+        </label>
+        <label className="flex flex-col gap-1">
+          <span className="font-semibold">Crop</span>
+          <select className={CONTROL} value={crop} onChange={(e) => { setCrop(e.target.value); setPage(1); }}>
+            <option value="">All crops</option>
+            {CROP_LIBRARY.map((c) => (
+              <option key={c.key} value={c.key}>{c.name}</option>
+            ))}
+          </select>
+        </label>
+        <label className="flex flex-col gap-1">
+          <span className="font-semibold">Search</span>
+          <input type="search" className={CONTROL} value={q} placeholder="Variety, bed or note" onChange={(e) => { setQ(e.target.value); setPage(1); }} />
+        </label>
+      </form>
+      {plantings.isPending && <Loading label="Loading plantings…" />}
+      {plantings.isError && <Notice tone="error" live="alert">{plantings.error.message}</Notice>}
+      {plantings.data && (
+        <>
+          <p className="text-sm text-loam-soft" role="status">
+            {plantings.data.total} planting{plantings.data.total === 1 ? '' : 's'}
+            {pages > 1 && ` · page ${page} of ${pages}`}
+          </p>
+          {plantings.data.items.length ? (
+            <PlantingsTable gardenId={garden.id} plantings={plantings.data.items} sort={sort} onSort={(s) => { setSort(s); setPage(1); }} />
+          ) : (
+            <p>No plantings match.</p>
+          )}
+          {pages > 1 && (
+            <nav aria-label="Pages" className="flex gap-2">
+              <Button variant="quiet" disabled={page <= 1} onClick={() => setPage(page - 1)}>Previous</Button>
+              <Button variant="quiet" disabled={page >= pages} onClick={() => setPage(page + 1)}>Next</Button>
+            </nav>
+          )}
+        </>
+      )}
+    </div>
+  );
+}

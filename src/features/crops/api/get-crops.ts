@@ -1,0 +1,18 @@
+import { queryOptions, useQuery } from '@tanstack/react-query';
+import type { CropDto } from '#shared/schemas/crops';
+import { api } from '@/lib/api-client';
+
+export const cropKeys = {
+  list: (gardenId: number) => ['crops', gardenId, 'list'] as const,
+};
+
+export async function getCrops(gardenId: number, signal?: AbortSignal): Promise<CropDto[]> {
+  return (await api.get<{ crops: CropDto[] }>(`/api/gardens/${gardenId}/crops`, signal)).crops;
+}
+
+export const cropsQueryOptions = (gardenId: number) =>
+  queryOptions({ queryKey: cropKeys.list(gardenId), queryFn: ({ signal }) => getCrops(gardenId, signal), staleTime: 5 * 60_000 });
+
+export function useCrops(gardenId: number) {
+  return useQuery(cropsQueryOptions(gardenId));
+}

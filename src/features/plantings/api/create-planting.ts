@@ -1,0 +1,16 @@
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+import type { PlantingCreateInput, PlantingDto } from '#shared/schemas/plantings';
+import { api } from '@/lib/api-client';
+import { plantingKeys } from '@/features/plantings/api/planting-keys';
+
+export async function createPlanting(gardenId: number, input: PlantingCreateInput): Promise<PlantingDto> {
+  return (await api.post<{ planting: PlantingDto }>(`/api/gardens/${gardenId}/plantings`, input)).planting;
+}
+
+export function useCreatePlanting(gardenId: number) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (input: PlantingCreateInput) => createPlanting(gardenId, input),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: plantingKeys.all(gardenId) }),
+  });
+}

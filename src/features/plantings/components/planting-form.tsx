@@ -1,0 +1,183 @@
+import { useId } from 'react';
+import { useForm } from 'react-hook-form';
+import { zodResolver } from '@hookform/resolvers/zod';
+import type { z } from 'zod';
+import {
+  METHOD_WORDS,
+  PLANTING_METHODS,
+  PLANTING_QUANTITY_UNITS,
+  PLANTING_STATUSES,
+  PLANTING_UNIT_WORDS,
+  STAGE_FIELDS,
+  STAGE_WORDS,
+  STATUS_WORDS,
+  plantingCreateSchema,
+} from '#shared/schemas/plantings';
+import type { PlantingCreateInput, PlantingDto } from '#shared/schemas/plantings';
+import { applyServerFieldErrors } from '@/lib/form-errors';
+import { Button } from '@/components/ui/button';
+import { Notice } from '@/components/ui/notice';
+import { FieldError, TextField } from '@/components/ui/text-field';
+import { useCreatePlanting } from '@/features/plantings/api/create-planting';
+import { CONTROL } from '@/features/plantings/components/field-styles';
+
+export interface PlantingChoices {
+  beds: { id: number; name: string }[];
+  varieties: { id: number; name: string; cropName: string }[];
+  seedLots: { id: number; varietyId: number; label: string }[];
+}
+
+type FormInput = z.input<typeof plantingCreateSchema>;
+
+const FIELDS = ['bedId', 'varietyId', 'seedLotId', 'method', 'status', 'quantity', 'quantityUnit', ...STAGE_FIELDS, 'notes'] as const;
+
+// Inputs hold text; the schema wants numbers, dates or null. Blank is "not set", never zero.
+const idOrUndefined = (v: unknown) => (v === '' || v === undefined ? undefined : Number(v));
+const idOrNull = (v: unknown) => (v === '' || v === undefined ? null : Number(v));
+const numberOrNull = (v: unknown) => (typeof v === 'string' && v.trim() === '' ? null : Number(v));
+const dateOrNull = (v: unknown) => (v === '' || v === undefined ? null : v);
+
+function Select({ label, error, children, ...props }: React.SelectHTMLAttributes<HTMLSelectElement> & { label: string; error?: string }) {
+  const id = useId();
+  return (
+    <div className="flex flex-col gap-1">
+      <label htmlFor={id} className="font-semibold">
+        {label}
+      </label>
+      <select id={id} aria-invalid={error ? true : undefined} aria-describedby={error ? `${id}-e` : undefined} className={CONTROL} {...props}>
+        {children}
+      </select>
+      {error && <FieldError id={`${id}-e`}>{error}</FieldError>}
+    </div>
+  );
+}
+
+export function PlantingForm({
+  gardenId,
+  choices,
+  today,
+  onSaved,
+}: {
+  gardenId: number;
+  choices: PlantingChoices;
+  today: string;
+  onSaved: (planting: PlantingDto) => void;
+}) {
+  const create = useCreatePlanting(gardenId);
+  const form = useForm<FormInput, unknown, PlantingCreateInput>({
+    resolver: zodResolver(plantingCreateSchema),
+    defaultValues: {
+      seedLotId: null,
+      method: 'direct-sow',
+      status: 'growing',
+      quantity: null,
+      quantityUnit: 'plants',
+      sownOn: today,
+      emergedOn: null,
+      thinnedOn: null,
+      transplantedOn: null,
+      firstHarvestOn: null,
+      lastHarvestOn: null,
+      boltedOn: null,
+      notes: '',
+    },
+  });
+  const { register, handleSubmit, formState, setError, watch } = form;
+  const errors = formState.errors;
+  const varietyId = watch('varietyId');
+  const lots = choices.seedLots.filter((l) => l.varietyId === Number(varietyId));
+
+  const onSubmit = handleSubmit((values) =>
+    create.mutateAsync(values).then(onSaved, (error: unknown) => {
+      applyServerFieldErrors(error, setError, FIELDS);
+    }),
+  );
+
+  return (
+    <form onSubmit={onSubmit} noValidate className="flex flex-col gap-4" aria-label="New planting">
+      {create.isError && !Object.keys(errors).length && (
+        <Notice tone="error" title="The planting was not saved" live="alert">
+          {create.error.message}
+        </Notice>
+      )}
+      <div className="grid gap-4 sm:grid-cols-2">
+        <Select label="Bed" error={errors.bedId?.message} {...register('bedId', { setValueAs: idOrUndefined })} defaultValue="">
+          <option value="">Choose a bed…</option>
+          {choices.beds.map((b) => (
+            <option key={b.id} value={b.id}>
+              {b.name}
+            </option>
+          ))}
+        </Select>
+        <Select label="Variety" error={errors.varietyId?.message} {...register('varietyId', { setValueAs: idOrUndefined })} defaultValue="">
+          <option value="">Choose a variety…</option>
+          {choices.varieties.map((v) => (
+            <option key={v.id} value={v.id}>
+              {v.cropName}: {v.name}
+            </option>
+          ))}
+        </Select>
+        <Select label="Seed lot (optional)" error={errors.seedLotId?.message} {...register('seedLotId', { setValueAs: idOrNull })}>
+          <option value="">{lots.length ? 'No lot recorded' : 'No lots of this variety'}</option>
+          {lots.map((l) => (
+            <option key={l.id} value={l.id}>
+              {l.label}
+            </option>
+          ))}
+        </Select>
+        <Select label="Method" error={errors.method?.message} {...register('method')}>
+          {PLANTING_METHODS.map((m) => (
+            <option key={m} value={m}>
+              {METHOD_WORDS[m]}
+            </option>
+          ))}
+        </Select>
+        <Select label="Status" error={errors.status?.message} {...register('status')}>
+          {PLANTING_STATUSES.map((s) => (
+            <option key={s} value={s}>
+              {STATUS_WORDS[s]}
+            </option>
+          ))}
+        </Select>
+        <div className="grid grid-cols-[1fr_auto] items-end gap-2">
+          <TextField label="Quantity" inputMode="decimal" error={errors.quantity?.message} {...register('quantity', { setValueAs: numberOrNull })} />
+          <select aria-label="Quantity unit" className={`${CONTROL} w-auto`} {...register('quantityUnit')}>
+            {PLANTING_QUANTITY_UNITS.map((u) => (
+              <option key={u} value={u}>
+                {PLANTING_UNIT_WORDS[u]}
+              </option>
+            ))}
+          </select>
+        </div>
+        <TextField label="Sown on" type="date" error={errors.sownOn?.message} {...register('sownOn', { setValueAs: dateOrNull })} />
+        <TextField
+          label="Transplanted on"
+          type="date"
+          hint="For transplants and indoor starts."
+          error={errors.transplantedOn?.message}
+          {...register('transplantedOn', { setValueAs: dateOrNull })}
+        />
+      </div>
+      <details className="rounded-md border border-line px-4 py-2">
+        <summary className="cursor-pointer py-1 font-semibold">More dates (emerged, harvested, bolted…)</summary>
+        <div className="grid gap-4 py-3 sm:grid-cols-2">
+          {STAGE_FIELDS.filter((f) => f !== 'sownOn' && f !== 'transplantedOn').map((f) => (
+            <TextField key={f} label={STAGE_WORDS[f]} type="date" error={errors[f]?.message} {...register(f, { setValueAs: dateOrNull })} />
+          ))}
+        </div>
+      </details>
+      <div className="flex flex-col gap-1">
+        <label htmlFor="planting-notes" className="font-semibold">
+          Notes
+        </label>
+        <textarea id="planting-notes" rows={2} className={CONTROL} {...register('notes')} />
+        {errors.notes?.message && <FieldError>{errors.notes.message}</FieldError>}
+      </div>
+      <div>
+        <Button type="submit" disabled={formState.isSubmitting}>
+          {formState.isSubmitting ? 'Saving…' : 'Save planting'}
+        </Button>
+      </div>
+    </form>
+  );
+}

@@ -1,0 +1,100 @@
+import { useState } from 'react';
+import { CircleCheck, CircleHelp, Hourglass, TriangleAlert, FlaskConical } from 'lucide-react';
+import type { SeedLotDto, ViabilityStatus } from '#shared/schemas/seed-lots';
+import { Button } from '@/components/ui/button';
+import { FieldError } from '@/components/ui/text-field';
+import { useAddGerminationTest } from '@/features/seed-lots/api/add-germination-test';
+import { useSeedsToSow } from '@/features/seed-lots/api/get-seeds-to-sow';
+
+const VIABILITY: Record<ViabilityStatus, { word: string; icon: typeof CircleCheck }> = {
+  tested: { word: 'Tested', icon: FlaskConical },
+  fresh: { word: 'Fresh', icon: CircleCheck },
+  ageing: { word: 'Ageing', icon: Hourglass },
+  'past-seed-life': { word: 'Past seed life', icon: TriangleAlert },
+  unknown: { word: 'Unknown age', icon: CircleHelp },
+};
+const INPUT = 'min-h-11 w-full rounded-md border border-line bg-paper px-3';
+
+function GerminationTestForm({ gardenId, lotId, today }: { gardenId: number; lotId: number; today: string }) {
+  const add = useAddGerminationTest(gardenId, lotId);
+  const [testedOn, setTestedOn] = useState(today);
+  const [tested, setTested] = useState('20');
+  const [germinated, setGerminated] = useState('');
+  const fields = (add.error as { fields?: Record<string, string> } | null)?.fields ?? {};
+  return (
+    <form
+      className="grid grid-cols-3 items-end gap-2"
+      aria-label="Record a germination test"
+      onSubmit={(e) => {
+        e.preventDefault();
+        add.mutate({ testedOn, seedsTested: Number(tested), germinated: Number(germinated) }, { onSuccess: () => setGerminated('') });
+      }}
+    >
+      <label className="flex flex-col gap-1 text-sm"><span className="font-semibold">Tested on</span><input type="date" className={INPUT} value={testedOn} onChange={(e) => setTestedOn(e.target.value)} /></label>
+      <label className="flex flex-col gap-1 text-sm"><span className="font-semibold">Seeds tested</span><input inputMode="numeric" className={INPUT} value={tested} onChange={(e) => setTested(e.target.value)} /></label>
+      <label className="flex flex-col gap-1 text-sm"><span className="font-semibold">Germinated</span><input inputMode="numeric" className={INPUT} value={germinated} onChange={(e) => setGerminated(e.target.value)} /></label>
+      <div className="col-span-3 flex flex-wrap items-center gap-2">
+        <Button type="submit" variant="quiet" disabled={add.isPending || germinated === ''}>Save test</Button>
+        {Object.values(fields).map((m) => <FieldError key={m}>{m}</FieldError>)}
+        {add.isError && !Object.keys(fields).length && <FieldError>{add.error.message}</FieldError>}
+      </div>
+    </form>
+  );
+}
+
+function SeedsToSow({ gardenId, lot }: { gardenId: number; lot: SeedLotDto }) {
+  const [plants, setPlants] = useState('100');
+  const [emergence, setEmergence] = useState('80');
+  const p = Number(plants);
+  const f = Number(emergence) / 100;
+  const valid = Number.isInteger(p) && p >= 1 && f > 0 && f <= 1;
+  const result = useSeedsToSow(gardenId, lot.id, p, f, valid && lot.latestTest !== null);
+  if (!lot.latestTest) return <p className="text-sm text-loam-soft">Record a germination test to work out how many seeds to sow.</p>;
+  return (
+    <div className="grid grid-cols-2 items-end gap-2 text-sm">
+      <label className="flex flex-col gap-1"><span className="font-semibold">Plants wanted</span><input inputMode="numeric" className={INPUT} value={plants} onChange={(e) => setPlants(e.target.value)} /></label>
+      <label className="flex flex-col gap-1"><span className="font-semibold">Field emergence, %</span><input inputMode="numeric" className={INPUT} value={emergence} onChange={(e) => setEmergence(e.target.value)} /></label>
+      <p className="col-span-2" role="status">
+        {!valid ? 'Enter a whole number of plants and an emergence from 1 to 100 %.' : result.data ? (
+          <>Sow <strong>{result.data.seeds} seeds</strong> ({result.data.germinationPercent.toFixed(0)} % germination in the test of {result.data.basedOn.testedOn}, {emergence} % field emergence).</>
+        ) : result.isError ? result.error.message : 'Working it out…'}
+      </p>
+    </div>
+  );
+}
+
+export function SeedLotCard({ gardenId, lot, canEdit, today }: { gardenId: number; lot: SeedLotDto; canEdit: boolean; today: string }) {
+  const v = VIABILITY[lot.viability.status];
+  const Icon = v.icon;
+  return (
+    <article className="flex flex-col gap-3 rounded-lg border border-line bg-paper-raised p-4">
+      <header>
+        <h2 className="text-lg font-bold">{lot.variety.cropName}: {lot.variety.name}</h2>
+        <p className="text-sm text-loam-soft">
+          {[lot.lotNumber && `Lot ${lot.lotNumber}`, lot.supplier, lot.packedForYear && `packed for ${lot.packedForYear}`].filter(Boolean).join(' · ') || 'Unlabelled lot'}
+        </p>
+      </header>
+      <p className="text-sm">
+        Quantity: {lot.quantity === null ? '—' : `${lot.quantity} ${lot.quantityUnit === 'grams' ? 'g' : 'seeds'}`}
+        {lot.latestTest && ` · Last test: ${Math.round(lot.latestTest.percent)} % (${lot.latestTest.germinated} of ${lot.latestTest.seedsTested}) on ${lot.latestTest.testedOn}`}
+      </p>
+      <p className="flex gap-2 rounded-md bg-paper-sunk px-3 py-2 text-sm">
+        <Icon className="size-4 shrink-0" aria-hidden="true" />
+        <span><span className="font-semibold">{v.word}:</span> {lot.viability.message}</span>
+      </p>
+      {lot.variety.traits.includes('treated') && (
+        <p className="flex gap-2 rounded-md border-l-4 border-ember bg-ember-tint px-3 py-2 text-sm">
+          <TriangleAlert className="size-4 shrink-0" aria-hidden="true" />
+          <span><span className="font-semibold">Caution:</span> treated seed. Wear gloves, keep it from children, animals and feed, and follow the packet label.</span>
+        </p>
+      )}
+      <details>
+        <summary className="min-h-11 cursor-pointer py-2 font-semibold">Seeds to sow{canEdit ? ' and germination tests' : ''}</summary>
+        <div className="flex flex-col gap-3">
+          <SeedsToSow gardenId={gardenId} lot={lot} />
+          {canEdit && <GerminationTestForm gardenId={gardenId} lotId={lot.id} today={today} />}
+        </div>
+      </details>
+    </article>
+  );
+}

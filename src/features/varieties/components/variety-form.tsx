@@ -1,0 +1,87 @@
+import { useForm } from 'react-hook-form';
+import { zodResolver } from '@hookform/resolvers/zod';
+import type { z } from 'zod';
+import { CROP_LIBRARY } from '#shared/crops/library';
+import { DTM_FROM, DTM_FROM_WORDS, RATING_WORDS, TRAIT_WORDS, VARIETY_TRAITS, varietyCreateSchema } from '#shared/schemas/varieties';
+import type { VarietyCreateInput } from '#shared/schemas/varieties';
+import { applyServerFieldErrors } from '@/lib/form-errors';
+import { Button } from '@/components/ui/button';
+import { Notice } from '@/components/ui/notice';
+import { FieldError, TextField } from '@/components/ui/text-field';
+import { useCreateVariety } from '@/features/varieties/api/create-variety';
+
+type FormInput = z.input<typeof varietyCreateSchema>;
+const numberOrNull = (v: unknown) => (v === '' || v === undefined || v === null ? null : Number(v));
+const CONTROL = 'min-h-11 w-full rounded-md border border-line bg-paper-raised px-3 py-2';
+const FIELDS = ['cropKey', 'name', 'dtmDays', 'dtmFrom', 'emergenceDaysMin', 'emergenceDaysMax', 'boltTolerance', 'heatTolerance', 'traits', 'sunHours', 'waterCmPerWeek', 'sowDepthCm', 'spacingCm', 'thinSpacingCm', 'notes'] as const;
+
+export function VarietyForm({ gardenId, onSaved }: { gardenId: number; onSaved: () => void }) {
+  const create = useCreateVariety(gardenId);
+  const { register, handleSubmit, formState, setError } = useForm<FormInput, unknown, VarietyCreateInput>({
+    resolver: zodResolver(varietyCreateSchema),
+    defaultValues: {
+      cropKey: 'lettuce', name: '', dtmDays: null, dtmFrom: 'sowing', emergenceDaysMin: null, emergenceDaysMax: null, boltTolerance: null, heatTolerance: null,
+      traits: [], containerFriendly: false, sunHours: null, waterCmPerWeek: null, sowDepthCm: null, spacingCm: null, thinSpacingCm: null, gddTargetOverrideC: null, notes: '',
+    },
+  });
+  const e = formState.errors;
+  const num = (name: Parameters<typeof register>[0]) => register(name, { setValueAs: numberOrNull });
+  const onSubmit = handleSubmit((values) =>
+    create.mutateAsync(values).then(onSaved, (error: unknown) => applyServerFieldErrors(error, setError, FIELDS)),
+  );
+  const ratingSelect = (name: 'boltTolerance' | 'heatTolerance', label: string) => (
+    <div className="flex flex-col gap-1">
+      <label htmlFor={`v-${name}`} className="font-semibold">{label}</label>
+      <select id={`v-${name}`} className={CONTROL} {...num(name)}>
+        <option value="">Not known</option>
+        {[1, 2, 3, 4, 5].map((n) => <option key={n} value={n}>{RATING_WORDS[n]} ({n} of 5)</option>)}
+      </select>
+    </div>
+  );
+  return (
+    <form onSubmit={onSubmit} noValidate aria-label="New variety" className="grid gap-3 rounded-lg border border-line bg-paper-raised p-4 sm:grid-cols-2">
+      <div className="flex flex-col gap-1">
+        <label htmlFor="v-crop" className="font-semibold">Crop</label>
+        <select id="v-crop" className={CONTROL} {...register('cropKey')}>
+          {CROP_LIBRARY.map((c) => <option key={c.key} value={c.key}>{c.name}</option>)}
+        </select>
+      </div>
+      <TextField label="Variety name" error={e.name?.message} {...register('name')} />
+      <TextField label="Days to maturity" unit="days" inputMode="numeric" error={e.dtmDays?.message} {...num('dtmDays')} />
+      <div className="flex flex-col gap-1">
+        <label htmlFor="v-from" className="font-semibold">Counted from</label>
+        <select id="v-from" className={CONTROL} {...register('dtmFrom')}>
+          {DTM_FROM.map((f) => <option key={f} value={f}>{DTM_FROM_WORDS[f]}</option>)}
+        </select>
+      </div>
+      <TextField label="Days to emergence, fewest" unit="days" inputMode="numeric" error={e.emergenceDaysMin?.message} {...num('emergenceDaysMin')} />
+      <TextField label="Days to emergence, most" unit="days" inputMode="numeric" error={e.emergenceDaysMax?.message} {...num('emergenceDaysMax')} />
+      {ratingSelect('boltTolerance', 'Bolt tolerance')}
+      {ratingSelect('heatTolerance', 'Heat tolerance')}
+      <fieldset className="sm:col-span-2">
+        <legend className="font-semibold">Traits</legend>
+        <div className="flex flex-wrap gap-x-4">
+          {VARIETY_TRAITS.map((t) => (
+            <label key={t} className="inline-flex min-h-11 items-center gap-2">
+              <input type="checkbox" value={t} {...register('traits')} className="size-5" /> {TRAIT_WORDS[t]}
+            </label>
+          ))}
+          <label className="inline-flex min-h-11 items-center gap-2">
+            <input type="checkbox" {...register('containerFriendly')} className="size-5" /> Container-friendly
+          </label>
+        </div>
+        {e.traits?.message && <FieldError>{e.traits.message}</FieldError>}
+      </fieldset>
+      <TextField label="Sowing depth" unit="cm" inputMode="decimal" error={e.sowDepthCm?.message} {...num('sowDepthCm')} />
+      <TextField label="Spacing" unit="cm" inputMode="decimal" error={e.spacingCm?.message} {...num('spacingCm')} />
+      <TextField label="Thin to" unit="cm" inputMode="decimal" error={e.thinSpacingCm?.message} {...num('thinSpacingCm')} />
+      <TextField label="Sun" unit="h a day" inputMode="decimal" error={e.sunHours?.message} {...num('sunHours')} />
+      <TextField label="Water" unit="cm a week" inputMode="decimal" error={e.waterCmPerWeek?.message} {...num('waterCmPerWeek')} />
+      <TextField label="Notes" error={e.notes?.message} {...register('notes')} />
+      {create.isError && !Object.keys(e).length && <div className="sm:col-span-2"><Notice tone="error" live="alert">{create.error.message}</Notice></div>}
+      <div>
+        <Button type="submit" disabled={formState.isSubmitting}>Save variety</Button>
+      </div>
+    </form>
+  );
+}

@@ -1,0 +1,112 @@
+import { lazy, Suspense } from 'react';
+import type { ReactNode } from 'react';
+import type { WeatherResponse, WeatherThresholdDto } from '#shared/schemas/weather';
+import { Loading } from '@/components/ui/loading';
+import { numberThresholds } from '@/features/weather/utils/chart-series';
+import { formatCount, formatDayRange, formatTemp } from '@/features/weather/utils/format-weather';
+
+// Recharts is large: it loads with this component, in its own chunk, only when a chart is shown.
+const WeatherChart = lazy(() =>
+  import('@/features/weather/components/weather-chart').then((m) => ({ default: m.WeatherChart })),
+);
+
+const THRESHOLD_KIND_WORDS: Record<WeatherThresholdDto['kind'], string> = {
+  base: 'base temperature',
+  upper: 'upper threshold',
+  'bolt-heat': 'bolting heat',
+};
+
+function Swatch({ children }: { children: ReactNode }) {
+  return (
+    <svg viewBox="0 0 28 12" className="h-3 w-7 shrink-0" aria-hidden="true" focusable="false">
+      {children}
+    </svg>
+  );
+}
+
+const LEGEND: Array<{ swatch: ReactNode; words: string }> = [
+  { swatch: <line x1="0" y1="6" x2="28" y2="6" className="stroke-ember" strokeWidth="3" />, words: 'Daily high' },
+  { swatch: <line x1="0" y1="6" x2="28" y2="6" className="stroke-frost" strokeWidth="3" />, words: 'Daily low' },
+  { swatch: <line x1="0" y1="6" x2="28" y2="6" className="stroke-loam" strokeWidth="2.5" />, words: 'Solid: measured' },
+  { swatch: <line x1="0" y1="6" x2="28" y2="6" className="stroke-loam" strokeWidth="2.5" strokeDasharray="6 5" />, words: 'Dashed: forecast' },
+  { swatch: <circle cx="14" cy="6" r="4" className="fill-paper-raised stroke-loam" strokeWidth="2" />, words: 'Ring: estimated (filled)' },
+  { swatch: <rect x="10.5" y="2.5" width="7" height="7" className="fill-loam" />, words: 'Square: your station' },
+  { swatch: <rect x="6" y="0" width="16" height="12" className="fill-clay-tint" />, words: 'Shaded: missing days' },
+  { swatch: <line x1="14" y1="0" x2="14" y2="12" className="stroke-loam" strokeWidth="2" />, words: 'Vertical line: today' },
+];
+
+function ChartLegend() {
+  return (
+    <ul aria-label="How to read the chart" className="grid grid-cols-2 gap-x-4 gap-y-1.5 text-sm sm:flex sm:flex-wrap sm:gap-x-5">
+      {LEGEND.map(({ swatch, words }) => (
+        <li key={words} className="flex items-center gap-2">
+          <Swatch>{swatch}</Swatch>
+          {words}
+        </li>
+      ))}
+    </ul>
+  );
+}
+
+function GapList({ gaps }: { gaps: WeatherResponse['gaps'] }) {
+  if (!gaps.length) return <p className="text-sm text-loam-soft">No missing days in this period.</p>;
+  return (
+    <div className="text-sm">
+      <p className="font-semibold">Missing days (no reading, shown as breaks in the lines):</p>
+      <ul className="list-disc pl-5">
+        {gaps.map((gap) => (
+          <li key={gap.from}>
+            {formatDayRange(gap.from, gap.to)} ({formatCount(gap.days, 'day', 'days')})
+          </li>
+        ))}
+      </ul>
+      <p className="mt-1 text-loam-soft">
+        Gaps of one or two days are estimated from the days either side and marked “estimated (filled)”. Longer gaps
+        stay empty: the next refresh may bring them, or upload your own station’s readings.
+      </p>
+    </div>
+  );
+}
+
+function ThresholdList({ weather }: { weather: WeatherResponse }) {
+  if (!weather.thresholds.length) {
+    return (
+      <p className="text-sm text-loam-soft">
+        Crop thresholds (base temperature, upper threshold, bolting heat) are drawn across the chart once plantings
+        are in the ground.
+      </p>
+    );
+  }
+  return (
+    <div className="text-sm">
+      <p className="font-semibold">Dotted lines across the chart: thresholds of crops in the ground</p>
+      <ul>
+        {numberThresholds(weather.thresholds).map((t) => (
+          <li key={`${t.kind}-${t.label}`}>
+            <span className="inline-block w-5 font-semibold tabular-nums">{t.key}</span>
+            {t.label} ({THRESHOLD_KIND_WORDS[t.kind]}): {formatTemp(t.value, weather.unit)}
+          </li>
+        ))}
+      </ul>
+    </div>
+  );
+}
+
+export function WeatherChartPanel({ weather }: { weather: WeatherResponse }) {
+  return (
+    <figure aria-labelledby="weather-chart-caption" className="flex flex-col gap-3 rounded-lg border border-line bg-paper-raised p-3 sm:p-5">
+      <figcaption id="weather-chart-caption" className="font-bold">
+        Daily highs and lows in °{weather.unit}, {formatDayRange(weather.from, weather.to)}
+        <span className="sr-only">. The same days are listed in the table below.</span>
+      </figcaption>
+      <div className="min-h-64 w-full min-w-0">
+        <Suspense fallback={<Loading label="Drawing the chart…" />}>
+          <WeatherChart weather={weather} />
+        </Suspense>
+      </div>
+      <ChartLegend />
+      <GapList gaps={weather.gaps} />
+      <ThresholdList weather={weather} />
+    </figure>
+  );
+}

@@ -1,0 +1,193 @@
+/**
+ * The Recharts drawing of a garden's highs and lows. Loaded lazily (see weather-chart-panel) so
+ * Recharts stays in its own chunk and only pages with a chart pay for it.
+ */
+import { useSyncExternalStore } from 'react';
+import { CartesianGrid, ComposedChart, Line, ReferenceArea, ReferenceLine, Tooltip, XAxis, YAxis } from 'recharts';
+import type { DotItemDotProps } from 'recharts';
+import type { WeatherResponse, WeatherThresholdDto } from '#shared/schemas/weather';
+import { fromDayNumber, toDayNumber } from '#shared/thermal/dates';
+import { SOURCE_WORDS } from '@/features/weather/components/source-label';
+import { buildChartPoints, dayTicks, numberThresholds, placeThresholdLabels, temperatureDomain } from '@/features/weather/utils/chart-series';
+import type { ChartPoint } from '@/features/weather/utils/chart-series';
+import { formatDay, formatShortDay, formatTemp } from '@/features/weather/utils/format-weather';
+
+export const CHART_COLOURS = {
+  high: 'var(--color-ember)',
+  low: 'var(--color-frost)',
+  today: 'var(--color-loam)',
+  gap: 'var(--color-clay-tint)',
+  grid: 'var(--color-line)',
+  text: 'var(--color-loam-soft)',
+} as const;
+
+export const THRESHOLD_COLOURS: Record<WeatherThresholdDto['kind'], string> = {
+  base: 'var(--color-leaf)',
+  upper: 'var(--color-ember)',
+  'bolt-heat': 'var(--color-clay)',
+};
+
+/** Filled days get a hollow ring and station days a small square, on top of the line's colour. */
+const WIDE = '(min-width: 40rem)';
+
+function subscribeToWidth(onChange: () => void) {
+  if (typeof window.matchMedia !== 'function') return () => {};
+  const query = window.matchMedia(WIDE);
+  query.addEventListener('change', onChange);
+  return () => query.removeEventListener('change', onChange);
+}
+
+/** On a phone, weekly date ticks collide; every second week fits. */
+function useWideChart(): boolean {
+  return useSyncExternalStore(subscribeToWidth, () => typeof window.matchMedia !== 'function' || window.matchMedia(WIDE).matches);
+}
+
+interface ThresholdLabelProps {
+  viewBox?: { x?: number; y?: number; width?: number };
+  text: string;
+  colour: string;
+  side: 'left' | 'right';
+  below: boolean;
+}
+
+/** The line's own words, with a paper-coloured halo so they stay readable across the data. */
+function ThresholdLabel({ viewBox, text, colour, side, below }: ThresholdLabelProps) {
+  if (viewBox?.x == null || viewBox.y == null || viewBox.width == null) return null;
+  return (
+    <text
+      x={side === 'left' ? viewBox.x + 6 : viewBox.x + viewBox.width - 6}
+      y={below ? viewBox.y + 14 : viewBox.y - 5}
+      textAnchor={side === 'left' ? 'start' : 'end'}
+      fill={colour}
+      fontSize={12}
+      fontWeight={600}
+      stroke="var(--color-paper-raised)"
+      strokeWidth={4}
+      strokeLinejoin="round"
+      paintOrder="stroke"
+    >
+      {text}
+    </text>
+  );
+}
+
+function SourceDot({ cx, cy, stroke, payload }: DotItemDotProps) {
+  const point = payload as ChartPoint;
+  if (cx == null || cy == null) return null;
+  if (point.source === 'filled') {
+    return <circle cx={cx} cy={cy} r={4} fill="var(--color-paper-raised)" stroke={stroke} strokeWidth={2} />;
+  }
+  if (point.source === 'imported') {
+    return <rect x={cx - 3.5} y={cy - 3.5} width={7} height={7} fill={stroke} />;
+  }
+  return null;
+}
+
+interface DayTooltipProps {
+  active?: boolean;
+  payload?: ReadonlyArray<{ payload?: unknown }>;
+  unit: 'F' | 'C';
+}
+
+function DayTooltip({ active, payload, unit }: DayTooltipProps) {
+  const point = payload?.[0]?.payload as ChartPoint | undefined;
+  if (!active || !point) return null;
+  return (
+    <div className="rounded-md border border-line bg-paper-raised px-3 py-2 text-sm text-loam shadow-sm">
+      <p className="font-semibold">{formatDay(point.date)}</p>
+      {point.source === null || point.tmax === null || point.tmin === null ? (
+        <p>No reading for this day</p>
+      ) : (
+        <>
+          <p>
+            High {formatTemp(point.tmax, unit)} · Low {formatTemp(point.tmin, unit)}
+          </p>
+          <p className="text-loam-soft">{SOURCE_WORDS[point.source]}</p>
+        </>
+      )}
+    </div>
+  );
+}
+
+export function WeatherChart({ weather }: { weather: WeatherResponse }) {
+  const { unit, thresholds, gaps, today } = weather;
+  const points = buildChartPoints(weather);
+  const values = [
+    ...weather.days.flatMap((d) => [d.tmax, d.tmin]),
+    ...thresholds.map((t) => t.value),
+  ];
+  const domain = temperatureDomain(values, unit === 'F' ? 10 : 5);
+  const todayX = toDayNumber(today);
+  const [first, last] = [toDayNumber(weather.from), toDayNumber(weather.to)];
+  const wide = useWideChart();
+  const line = { type: 'linear', connectNulls: false, isAnimationActive: false, strokeWidth: 2.5 } as const;
+
+  return (
+    <ComposedChart
+      responsive
+      data={points}
+      margin={{ top: 24, right: 12, bottom: 24, left: 4 }}
+      style={{ width: '100%', height: 'clamp(16rem, 45vw, 22rem)' }}
+    >
+      <CartesianGrid stroke={CHART_COLOURS.grid} strokeDasharray="2 4" vertical={false} />
+      <XAxis
+        dataKey="x"
+        type="number"
+        domain={[first - 0.5, last + 0.5]}
+        ticks={dayTicks(weather.from, weather.to, today, wide ? 7 : 14)}
+        tickFormatter={(x: number) => formatShortDay(fromDayNumber(x))}
+        tick={{ fill: CHART_COLOURS.text, fontSize: 12 }}
+        stroke={CHART_COLOURS.grid}
+        label={{ value: 'Date', position: 'bottom', offset: 4, fill: CHART_COLOURS.text, fontSize: 12 }}
+      />
+      <YAxis
+        domain={domain}
+        allowDecimals={false}
+        tickFormatter={(v: number) => `${v.toString().replace('-', '−')} °${unit}`}
+        tick={{ fill: CHART_COLOURS.text, fontSize: 12 }}
+        stroke={CHART_COLOURS.grid}
+        width={54}
+        label={{ value: `Temperature (°${unit})`, angle: -90, position: 'insideLeft', offset: 8, fill: CHART_COLOURS.text, fontSize: 12, style: { textAnchor: 'middle' } }}
+      />
+      {gaps.map((gap) => (
+        <ReferenceArea
+          key={gap.from}
+          x1={toDayNumber(gap.from) - 0.5}
+          x2={toDayNumber(gap.to) + 0.5}
+          fill={CHART_COLOURS.gap}
+          fillOpacity={0.9}
+          ifOverflow="hidden"
+        />
+      ))}
+      {placeThresholdLabels(numberThresholds(thresholds), domain).map((t) => (
+        <ReferenceLine
+          key={`${t.kind}-${t.label}`}
+          y={t.value}
+          stroke={THRESHOLD_COLOURS[t.kind]}
+          strokeDasharray="1 5"
+          strokeWidth={2}
+          label={
+            <ThresholdLabel
+              // A phone has no room for the words; the number leads to them in the list below.
+              text={wide ? `${t.label}: ${formatTemp(t.value, unit)}` : `${t.key}: ${formatTemp(t.value, unit)}`}
+              colour={THRESHOLD_COLOURS[t.kind]}
+              side={t.side}
+              below={t.below}
+            />
+          }
+        />
+      ))}
+      <ReferenceLine
+        x={todayX}
+        stroke={CHART_COLOURS.today}
+        strokeWidth={1.5}
+        label={{ value: 'Today', position: 'top', fill: CHART_COLOURS.today, fontSize: 12, fontWeight: 600 }}
+      />
+      <Line {...line} dataKey="pastHigh" name="High" stroke={CHART_COLOURS.high} dot={SourceDot} activeDot={{ r: 4 }} />
+      <Line {...line} dataKey="pastLow" name="Low" stroke={CHART_COLOURS.low} dot={SourceDot} activeDot={{ r: 4 }} />
+      <Line {...line} dataKey="forecastHigh" name="High (forecast)" stroke={CHART_COLOURS.high} strokeDasharray="6 5" dot={false} activeDot={false} />
+      <Line {...line} dataKey="forecastLow" name="Low (forecast)" stroke={CHART_COLOURS.low} strokeDasharray="6 5" dot={false} activeDot={false} />
+      <Tooltip content={({ active, payload }) => <DayTooltip active={active} payload={payload} unit={unit} />} cursor={{ stroke: CHART_COLOURS.grid }} />
+    </ComposedChart>
+  );
+}
