@@ -99,7 +99,7 @@ export function createApp({ config, sequelize, logger = createLogger(config.logL
   api.use(weatherRouter({ sequelize, weather: weatherService, table: routes }));
   api.use(bedsRouter(routes));
   api.use(cropsRouter(routes));
-  api.use(varietiesRouter(routes));
+  api.use(varietiesRouter(routes, weatherService));
   api.use(seedLotsRouter(routes));
   api.use(plantingsRouter(config, routes));
   api.use(photosRouter(config, routes));

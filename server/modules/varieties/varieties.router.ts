@@ -10,13 +10,14 @@ import { effectiveCrops, effectiveValues, getCrop } from '../crops/crops.service
 import { createVariety, deleteVariety, getVariety, listVarieties, updateVariety } from './varieties.service';
 import { presentVariety } from './varieties.presenter';
 import { varietyTarget } from './variety-target';
+import type { WeatherService } from '../weather/weather.service';
 
-export function varietiesRouter(table: RouteTableEntry[]) {
+export function varietiesRouter(table: RouteTableEntry[], weather: WeatherService) {
   const router = Router();
   const detail = async (gardenId: number, varietyId: number) => {
     const variety = await getVariety(gardenId, varietyId);
     const crop = effectiveValues(await getCrop(gardenId, variety.cropKey));
-    const target = await varietyTarget(await getGarden(gardenId), variety, crop);
+    const target = await varietyTarget(await getGarden(gardenId), variety, crop, (g) => weather.gardenHistory(g));
     return presentVariety(variety, crop.season, target);
   };
   mountRoutes(

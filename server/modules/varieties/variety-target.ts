@@ -2,7 +2,6 @@
  * The degree-day target of a variety: the grower's override, else the thermal engine's
  * conversion of the packet's days to maturity over this garden's own past weather.
  */
-import { QueryTypes } from 'sequelize';
 import { degreeDayTargetFromDtm } from '#shared/thermal/index';
 import type { DailyTemp, DegreeDayMethod } from '#shared/thermal/index';
 import type { GddTargetDto } from '#shared/schemas/varieties';
@@ -22,16 +21,6 @@ const DEFAULT_WINDOWS = {
   warm: { N: { from: '05-15', to: '06-30' }, S: { from: '11-15', to: '12-31' } },
 } as const;
 
-async function gardenHistory(gardenId: number): Promise<DailyTemp[]> {
-  const rows = await Planting.sequelize!.query<{ date: string; tmax: number; tmin: number; source: string }>(
-    `SELECT d.date AS date, d.tmax_c AS tmax, d.tmin_c AS tmin, d.source AS source
-       FROM weather_days d JOIN gardens g ON g.weather_cell_id = d.cell_id
-      WHERE g.id = ? AND d.source <> 'forecast' ORDER BY d.date`,
-    { replacements: [gardenId], type: QueryTypes.SELECT },
-  );
-  return rows.map((r) => ({ date: String(r.date).slice(0, 10), tmax: Number(r.tmax), tmin: Number(r.tmin), source: r.source === 'filled' ? 'filled' : 'observed' }));
-}
-
 /** The span of month-days this variety has been started on in this garden, if any. */
 async function ownWindow(variety: Variety): Promise<{ from: string; to: string } | null> {
   const starts = (await Planting.findAll({ where: { varietyId: variety.id }, attributes: ['startOn'], raw: true }))
@@ -45,13 +34,18 @@ async function ownWindow(variety: Variety): Promise<{ from: string; to: string }
 
 const none = (explanation: string): GddTargetDto => ({ valueC: null, basis: 'none', countsFrom: null, explanation, p10C: null, p90C: null });
 
-export async function varietyTarget(garden: Garden, variety: Variety, crop: Effective): Promise<GddTargetDto> {
+export async function varietyTarget(
+  garden: Garden,
+  variety: Variety,
+  crop: Effective,
+  loadHistory: (garden: Garden) => Promise<DailyTemp[]>,
+): Promise<GddTargetDto> {
   const countsFrom = variety.dtmFrom === 'transplant' ? 'transplant' : 'sowing';
   if (variety.gddTargetOverrideC !== null) {
     return { valueC: variety.gddTargetOverrideC, basis: 'override', countsFrom, explanation: 'Set by a grower for this variety.', p10C: null, p90C: null };
   }
   if (variety.dtmDays === null) return none('Add the packet’s days to maturity to derive a degree-day target.');
-  const history = await gardenHistory(garden.id);
+  const history = await loadHistory(garden);
   if (!history.length) return none('No past weather for this garden yet: the target is derived once its history has been fetched.');
   const hemisphere = (garden.latitude ?? 0) < 0 ? 'S' : 'N';
   const own = await ownWindow(variety);

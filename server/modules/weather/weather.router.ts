@@ -14,6 +14,7 @@ import { getGarden } from '../gardens/gardens.service';
 import { findGaps } from './weather.service';
 import type { WeatherService } from './weather.service';
 import { importStationCsv } from './weather-import';
+import { activeThresholds } from './weather-thresholds';
 import { presentDay, presentRun } from './weather.presenter';
 
 const MAX_CSV_BYTES = 2 * 1024 * 1024;
@@ -67,7 +68,7 @@ export function weatherRouter(deps: { sequelize: Sequelize; weather: WeatherServ
           const status = await weather.backfillStatus(garden.weatherCellId);
           const body: WeatherResponse = {
             unit: garden.units,
-            thresholds: [],
+            thresholds: await activeThresholds(garden.id, garden.units),
             from,
             to,
             today,

@@ -302,6 +302,12 @@ export class WeatherService {
     return [...byDate.values()].sort((a, b) => (a.date < b.date ? -1 : 1));
   }
 
+  /** Every past day known for a garden (observed, filled or its own station's), oldest first. */
+  async gardenHistory(garden: { id: number; weatherCellId: number | null; timeZone: string }) {
+    const yesterday = addDays(localDate(garden.timeZone, this.now()), -1);
+    return (await this.gardenSeries(garden, '1900-01-01', yesterday)).filter((d) => d.source !== 'forecast');
+  }
+
   async backfillStatus(cellId: number | null) {
     if (!cellId) return null;
     const cell = await this.repo.cell(cellId);

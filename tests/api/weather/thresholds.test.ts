@@ -1,0 +1,30 @@
+import { describe, expect, it } from 'vitest';
+import { testApp } from '../../helpers/test-app';
+import { gardenWithClients, makePlanting, makeVariety } from '../../helpers/garden-records';
+
+const app = testApp();
+
+describe('crop thresholds on the weather chart', () => {
+  it('when lettuce and tomato are growing, then their base, upper and bolting lines come in the garden’s unit, grouped by value', async () => {
+    const { garden, clients, base } = await gardenWithClients(app);
+    await makePlanting(garden.id, { varietyId: (await makeVariety(garden.id, { cropKey: 'lettuce' })).id });
+    await makePlanting(garden.id, { varietyId: (await makeVariety(garden.id, { cropKey: 'tomato', name: 'Test tomato' })).id });
+    await makePlanting(garden.id, { varietyId: (await makeVariety(garden.id, { cropKey: 'spinach', name: 'Old spinach' })).id, status: 'harvested' });
+    const res = await clients.viewer.get(`${base}/weather`).expect(200);
+    const labels = res.body.thresholds.map((t: { label: string }) => t.label);
+    // SCIENCE.md §2: extension defaults 40 °F base for cool-season crops, 50/86 °F for warm-season crops.
+    expect(labels).toContain('Base temperature 40 °F: Lettuce');
+    expect(labels).toContain('Base temperature 50 °F: Tomato');
+    expect(labels).toContain('Upper threshold 86 °F: Tomato');
+    expect(labels.some((l: string) => l.includes('Spinach'))).toBe(false);
+    expect(res.body.thresholds.find((t: { kind: string }) => t.kind === 'bolt-heat')?.label).toMatch(/^Bolting heat .* °F: Lettuce$/);
+  });
+
+  it('when an owner overrides a crop’s base for this garden, then the line follows the override', async () => {
+    const { garden, clients, base } = await gardenWithClients(app);
+    await makePlanting(garden.id);
+    await clients.owner.patch(`${base}/crops/lettuce`).send({ params: { baseC: { value: 5, note: 'Our own trial' } } }).expect(200);
+    const res = await clients.grower.get(`${base}/weather`).expect(200);
+    expect(res.body.thresholds.map((t: { label: string }) => t.label)).toContain('Base temperature 41 °F: Lettuce');
+  });
+});
