@@ -1,29 +1,17 @@
 // @vitest-environment jsdom
-import { afterEach, beforeAll, beforeEach, describe, expect, it, vi } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 import { screen, within } from '@testing-library/react';
 import { File as NodeFile } from 'node:buffer';
 import { http, HttpResponse } from 'msw';
 import type { JobRunDto, WeatherResponse } from '#shared/schemas/weather';
 import type { Role } from '#shared/schemas/gardens';
-import { server, setupClientTests } from './helpers/msw-server';
+import { seen, server, setupClientTests, useNodeFormData } from './helpers/msw-server';
 import { aGarden, grower } from './helpers/data';
 import { memberOf, renderApp, signedInAs } from './helpers/render-app';
 
 setupClientTests();
 
-interface Seen {
-  method: string;
-  path: string;
-}
-const requests: Seen[] = [];
-
 beforeAll(() => {
-  // The shared recorder parses every body as JSON, which a multipart upload is not; this file
-  // records method and path itself and reads the upload inside its handler.
-  server.events.removeAllListeners('request:start');
-  server.events.on('request:start', ({ request }) => {
-    requests.push({ method: request.method, path: new URL(request.url).pathname });
-  });
   // Recharts sizes its chart with ResizeObserver, which jsdom lacks.
   globalThis.ResizeObserver ??= class {
     observe() {}
@@ -32,26 +20,10 @@ beforeAll(() => {
   };
 });
 
-beforeEach(() => {
-  requests.length = 0;
-});
-afterEach(() => {
-  vi.unstubAllGlobals();
-});
-
-/**
- * jsdom brings its own FormData and File, but the fetch under test is Node's, which cannot read
- * them. A browser has one of each; the upload test gives the page Node's pair to match.
- */
-async function useNodeFormData() {
-  const nodeForm = await new Response(new URLSearchParams()).formData();
-  vi.stubGlobal('FormData', nodeForm.constructor);
-}
-
 function aWeather(overrides: Partial<WeatherResponse> = {}): WeatherResponse {
   return {
     unit: 'F',
-    thresholds: [{ label: 'Lettuce base temperature', kind: 'base', value: 40 }],
+    thresholds: [{ label: 'Base temperature – Lettuce', kind: 'base', value: 40 }],
     from: '2026-05-14',
     to: '2026-05-21',
     today: '2026-05-20',
@@ -104,7 +76,7 @@ function gardenWithWeather(role: Role, weather = aWeather()) {
 }
 
 function requested(path: string) {
-  return requests.filter((r) => r.path === path);
+  return seen.filter((r) => r.path === path);
 }
 
 describe('weather page', () => {
@@ -126,7 +98,7 @@ describe('weather page', () => {
     expect(row('Wed, May 20').getAttribute('aria-current')).toBe('date');
 
     expect(screen.getByText('May 14, 2026 – May 16, 2026 (3 days)')).toBeTruthy();
-    expect(screen.getByText('Lettuce base temperature (base temperature): 40.0 °F')).toBeTruthy();
+    expect(screen.getByText('Base temperature – Lettuce: 40.0 °F')).toBeTruthy();
     expect(screen.getByText('Weather history: 64 % of 11 years fetched…')).toBeTruthy();
     expect(screen.getByRole('progressbar', { name: 'Weather history fetched' }).getAttribute('aria-valuenow')).toBe('64');
     expect(screen.getByRole('link', { name: 'Weather' }).getAttribute('aria-current')).toBe('page');
@@ -153,20 +125,10 @@ describe('weather page', () => {
   });
 
   it('when an upload is rejected as invalid CSV, then every bad line and column is listed and nothing is said to be imported', async () => {
-    let sent: { unit: unknown; fileName: unknown; text: unknown; csrf: string | null } | undefined;
     server.use(
       ...gardenWithWeather('grower'),
-      http.post('/api/gardens/:gardenId/weather/imports', async ({ request }) => {
-        const form = await request.formData();
-        // Node's File, not jsdom's: compare by shape rather than instanceof.
-        const file = form.get('file') as Blob & { name?: string };
-        sent = {
-          unit: form.get('unit'),
-          fileName: file.name,
-          text: await file.text(),
-          csrf: request.headers.get('x-requested-with'),
-        };
-        return HttpResponse.json(
+      http.post('/api/gardens/:gardenId/weather/imports', () =>
+        HttpResponse.json(
           {
             error: {
               code: 'csv_invalid',
@@ -178,8 +140,8 @@ describe('weather page', () => {
             },
           },
           { status: 422 },
-        );
-      }),
+        ),
+      ),
     );
     await useNodeFormData();
     const { user } = renderApp('/g/1/weather');
@@ -194,7 +156,15 @@ describe('weather page', () => {
     const report = within(alert).getByRole('table');
     const rows = within(report).getAllByRole('row').slice(1).map((r) => r.textContent);
     expect(rows).toEqual(['3high"warm" is not a number.', '5date2026-02-30 is not a calendar date.']);
-    expect(sent).toEqual({ unit: 'C', fileName: 'station.csv', text: 'date,high,low\n2026-05-01,warm,7\n', csrf: 'heatclock' });
+    const [upload] = requested('/api/gardens/1/weather/imports');
+    const form = upload.body as FormData;
+    // Node's File, not jsdom's: compare by shape rather than instanceof.
+    const file = form.get('file') as Blob & { name?: string };
+    expect(form.get('unit')).toBe('C');
+    expect(file.name).toBe('station.csv');
+    expect(await file.text()).toBe('date,high,low\n2026-05-01,warm,7\n');
+    expect(upload.headers.get('x-requested-with')).toBe('heatclock');
+    expect(upload.headers.get('content-type')).toMatch(/^multipart\/form-data; boundary=/);
   });
 
   it('when no file is chosen, then the form says so and nothing is uploaded', async () => {

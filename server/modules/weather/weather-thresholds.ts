@@ -42,5 +42,5 @@ export async function activeThresholds(gardenId: number, unit: DisplayUnit): Pro
   const show = (c: number) => Math.round((unit === 'F' ? cToF(c) : c) * 10) / 10;
   return [...lines.values()]
     .sort((a, b) => a.valueC - b.valueC)
-    .map((l) => ({ kind: l.kind, value: show(l.valueC), label: `${l.words} ${show(l.valueC)} °${unit}: ${l.names.join(', ')}` }));
+    .map((l) => ({ kind: l.kind, value: show(l.valueC), label: `${l.words} – ${l.names.join(', ')}` }));
 }

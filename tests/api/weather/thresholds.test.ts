@@ -13,11 +13,12 @@ describe('crop thresholds on the weather chart', () => {
     const res = await clients.viewer.get(`${base}/weather`).expect(200);
     const labels = res.body.thresholds.map((t: { label: string }) => t.label);
     // SCIENCE.md §2: extension defaults 40 °F base for cool-season crops, 50/86 °F for warm-season crops.
-    expect(labels).toContain('Base temperature 40 °F: Lettuce');
-    expect(labels).toContain('Base temperature 50 °F: Tomato');
-    expect(labels).toContain('Upper threshold 86 °F: Tomato');
+    const lines = res.body.thresholds.map((t: { label: string; value: number }) => `${t.label}: ${t.value}`);
+    expect(lines).toContain('Base temperature – Lettuce: 40');
+    expect(lines).toContain('Base temperature – Tomato: 50');
+    expect(lines).toContain('Upper threshold – Tomato: 86');
     expect(labels.some((l: string) => l.includes('Spinach'))).toBe(false);
-    expect(res.body.thresholds.find((t: { kind: string }) => t.kind === 'bolt-heat')?.label).toMatch(/^Bolting heat .* °F: Lettuce$/);
+    expect(res.body.thresholds.find((t: { kind: string }) => t.kind === 'bolt-heat')?.label).toBe('Bolting heat – Lettuce');
   });
 
   it('when an owner overrides a crop’s base for this garden, then the line follows the override', async () => {
@@ -25,6 +26,6 @@ describe('crop thresholds on the weather chart', () => {
     await makePlanting(garden.id);
     await clients.owner.patch(`${base}/crops/lettuce`).send({ params: { baseC: { value: 5, note: 'Our own trial' } } }).expect(200);
     const res = await clients.grower.get(`${base}/weather`).expect(200);
-    expect(res.body.thresholds.map((t: { label: string }) => t.label)).toContain('Base temperature 41 °F: Lettuce');
+    expect(res.body.thresholds).toContainEqual({ kind: 'base', value: 41, label: 'Base temperature – Lettuce' });
   });
 });

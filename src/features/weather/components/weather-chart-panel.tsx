@@ -1,6 +1,6 @@
 import { lazy, Suspense } from 'react';
 import type { ReactNode } from 'react';
-import type { WeatherResponse, WeatherThresholdDto } from '#shared/schemas/weather';
+import type { WeatherResponse } from '#shared/schemas/weather';
 import { Loading } from '@/components/ui/loading';
 import { numberThresholds } from '@/features/weather/utils/chart-series';
 import { formatCount, formatDayRange, formatTemp } from '@/features/weather/utils/format-weather';
@@ -9,12 +9,6 @@ import { formatCount, formatDayRange, formatTemp } from '@/features/weather/util
 const WeatherChart = lazy(() =>
   import('@/features/weather/components/weather-chart').then((m) => ({ default: m.WeatherChart })),
 );
-
-const THRESHOLD_KIND_WORDS: Record<WeatherThresholdDto['kind'], string> = {
-  base: 'base temperature',
-  upper: 'upper threshold',
-  'bolt-heat': 'bolting heat',
-};
 
 function Swatch({ children }: { children: ReactNode }) {
   return (
@@ -84,7 +78,7 @@ function ThresholdList({ weather }: { weather: WeatherResponse }) {
         {numberThresholds(weather.thresholds).map((t) => (
           <li key={`${t.kind}-${t.label}`}>
             <span className="inline-block w-5 font-semibold tabular-nums">{t.key}</span>
-            {t.label} ({THRESHOLD_KIND_WORDS[t.kind]}): {formatTemp(t.value, weather.unit)}
+            {t.label}: {formatTemp(t.value, weather.unit)}
           </li>
         ))}
       </ul>
