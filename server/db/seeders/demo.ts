@@ -2,7 +2,7 @@ import type { Sequelize } from 'sequelize';
 import { Garden, Membership, User } from '../models';
 import { hashPassword } from '../../modules/auth/password';
 import type { Role } from '#shared/schemas/gardens';
-import { todayIn } from '../../modules/records/today';
+import { localDate } from '../../lib/local-date';
 import { seedGardenRecords } from './demo-records';
 
 /** Invented demo scenario: every name and place here is fictional. */
@@ -61,7 +61,7 @@ export async function seedDemo(sequelize: Sequelize) {
       await seedGardenRecords(
         garden,
         users.map((u) => u.user),
-        todayIn(garden.timeZone),
+        localDate(garden.timeZone),
         transaction,
       );
     }

@@ -7,8 +7,8 @@ import { mountRoutes, requireSignedIn } from '../../lib/routes';
 import type { RouteTableEntry } from '../../lib/routes';
 import { AppError } from '../../errors';
 import { recordId } from '../records/params';
-import { receiveOneFile } from '../records/upload';
-import { todayIn } from '../records/today';
+import { receiveOneFile } from '../../lib/upload';
+import { localDate } from '../../lib/local-date';
 import { getGarden } from '../gardens/gardens.service';
 import { deletePhoto, getPhoto, listPhotos, photoPath, savePhoto } from './photos.service';
 import { presentPhoto } from './photos.presenter';
@@ -40,7 +40,7 @@ export function photosRouter(config: AppConfig, table: RouteTableEntry[]) {
           const file = await receiveOneFile(req, res, 'photo', { maxBytes: uploads.maxBytes, fields: 2 });
           if (!file) throw new AppError(400, 'validation_failed', 'Please check the fields: photo.', { photo: 'Attach a photo (JPEG, PNG or WebP).' });
           const fields = parseBody(photoFieldsSchema, { ...req.body });
-          const takenOn = fields.takenOn ?? todayIn((await getGarden(gardenId)).timeZone);
+          const takenOn = fields.takenOn ?? localDate((await getGarden(gardenId)).timeZone);
           const photo = await savePhoto(uploads, { gardenId, plantingId, userId: user.id, buffer: file.buffer, caption: fields.caption ?? '', takenOn });
           res.status(201).json({ photo: presentPhoto(photo) });
         },

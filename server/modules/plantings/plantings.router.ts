@@ -7,8 +7,8 @@ import type { RouteTableEntry } from '../../lib/routes';
 import { AppError } from '../../errors';
 import { recordId } from '../records/params';
 import { pageOf } from '../records/paging';
-import { receiveOneFile } from '../records/upload';
-import { todayIn } from '../records/today';
+import { receiveOneFile } from '../../lib/upload';
+import { localDate } from '../../lib/local-date';
 import { getGarden } from '../gardens/gardens.service';
 import { removePhotoFiles } from '../photos/photos.service';
 import { createPlanting, deletePlanting, getPlanting, listPlantings, updatePlanting } from './plantings.service';
@@ -62,7 +62,7 @@ export function plantingsRouter(config: AppConfig, table: RouteTableEntry[]) {
           const csv = await exportPlantingsCsv(gardenId);
           res.set({
             'Content-Type': 'text/csv; charset=utf-8',
-            'Content-Disposition': `attachment; filename="plantings-${todayIn(garden.timeZone)}.csv"`,
+            'Content-Disposition': `attachment; filename="plantings-${localDate(garden.timeZone)}.csv"`,
             'X-Content-Type-Options': 'nosniff',
           });
           res.send(csv);

@@ -12,7 +12,7 @@ import type { RouteTableEntry } from '../../lib/routes';
 import type { GerminationTest, SeedLot } from '../../db/models';
 import { recordId } from '../records/params';
 import { pageOf } from '../records/paging';
-import { todayIn } from '../records/today';
+import { localDate } from '../../lib/local-date';
 import { getGarden } from '../gardens/gardens.service';
 import { effectiveCrops } from '../crops/crops.service';
 import {
@@ -31,7 +31,7 @@ import { presentSeedLot, presentTest } from './seed-lots.presenter';
 /** Presents lots with the garden's own seed-life figures and today's date in its time zone. */
 async function presenter(gardenId: number) {
   const [garden, crops] = await Promise.all([getGarden(gardenId), effectiveCrops(gardenId)]);
-  const today = todayIn(garden.timeZone);
+  const today = localDate(garden.timeZone);
   return (lot: SeedLot, tests: Map<number, GerminationTest[]>, withTests = false) =>
     presentSeedLot(lot, tests.get(lot.id) ?? [], crops.get(lot.variety!.cropKey)?.seedLifeYears ?? null, today, withTests);
 }

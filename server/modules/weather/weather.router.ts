@@ -1,12 +1,12 @@
 import { Router } from 'express';
 import type { RequestHandler } from 'express';
-import multer from 'multer';
 import type { Sequelize } from 'sequelize';
 import { weatherImportFieldsSchema, weatherQuerySchema } from '#shared/schemas/weather';
 import type { WeatherResponse } from '#shared/schemas/weather';
 import { addDays } from '#shared/thermal/dates';
 import { AppError } from '../../errors';
 import { localDate } from '../../lib/local-date';
+import { receiveOneFile } from '../../lib/upload';
 import { mountRoutes, requireSignedIn } from '../../lib/routes';
 import type { RouteTableEntry } from '../../lib/routes';
 import { parseBody, parseQuery } from '../../lib/validate';
@@ -18,31 +18,17 @@ import { activeThresholds } from './weather-thresholds';
 import { presentDay, presentRun } from './weather.presenter';
 
 const MAX_CSV_BYTES = 2 * 1024 * 1024;
-const CSV_TYPES = new Set(['text/csv', 'text/plain', 'application/csv', 'application/vnd.ms-excel', 'application/octet-stream']);
 
-const upload = multer({
-  storage: multer.memoryStorage(),
-  limits: { fileSize: MAX_CSV_BYTES, files: 1, fields: 4, parts: 6, fieldSize: 1024, headerPairs: 50 },
-  fileFilter: (_req, file, cb) => {
-    if (!CSV_TYPES.has(file.mimetype) || !/\.(csv|txt)$/i.test(file.originalname)) {
-      cb(new AppError(415, 'unsupported_file_type', 'Upload a .csv file (text with columns date, high, low).'));
-    } else cb(null, true);
-  },
-}).single('file');
-
-/** multer's own errors become our error shape: an oversize file is 413, the rest 400. */
-const receiveCsv: RequestHandler = (req, res, next) => {
+/** One CSV file and its unit field, with every multipart limit set (413 when too large). */
+const receiveCsv: RequestHandler = async (req, res, next) => {
   if (!req.is('multipart/form-data')) {
-    next(new AppError(415, 'unsupported_media_type', 'Send the file as multipart/form-data with a "file" field.'));
-    return;
+    throw new AppError(415, 'unsupported_media_type', 'Send the file as multipart/form-data with a "file" field.');
   }
-  upload(req, res, (err: unknown) => {
-    if (!err) return next();
-    if (err instanceof AppError) return next(err);
-    const e = err as { code?: string; message: string; field?: string };
-    if (e.code === 'LIMIT_FILE_SIZE') return next(new AppError(413, 'payload_too_large', 'The file is larger than 2 MB.'));
-    next(new AppError(400, 'upload_invalid', `The upload could not be read: ${e.message}.`, e.field ? { [e.field]: e.message } : undefined));
-  });
+  const file = await receiveOneFile(req, res, 'file', { maxBytes: MAX_CSV_BYTES, fields: 1 });
+  if (file && !/\.(csv|txt)$/i.test(file.originalname)) {
+    throw new AppError(415, 'unsupported_file_type', 'Upload a .csv file (text with columns date, high, low).');
+  }
+  next();
 };
 
 export function weatherRouter(deps: { sequelize: Sequelize; weather: WeatherService; table: RouteTableEntry[] }) {

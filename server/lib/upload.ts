@@ -1,6 +1,6 @@
 import multer from 'multer';
 import type { Request, Response } from 'express';
-import { AppError } from '../../errors';
+import { AppError } from '../errors';
 
 export interface UploadLimits {
   maxBytes: number;
