@@ -6,7 +6,7 @@ import { loadConfig } from '../server/config';
 import { createSequelize } from '../server/db/sequelize';
 import { initModels } from '../server/db/models';
 import { migrate } from '../server/db/migrate';
-import { seedDemo } from '../server/db/seeders/demo';
+import { databaseIsEmpty, demoAlreadySeeded, seedDemo } from '../server/db/seeders/demo';
 import { createLogger } from '../server/lib/logger';
 import { createWeatherService } from '../server/app';
 
@@ -16,7 +16,11 @@ initModels(sequelize);
 try {
   const applied = await migrate(sequelize);
   console.log(`[db] ${config.db.database}: ${applied.length ? `applied ${applied.join(', ')}` : 'schema up to date'}`);
-  if (process.argv.includes('--seed-demo')) {
+  // The invented demo goes only into an empty local database, never into a deployment's.
+  const wantDemo = process.argv.includes('--seed-demo') && (!process.env.DATABASE_URL || process.env.HEATCLOCK_DEMO === '1');
+  if (wantDemo && !(await databaseIsEmpty()) && !(await demoAlreadySeeded())) {
+    console.log('[db] accounts exist and none is the demo coordinator: demo not seeded');
+  } else if (wantDemo) {
     const { users, gardens } = await seedDemo(sequelize);
     console.log(`[db] demo ready: ${gardens.length} gardens, ${users.length} accounts`);
     const fake = config.weather.mode === 'fake' ? (await import('../fixtures/weather/server')).startFakeWeather('error') : null;

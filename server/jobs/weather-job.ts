@@ -14,6 +14,8 @@ export function scheduleWeatherJob(weather: WeatherService, opts: { cron: string
       const run = await weather.runRefresh({ kind: 'nightly' });
       opts.logger.info('weather run finished', { ...run });
       await weather.backfillPending();
+      const repaired = await weather.repairOldGaps();
+      if (repaired) opts.logger.info('weather gaps repaired', { days: repaired });
     },
     { timezone: opts.timeZone, noOverlap: true, name: 'weather-nightly' },
   );

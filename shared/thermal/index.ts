@@ -76,5 +76,6 @@ export type { DayLengthOptions } from './day-length';
 export { seasonOf } from './season';
 export type { Season } from './season';
 export { addDays, dayOfYear, daysBetween } from './dates';
+export { isSouthern } from './season';
 export { germinationPercent, seedsToSow } from './seeds';
 export { cToF, fToC, cDeltaToF, fDeltaToC, cDaysToFDays, fDaysToCDays } from './units';

@@ -24,6 +24,7 @@ describe('nightly weather schedule (node-cron)', () => {
         return { runId: runs, cellsOk: 0, cellsFailed: 0, cellsSkipped: 0, daysWritten: 0, daysRejected: 0, requests: 0 };
       },
       backfillPending: async () => undefined,
+      repairOldGaps: async () => 0,
     } as unknown as WeatherService;
     const task = scheduleWeatherJob(weather, { cron: '* * * * * *', timeZone: 'UTC', logger });
     await new Promise((r) => setTimeout(r, 3600));

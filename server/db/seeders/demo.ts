@@ -34,6 +34,16 @@ export const DEMO_GARDENS = [
   },
 ];
 
+/** The demo is seeded into an empty database only: a real garden's accounts are never joined to it. */
+export async function databaseIsEmpty(): Promise<boolean> {
+  return (await User.count()) === 0;
+}
+
+/** The demo was seeded before (so seeding again only tops it up, changing nothing that exists). */
+export async function demoAlreadySeeded(): Promise<boolean> {
+  return (await User.count({ where: { email: DEMO_USERS[0].email } })) === 1;
+}
+
 /** Idempotent: finds or creates each account, garden and membership by its natural key. */
 export async function seedDemo(sequelize: Sequelize) {
   const hash = await hashPassword(DEMO_PASSWORD);
@@ -47,9 +57,17 @@ export async function seedDemo(sequelize: Sequelize) {
       });
       users.push({ user, role: u.role });
     }
+    // A demo garden is the coordinator's garden of that name: a stranger's garden that happens to
+    // share the name is never touched.
+    const coordinator = users[0].user;
     const gardens = [];
     for (const g of DEMO_GARDENS) {
-      const [garden] = await Garden.findOrCreate({ where: { name: g.name }, defaults: g, transaction });
+      const owned = await Garden.findOne({
+        where: { name: g.name },
+        include: [{ model: Membership, as: 'memberships', where: { userId: coordinator.id, role: 'owner' }, required: true }],
+        transaction,
+      });
+      const garden = owned ?? (await Garden.create(g, { transaction }));
       gardens.push(garden);
       for (const { user, role } of users) {
         await Membership.findOrCreate({

@@ -1,5 +1,6 @@
 import type { GardenDto, Role } from '#shared/schemas/gardens';
 import type { Garden } from '../../db/models';
+import { isSouthern } from '#shared/thermal/index';
 
 export function presentGarden(g: Garden, role: Role): GardenDto {
   return {
@@ -10,7 +11,7 @@ export function presentGarden(g: Garden, role: Role): GardenDto {
     elevationM: g.elevationM,
     timeZone: g.timeZone,
     units: g.units,
-    hemisphere: (g.latitude ?? 0) < 0 ? 'S' : 'N',
+    hemisphere: isSouthern(g.latitude ?? 0) ? 'S' : 'N',
     role,
   };
 }

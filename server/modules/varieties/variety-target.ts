@@ -2,7 +2,7 @@
  * The degree-day target of a variety: the grower's override, else the thermal engine's
  * conversion of the packet's days to maturity over this garden's own past weather.
  */
-import { degreeDayTargetFromDtm } from '#shared/thermal/index';
+import { dayOfYear, degreeDayTargetFromDtm, isSouthern } from '#shared/thermal/index';
 import type { DailyTemp, DegreeDayMethod } from '#shared/thermal/index';
 import type { GddTargetDto } from '#shared/schemas/varieties';
 import { Planting } from '../../db/models';
@@ -21,15 +21,37 @@ const DEFAULT_WINDOWS = {
   warm: { N: { from: '05-15', to: '06-30' }, S: { from: '11-15', to: '12-31' } },
 } as const;
 
-/** The span of month-days this variety has been started on in this garden, if any. */
+/**
+ * The span of month-days this variety's packet count has started on in this garden: transplant
+ * dates when its days to maturity count from transplanting, sowing dates otherwise. The span is
+ * the shortest one around the calendar, so starts in November and January make a window across
+ * New Year (southern summers), not one across the whole year.
+ */
 async function ownWindow(variety: Variety): Promise<{ from: string; to: string } | null> {
-  const starts = (await Planting.findAll({ where: { varietyId: variety.id }, attributes: ['startOn'], raw: true }))
-    .map((p) => p.startOn)
+  const rows = await Planting.findAll({ where: { varietyId: variety.id }, attributes: ['sownOn', 'transplantedOn'], raw: true });
+  const starts = rows
+    .map((p) => (variety.dtmFrom === 'transplant' ? p.transplantedOn : (p.sownOn ?? p.transplantedOn)))
     .filter((d): d is string => !!d)
-    .map((d) => d.slice(5))
-    .sort();
-  if (!starts.length) return null;
-  return { from: starts[0], to: starts[starts.length - 1] };
+    .map((d) => d.slice(5));
+  return shortestCircularSpan(starts);
+}
+
+/** The shortest span of month-days ('MM-DD') holding them all, possibly wrapping past 31 Dec. */
+export function shortestCircularSpan(monthDays: string[]): { from: string; to: string } | null {
+  const sorted = [...new Set(monthDays)].sort();
+  if (!sorted.length) return null;
+  const ordinal = (md: string) => dayOfYear(`2001-${md === '02-29' ? '02-28' : md}`);
+  let widest = -1;
+  let after = 0;
+  for (let i = 0; i < sorted.length; i++) {
+    const next = (i + 1) % sorted.length;
+    const gap = (ordinal(sorted[next]) - ordinal(sorted[i]) + 365) % 365;
+    if (gap > widest) {
+      widest = gap;
+      after = next;
+    }
+  }
+  return { from: sorted[after], to: sorted[(after + sorted.length - 1) % sorted.length] };
 }
 
 const none = (explanation: string): GddTargetDto => ({ valueC: null, basis: 'none', countsFrom: null, explanation, p10C: null, p90C: null });
@@ -47,7 +69,7 @@ export async function varietyTarget(
   if (variety.dtmDays === null) return none('Add the packet’s days to maturity to derive a degree-day target.');
   const history = await loadHistory(garden);
   if (!history.length) return none('No past weather for this garden yet: the target is derived once its history has been fetched.');
-  const hemisphere = (garden.latitude ?? 0) < 0 ? 'S' : 'N';
+  const hemisphere = isSouthern(garden.latitude ?? 0) ? 'S' : 'N';
   const own = await ownWindow(variety);
   const window = own ?? DEFAULT_WINDOWS[crop.season][hemisphere];
   const method: DegreeDayMethod = { base: crop.baseC!, method: crop.method, cutoff: crop.cutoff, ...(crop.upperC !== null ? { upper: crop.upperC } : {}) };

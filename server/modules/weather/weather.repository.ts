@@ -27,6 +27,16 @@ export type CellSource = 'observed' | 'forecast' | 'filled';
 /** An observation replaces a fill, and a fill replaces a forecast; never the other way round. */
 const RANK: Record<CellSource, number> = { forecast: 1, filled: 2, observed: 3 };
 
+/**
+ * The provenance rule again in SQL, so a concurrent writer of lower rank (a fill racing an
+ * observation) cannot win between our read and our write. `source` is assigned last: MariaDB
+ * evaluates the assignments in order, and the others must compare against the stored source.
+ */
+const NEWER_RANKS_HIGHER = "FIELD(VALUES(source), 'forecast', 'filled', 'observed') >= FIELD(source, 'forecast', 'filled', 'observed')";
+export const RANKED_UPDATE = ['tmax_c', 'tmin_c', 'fill_note', 'fetched_at', 'source']
+  .map((col) => `${col} = IF(${NEWER_RANKS_HIGHER}, VALUES(${col}), ${col})`)
+  .join(', ');
+
 const cellColumns = `id, latitude, longitude, time_zone AS timeZone, history_from AS historyFrom,
   history_through AS historyThrough, backfill_target_from AS backfillTargetFrom,
   backfill_error AS backfillError, refreshed_at AS refreshedAt`;
@@ -160,8 +170,7 @@ export class WeatherRepository {
         await this.db.query(
           `INSERT INTO weather_days (cell_id, date, tmax_c, tmin_c, source, fill_note, fetched_at)
            VALUES ${chunk.map(() => '(?, ?, ?, ?, ?, ?, UTC_TIMESTAMP(3))').join(', ')}
-           ON DUPLICATE KEY UPDATE tmax_c = VALUES(tmax_c), tmin_c = VALUES(tmin_c), fill_note = VALUES(fill_note),
-             fetched_at = VALUES(fetched_at), source = VALUES(source)`,
+           ON DUPLICATE KEY UPDATE ${RANKED_UPDATE}`,
           { replacements: chunk.flatMap((d) => [cellId, d.date, d.tmax, d.tmin, d.source, d.note ?? null]), transaction },
         );
       }
@@ -184,6 +193,30 @@ export class WeatherRepository {
       type: QueryTypes.SELECT,
     });
     return rows.map((r) => r.id);
+  }
+
+  async cellsInUse(): Promise<number[]> {
+    const rows = await this.db.query<{ id: number }>(
+      'SELECT c.id FROM weather_cells c WHERE EXISTS (SELECT 1 FROM gardens g WHERE g.weather_cell_id = c.id) ORDER BY c.id',
+      { type: QueryTypes.SELECT },
+    );
+    return rows.map((r) => r.id);
+  }
+
+  /** Dates in a range that have a value better than a forecast. */
+  async knownDates(cellId: number, from: string, to: string): Promise<Set<string>> {
+    const rows = await this.db.query<{ date: string }>(
+      "SELECT date FROM weather_days WHERE cell_id = ? AND date BETWEEN ? AND ? AND source <> 'forecast'",
+      { replacements: [cellId, from, to], type: QueryTypes.SELECT },
+    );
+    return new Set(rows.map((r) => r.date));
+  }
+
+  async recordHistory(cellId: number, h: { historyFrom: string; historyThrough: string; targetFrom: string }) {
+    await this.db.query(
+      'UPDATE weather_cells SET history_from = ?, history_through = ?, backfill_target_from = ?, backfill_error = NULL WHERE id = ?',
+      { replacements: [h.historyFrom, h.historyThrough, h.targetFrom, cellId] },
+    );
   }
 
   async cellsNeedingBackfill(): Promise<number[]> {

@@ -102,8 +102,13 @@ export class WeatherService {
     return localDate(cell.timeZone, this.now());
   }
 
+  /** A lease belongs to one job, not to the instance, so two jobs of one instance never share a cell. */
+  private leaseToken(): string {
+    return `${this.instance}:${randomUUID().slice(0, 8)}`;
+  }
+
   /** Fetches recent days and the forecast for one leased cell, stores them, fills short gaps. */
-  private async refreshLeasedCell(cell: CellRow, totals: RunTotals) {
+  private async refreshLeasedCell(cell: CellRow, totals: RunTotals, token: string) {
     const today = this.today(cell);
     const yesterday = addDays(today, -1);
     const s = this.settings;
@@ -124,19 +129,30 @@ export class WeatherService {
       const filled = await this.fillShortGaps(cell.id, addDays(today, -pastDays), yesterday);
       totals.daysWritten += written + filled;
       const observed = rows.filter((r) => r.source === 'observed').map((r) => r.date);
-      await this.repo.releaseCell(cell.id, this.instance, {
+      await this.repo.releaseCell(cell.id, token, {
         refreshed: true,
         historyThrough: observed.length ? observed[observed.length - 1] : undefined,
       });
       totals.cellsOk++;
-      const gardens = await this.repo.gardensOfCell(cell.id);
-      for (const listener of this.listeners) await listener(cell.id, gardens);
     } catch (err) {
       totals.requests += requestsOf(err);
       totals.cellsFailed++;
       totals.message = `cell ${cell.id}: ${(err as Error).message}`;
       this.deps.logger.error('weather refresh failed', { cellId: cell.id, error: (err as Error).message });
-      await this.repo.releaseCell(cell.id, this.instance);
+      await this.repo.releaseCell(cell.id, token).catch(() => undefined);
+      return;
+    }
+    await this.notify(cell.id);
+  }
+
+  /** Hands a refreshed cell to the evaluation steps; their failures are theirs, not the refresh's. */
+  private async notify(cellId: number) {
+    if (!this.listeners.length) return;
+    const gardens = await this.repo.gardensOfCell(cellId);
+    for (const listener of this.listeners) {
+      await listener(cellId, gardens).catch((err: Error) =>
+        this.deps.logger.error('weather listener failed', { cellId, error: err.message }),
+      );
     }
   }
 
@@ -188,16 +204,21 @@ export class WeatherService {
   }
 
   /** The nightly job, and "refresh now" for one garden's cell. Records a job run either way. */
-  async runRefresh(opts: { kind: 'nightly' | 'manual'; gardenId?: number; cellId?: number } = { kind: 'nightly' }) {
+  runRefresh(opts: { kind: 'nightly' | 'manual'; gardenId?: number; cellId?: number } = { kind: 'nightly' }) {
+    return this.track(this.runRefreshNow(opts));
+  }
+
+  private async runRefreshNow(opts: { kind: 'nightly' | 'manual'; gardenId?: number; cellId?: number }) {
     const s = this.settings;
     const runId = await this.repo.startRun(opts.kind, this.instance, opts.gardenId ?? null);
     const totals = emptyTotals();
     const cutoff = new Date(this.now().getTime() - (opts.kind === 'manual' ? 30_000 : s.minRefreshMinutes * 60_000));
     const worker = async () => {
       for (;;) {
-        const cell = await this.repo.claimCell(this.instance, cutoff, s.leaseMs, opts.cellId);
+        const token = this.leaseToken();
+        const cell = await this.repo.claimCell(token, cutoff, s.leaseMs, opts.cellId);
         if (!cell) return;
-        await this.refreshLeasedCell(cell, totals);
+        await this.refreshLeasedCell(cell, totals, token);
         if (opts.cellId) return;
       }
     };
@@ -211,6 +232,17 @@ export class WeatherService {
       await this.repo.finishRun(runId, totals);
     }
     return { runId, ...totals };
+  }
+
+  /** Keeps work in flight visible to idle(), so shutdown waits for it to release its leases. */
+  private track<T>(work: Promise<T>): Promise<T> {
+    const settled = work.then(
+      () => undefined,
+      () => undefined,
+    );
+    this.pending.add(settled);
+    void settled.finally(() => this.pending.delete(settled));
+    return work;
   }
 
   /**
@@ -227,16 +259,17 @@ export class WeatherService {
 
   private async backfillNow(cellId: number) {
     const s = this.settings;
-    if (!(await this.repo.leaseCell(cellId, this.instance, s.leaseMs))) return;
-    const cell = (await this.repo.cell(cellId))!;
-    const today = this.today(cell);
-    const targetFrom = `${Number(today.slice(0, 4)) - s.historyYears}-01-01`;
-    const lastArchived = addDays(today, -s.archiveLagDays);
-    let historyFrom = cell.historyFrom;
-    let historyThrough = cell.historyThrough;
+    const token = this.leaseToken();
+    let targetFrom: string | undefined;
     try {
+      if (!(await this.repo.leaseCell(cellId, token, s.leaseMs))) return;
+      const cell = (await this.repo.cell(cellId))!;
+      const today = this.today(cell);
+      targetFrom = `${Number(today.slice(0, 4)) - s.historyYears}-01-01`;
+      let historyFrom = cell.historyFrom;
+      let historyThrough = cell.historyThrough;
       // Continue below what is already stored; on a first run start at the archive's end.
-      let to = historyFrom && historyThrough ? addDays(historyFrom, -1) : lastArchived;
+      let to = historyFrom && historyThrough ? addDays(historyFrom, -1) : addDays(today, -s.archiveLagDays);
       while (daysBetween(targetFrom, to) >= 0) {
         const from = [addDays(to, -365), targetFrom].sort().pop()!;
         const res = await this.deps.client.history({ latitude: cell.latitude, longitude: cell.longitude, timeZone: cell.timeZone, from, to });
@@ -244,18 +277,48 @@ export class WeatherService {
         await this.repo.upsertCellDays(cellId, rows);
         historyFrom = from;
         historyThrough = historyThrough && historyThrough > to ? historyThrough : to;
-        await this.repo.leaseCell(cellId, this.instance, s.leaseMs);
-        await this.deps.sequelize.query(
-          'UPDATE weather_cells SET history_from = ?, history_through = ?, backfill_target_from = ?, backfill_error = NULL WHERE id = ?',
-          { replacements: [historyFrom, historyThrough, targetFrom, cellId] },
-        );
+        await this.repo.leaseCell(cellId, token, s.leaseMs);
+        await this.repo.recordHistory(cellId, { historyFrom, historyThrough, targetFrom });
         to = addDays(from, -1);
       }
-      await this.repo.releaseCell(cellId, this.instance, { backfillTargetFrom: targetFrom, backfillError: null });
+      await this.repo.releaseCell(cellId, token, { backfillTargetFrom: targetFrom, backfillError: null });
     } catch (err) {
       this.deps.logger.error('weather backfill failed', { cellId, error: (err as Error).message });
-      await this.repo.releaseCell(cellId, this.instance, { backfillTargetFrom: targetFrom, backfillError: (err as Error).message.slice(0, 500) });
+      await this.repo
+        .releaseCell(cellId, token, { backfillTargetFrom: targetFrom, backfillError: (err as Error).message.slice(0, 500) })
+        .catch(() => undefined);
     }
+  }
+
+  /**
+   * Days still missing further back than the nightly refresh reaches (rejected days, long
+   * outages) are asked of the archive again; at most a few holes per cell and night, so a cell
+   * with a permanent hole cannot swamp the service.
+   */
+  async repairOldGaps(maxPerCell = 3): Promise<number> {
+    let repaired = 0;
+    for (const cellId of await this.repo.cellsInUse()) {
+      const token = this.leaseToken();
+      try {
+        if (!(await this.repo.leaseCell(cellId, token, this.settings.leaseMs))) continue;
+        const cell = (await this.repo.cell(cellId))!;
+        if (!cell.historyFrom) continue;
+        const to = addDays(this.today(cell), -(92 + 1));
+        if (daysBetween(cell.historyFrom, to) < 0) continue;
+        const have = await this.repo.knownDates(cellId, cell.historyFrom, to);
+        if (have.size === daysBetween(cell.historyFrom, to) + 1) continue;
+        for (const gap of findGaps(have, cell.historyFrom, to).slice(0, maxPerCell)) {
+          const res = await this.deps.client.history({ latitude: cell.latitude, longitude: cell.longitude, timeZone: cell.timeZone, from: gap.from, to: gap.to });
+          repaired += await this.repo.upsertCellDays(cellId, res.days.map((d) => ({ ...d, source: 'observed' as const })));
+          repaired += await this.fillShortGaps(cellId, gap.from, gap.to);
+        }
+      } catch (err) {
+        this.deps.logger.error('weather gap repair failed', { cellId, error: (err as Error).message });
+      } finally {
+        await this.repo.releaseCell(cellId, token).catch(() => undefined);
+      }
+    }
+    return repaired;
   }
 
   /**
@@ -272,12 +335,12 @@ export class WeatherService {
 
   /** History first, then recent days and the forecast; failures are logged and retried nightly. */
   prepareCell(cellId: number, gardenId: number): Promise<void> {
-    const job = this.backfill(cellId)
-      .then(() => this.runRefresh({ kind: 'manual', gardenId, cellId }))
-      .then(() => undefined)
-      .catch((err: Error) => this.deps.logger.error('weather preparation failed', { cellId, error: err.message }));
-    this.pending.add(job);
-    return job.finally(() => this.pending.delete(job));
+    return this.track(
+      this.backfill(cellId)
+        .then(() => this.runRefresh({ kind: 'manual', gardenId, cellId }))
+        .then(() => undefined)
+        .catch((err: Error) => this.deps.logger.error('weather preparation failed', { cellId, error: err.message })),
+    );
   }
 
   /** Resolves when background work started by this instance has finished (tests, shutdown). */

@@ -6,6 +6,7 @@ import { fakeWeather } from '../../../fixtures/weather/control';
 import { syntheticDay } from '../../../fixtures/weather/generator';
 import { addDays } from '#shared/thermal/dates';
 import type { WeatherService } from '../../../server/modules/weather/weather.service';
+import { RANKED_UPDATE } from '../../../server/modules/weather/weather.repository';
 
 const { sequelize } = testDb();
 beforeEach(() => fakeWeather.reset());
@@ -199,5 +200,43 @@ describe('weather pipeline', () => {
     const res = await c.get(`/api/gardens/${garden.id}/weather?from=2026-13-01&extra=1`);
     expect(res.status).toBe(400);
     expect(Object.keys(res.body.error.fields).sort()).toEqual(['extra', 'from']);
+  });
+});
+
+describe('provenance is enforced by the database too', () => {
+  it('when a fill is written over an observed day (as a racing writer would), then the observation stays', async () => {
+    const weather = testWeather();
+    const { cellId } = await locatedGarden(weather);
+    await weather.repo.upsertCellDays(cellId, [{ date: '2020-03-03', tmax: 12.5, tmin: 1.5, source: 'observed' }]);
+    // A writer whose read saw no observation yet: its statement reaches the row after the observation did.
+    await sequelize.query(
+      `INSERT INTO weather_days (cell_id, date, tmax_c, tmin_c, source, fill_note, fetched_at)
+       VALUES (?, '2020-03-03', 9.9, 0.1, 'filled', 'racing fill', UTC_TIMESTAMP(3))
+       ON DUPLICATE KEY UPDATE ${RANKED_UPDATE}`,
+      { replacements: [cellId] },
+    );
+    const [row] = (await rows(cellId)).filter((r) => r.date === '2020-03-03');
+    expect(row.source).toBe('observed');
+    expect(Number(row.tmax)).toBe(12.5);
+  });
+});
+
+describe('old gaps are asked for again', () => {
+  it('when a day more than 92 days back is missing, then the nightly repair fetches it from the archive', async () => {
+    const weather = testWeather();
+    const { cellId } = await locatedGarden(weather);
+    await weather.backfill(cellId);
+    const hole = addDays(weather.today({ timeZone: 'America/Chicago' }), -200);
+    await sequelize.query('DELETE FROM weather_days WHERE cell_id = ? AND date BETWEEN ? AND ?', {
+      replacements: [cellId, hole, addDays(hole, 4)],
+    });
+    fakeWeather.requests = [];
+    const repaired = await weather.repairOldGaps();
+    expect(repaired).toBeGreaterThanOrEqual(5);
+    const stored = new Map((await rows(cellId)).map((r) => [r.date, r]));
+    expect(stored.get(hole)?.source).toBe('observed');
+    const asked = fakeWeather.requests.map((r) => new URL(r.url)).filter((u) => u.searchParams.get('start_date') === hole);
+    expect(asked).toHaveLength(1);
+    expect(asked[0].searchParams.get('end_date')).toBe(addDays(hole, 4));
   });
 });
