@@ -84,6 +84,9 @@ export function createApp({ config, sequelize, logger = createLogger(config.logL
   );
 
   const api = express.Router();
+  // Only /api requests go through sessions, body parsing and CSRF checks: the page shell and its
+  // assets load without touching the database, so an outage can still be shown to the grower.
+  api.use((req, _res, next) => next(req.path === '/api' || req.path.startsWith('/api/') ? undefined : 'router'));
   api.use(noStore);
   // Health and readiness must answer even when sessions (in MariaDB) cannot load.
   api.use(healthRouter(sequelize, routes));

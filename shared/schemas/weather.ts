@@ -1,16 +1,14 @@
 import { z } from 'zod';
+import { isoDateSchema } from './records';
 import type { TempSource } from '../thermal/types';
 
-const isoDate = z.iso.date({ error: 'Use a date like 2026-05-31 (YYYY-MM-DD).' });
+/** The most days one weather request returns; the range is checked after defaults fill it in. */
+export const MAX_WEATHER_DAYS = 800;
 
 export const weatherQuerySchema = z
-  .object({ from: isoDate.optional(), to: isoDate.optional() })
+  .object({ from: isoDateSchema('From').optional(), to: isoDateSchema('To').optional() })
   .strict()
-  .refine((q) => !q.from || !q.to || q.from <= q.to, { message: '"from" must not be after "to".', path: ['from'] })
-  .refine((q) => !q.from || !q.to || (Date.parse(q.to) - Date.parse(q.from)) / 86_400_000 <= 800, {
-    message: 'Ask for at most 800 days at a time.',
-    path: ['to'],
-  });
+  .refine((q) => !q.from || !q.to || q.from <= q.to, { message: '"from" must not be after "to".', path: ['from'] });
 
 export const weatherImportFieldsSchema = z
   .object({ unit: z.enum(['F', 'C'], { error: 'Choose the unit of the file: F or C.' }) })

@@ -132,3 +132,16 @@ describe('plantings', () => {
     expect((await clients.outsider.get(`${base}/plantings`)).status).toBe(404);
   });
 });
+
+describe('log entries keep the planting whole', () => {
+  it('when a harvest is logged before an indoor start was transplanted, then 400 names the date and nothing changes', async () => {
+    const app = testApp();
+    const { garden, clients, base } = await gardenWithClients(app);
+    const planting = await makePlanting(garden.id, { method: 'indoor-start', sownOn: '2025-03-01', transplantedOn: '2025-04-20', startOn: '2025-03-01' } as never);
+    const res = await clients.grower.post(`${base}/plantings/${planting.id}/log`).send({ entryOn: '2025-04-10', kind: 'harvest', amount: 1, amountUnit: 'kg' });
+    expect(res.status).toBe(400);
+    expect(res.body.error.fields.entryOn).toMatch(/does not fit the planting/);
+    await planting.reload();
+    expect(planting.firstHarvestOn).toBeNull();
+  });
+});

@@ -1,5 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import net from 'node:net';
+import path from 'node:path';
+import { tmpdir } from 'node:os';
+import { mkdtempSync, writeFileSync } from 'node:fs';
 import request from 'supertest';
 import { createApp } from '../../server/app';
 import { createSequelize } from '../../server/db/sequelize';
@@ -33,6 +36,19 @@ describe('health and readiness', () => {
     expect(res.body.database).toBe('down');
     expect(Date.now() - started).toBeLessThan(5000);
     expect((await request(app).get('/api/health')).status).toBe(200);
+    await dead.close();
+  });
+
+  it('when the database is down, then the page shell still loads, without a session cookie', async () => {
+    const { config } = testDb();
+    const dir = mkdtempSync(path.join(tmpdir(), 'heatclock-shell-'));
+    writeFileSync(path.join(dir, 'index.html'), '<!doctype html><title>Heatclock</title>');
+    const dead = createSequelize({ ...config.db, port: await closedPort() }, { acquireMs: 1000 });
+    const app = createApp({ config, sequelize: dead, clientDir: dir });
+    const res = await request(app).get('/g/1/weather').set('Cookie', 'heatclock.sid=s%3Aanything.sig');
+    expect(res.status).toBe(200);
+    expect(res.text).toContain('<title>Heatclock</title>');
+    expect(res.headers['set-cookie']).toBeUndefined();
     await dead.close();
   });
 

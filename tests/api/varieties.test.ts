@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { testApp } from '../helpers/test-app';
-import { gardenWithClients, makeLot, makeVariety } from '../helpers/garden-records';
+import { gardenWithClients, makeLot, makeVariety, makePlanting } from '../helpers/garden-records';
 import { createGarden } from '../helpers/factories';
 
 const app = testApp();
@@ -77,5 +77,18 @@ describe('varieties', () => {
     expect((await clients.grower.delete(`${base}/varieties/${v.id}`)).status).toBe(409);
     const other = await makeVariety((await createGarden()).id);
     expect((await clients.grower.delete(`${base}/varieties/${other.id}`)).status).toBe(404);
+  });
+});
+
+describe('a variety in use keeps its crop', () => {
+  it('when a variety with plantings is moved to another crop, then 409 names the crop field and nothing changes', async () => {
+    const app = testApp();
+    const { garden, clients, base } = await gardenWithClients(app);
+    const planting = await makePlanting(garden.id);
+    const res = await clients.grower.patch(`${base}/varieties/${planting.varietyId}`).send({ cropKey: 'spinach' });
+    expect(res.status).toBe(409);
+    expect(res.body.error.fields.cropKey).toMatch(/cannot change/);
+    const again = await clients.grower.get(`${base}/varieties/${planting.varietyId}`).expect(200);
+    expect(again.body.variety.crop.key).toBe('lettuce');
   });
 });

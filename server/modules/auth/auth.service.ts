@@ -4,13 +4,14 @@ import type { RegisterInput, LoginInput } from '#shared/schemas/auth';
 import { AppError } from '../../errors';
 import { Garden, Membership, User } from '../../db/models';
 import { equaliseTiming, hashPassword, verifyPassword } from './password';
+import { inTransaction } from '../../lib/transaction';
 
 export const INVALID_CREDENTIALS = 'E-mail or password is incorrect.';
 
 export async function registerUser(sequelize: Sequelize, input: RegisterInput) {
   const passwordHash = await hashPassword(input.password);
   try {
-    return await sequelize.transaction(async (transaction) => {
+    return await inTransaction(sequelize, async (transaction) => {
       const user = await User.create({ email: input.email, name: input.name, passwordHash }, { transaction });
       const garden = await Garden.create({ name: input.gardenName, timeZone: 'UTC', units: 'F' }, { transaction });
       await Membership.create({ userId: user.id, gardenId: garden.id, role: 'owner' }, { transaction });

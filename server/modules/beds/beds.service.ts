@@ -5,7 +5,7 @@ import type { z } from 'zod';
 import { Bed, Planting } from '../../db/models';
 import { AppError } from '../../errors';
 import { likeText, limitOffset } from '../records/paging';
-import { uniqueOr409 } from '../records/unique';
+import { unreferencedOr409, uniqueOr409 } from '../records/unique';
 
 type BedListQuery = z.output<typeof bedListQuerySchema>;
 
@@ -56,5 +56,5 @@ export async function deleteBed(gardenId: number, bedId: number) {
   if (used) {
     throw new AppError(409, 'in_use', `This bed has ${used} planting${used === 1 ? '' : 's'} on record; move or delete them first.`);
   }
-  await bed.destroy();
+  await unreferencedOr409(() => bed.destroy(), 'A planting was just added to this bed; move or delete it first.');
 }

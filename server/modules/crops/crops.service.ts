@@ -6,7 +6,7 @@ import type { CropDefinition, CropParamKey, CropParams } from '#shared/crops/par
 import type { CropOverridesUpdateInput, cropListQuerySchema } from '#shared/schemas/crops';
 import { CropOverride } from '../../db/models';
 import { AppError } from '../../errors';
-import { inTransaction } from '../records/transaction';
+import { inTransaction } from '../../lib/transaction';
 
 type CropListQuery = z.output<typeof cropListQuerySchema>;
 

@@ -1,4 +1,6 @@
 import { createReadStream } from 'node:fs';
+import { stat } from 'node:fs/promises';
+import { pipeline } from 'node:stream/promises';
 import { Router } from 'express';
 import { photoFieldsSchema } from '#shared/schemas/plantings';
 import type { AppConfig } from '../../config';
@@ -51,6 +53,10 @@ export function photosRouter(config: AppConfig, table: RouteTableEntry[]) {
         access: 'viewer',
         handler: async (req, res) => {
           const photo = await getPhoto(req.membership!.gardenId, recordId(req.params, 'plantingId'), recordId(req.params, 'photoId'));
+          const file = photoPath(uploads, photo.storageName);
+          await stat(file).catch(() => {
+            throw AppError.notFound('That photo file');
+          });
           res.set({
             'Content-Type': 'image/jpeg',
             'X-Content-Type-Options': 'nosniff',
@@ -59,11 +65,9 @@ export function photosRouter(config: AppConfig, table: RouteTableEntry[]) {
             'Cache-Control': 'private, max-age=3600',
             'Content-Length': String(photo.bytes),
           });
-          await new Promise<void>((resolve, reject) => {
-            const stream = createReadStream(photoPath(uploads, photo.storageName));
-            stream.on('error', () => reject(AppError.notFound('That photo file')));
-            stream.on('end', resolve);
-            stream.pipe(res);
+          // pipeline() ends the file stream when the client goes away mid-download, so nothing leaks.
+          await pipeline(createReadStream(file), res).catch((err: Error) => {
+            if (!res.headersSent) throw err;
           });
         },
       },

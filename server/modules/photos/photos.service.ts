@@ -7,7 +7,7 @@ import { fileTypeFromBuffer } from 'file-type';
 import type { AppConfig } from '../../config';
 import { Planting, PlantingLog, PlantingPhoto, User } from '../../db/models';
 import { AppError } from '../../errors';
-import { inTransaction } from '../records/transaction';
+import { inTransaction } from '../../lib/transaction';
 
 const ACCEPTED = new Set(['image/jpeg', 'image/png', 'image/webp']);
 /** Longest edge kept: plenty for a bed photo on any screen, a fraction of a phone camera's file. */

@@ -13,7 +13,7 @@ import { PLANTING_CSV_COLUMNS, logEntryCreateSchema, plantingCreateSchema } from
 import type { ImportProblem, ImportReport, LogEntryCreateInput, PlantingCreateInput } from '#shared/schemas/plantings';
 import { Bed, Planting, PlantingLog, SeedLot, Variety } from '../../db/models';
 import { AppError } from '../../errors';
-import { inTransaction } from '../records/transaction';
+import { inTransaction } from '../../lib/transaction';
 import { plantingFields, plantingIncludes } from './plantings.service';
 
 type Column = (typeof PLANTING_CSV_COLUMNS)[number];

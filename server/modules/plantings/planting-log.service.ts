@@ -1,9 +1,11 @@
 import type { Transaction } from 'sequelize';
+import { plantingCreateSchema } from '#shared/schemas/plantings';
 import type { LogEntryCreateInput } from '#shared/schemas/plantings';
+import { plantingFields } from './plantings.service';
 import { Planting, PlantingLog, User } from '../../db/models';
 import { AppError } from '../../errors';
 import { limitOffset } from '../records/paging';
-import { inTransaction } from '../records/transaction';
+import { inTransaction } from '../../lib/transaction';
 
 async function plantingOf(gardenId: number, plantingId: number, transaction?: Transaction) {
   const planting = await Planting.findOne({
@@ -59,7 +61,17 @@ export async function addLogEntry(gardenId: number, plantingId: number, userId: 
       });
     }
     const changes = stageChanges(planting, input);
-    if (Object.keys(changes).length) await planting.update(changes, { transaction: t });
+    if (Object.keys(changes).length) {
+      // The entry must leave a whole planting, as an edit must (e.g. no harvest before transplanting).
+      const merged = plantingCreateSchema.safeParse({ ...plantingFields(planting), ...changes });
+      if (!merged.success) {
+        const why = merged.error.issues[0]?.message ?? 'it does not fit the planting’s dates';
+        throw new AppError(400, 'validation_failed', 'Please check the fields: entryOn.', {
+          entryOn: `This ${input.kind} entry does not fit the planting: ${why}`,
+        });
+      }
+      await planting.update(changes, { transaction: t });
+    }
     return PlantingLog.create(
       {
         gardenId,

@@ -7,7 +7,7 @@ import { Bed, Planting, PlantingPhoto, SeedLot, Variety } from '../../db/models'
 import { AppError, validationError } from '../../errors';
 import { likeText, limitOffset } from '../records/paging';
 import { bedInGarden, seedLotInGarden, varietyInGarden } from '../records/scope';
-import { inTransaction } from '../records/transaction';
+import { inTransaction } from '../../lib/transaction';
 import { uniqueOr409 } from '../records/unique';
 
 type PlantingListQuery = z.output<typeof plantingListQuerySchema>;

@@ -1,3 +1,4 @@
+import { unreferencedOr409 } from '../records/unique';
 import { Op } from 'sequelize';
 import type { WhereOptions } from 'sequelize';
 import type { z } from 'zod';
@@ -7,7 +8,7 @@ import { GerminationTest, Planting, SeedLot, Variety } from '../../db/models';
 import { AppError } from '../../errors';
 import { likeText, limitOffset } from '../records/paging';
 import { varietyInGarden } from '../records/scope';
-import { inTransaction } from '../records/transaction';
+import { inTransaction } from '../../lib/transaction';
 
 type SeedLotListQuery = z.output<typeof seedLotListQuerySchema>;
 type SeedsToSowQuery = z.output<typeof seedsToSowQuerySchema>;
@@ -76,10 +77,14 @@ export async function deleteSeedLot(gardenId: number, seedLotId: number) {
   const lot = await getSeedLot(gardenId, seedLotId);
   const used = await Planting.count({ where: { seedLotId } });
   if (used) throw new AppError(409, 'in_use', `${used} planting(s) were sown from this lot; they keep it on record.`);
-  await inTransaction(SeedLot.sequelize!, async (transaction) => {
-    await GerminationTest.destroy({ where: { seedLotId: lot.id }, transaction });
-    await lot.destroy({ transaction });
-  });
+  await unreferencedOr409(
+    () =>
+      inTransaction(SeedLot.sequelize!, async (transaction) => {
+        await GerminationTest.destroy({ where: { seedLotId: lot.id }, transaction });
+        await lot.destroy({ transaction });
+      }),
+    'A planting sown from this lot was just recorded; it keeps the lot on record.',
+  );
 }
 
 export async function addGerminationTest(gardenId: number, seedLotId: number, input: GerminationTestCreateInput) {

@@ -6,7 +6,7 @@ import { varietyCreateSchema } from '#shared/schemas/varieties';
 import { Planting, SeedLot, Variety } from '../../db/models';
 import { AppError, validationError } from '../../errors';
 import { likeText, limitOffset } from '../records/paging';
-import { uniqueOr409 } from '../records/unique';
+import { unreferencedOr409, uniqueOr409 } from '../records/unique';
 
 type VarietyListQuery = z.output<typeof varietyListQuerySchema>;
 
@@ -38,6 +38,13 @@ export async function updateVariety(gardenId: number, varietyId: number, input: 
   const merged = { ...pickFields(variety), ...input };
   const check = varietyCreateSchema.safeParse(merged);
   if (!check.success) throw validationError(check.error);
+  if (input.cropKey && input.cropKey !== variety.cropKey) {
+    const [lots, plantings] = await Promise.all([SeedLot.count({ where: { varietyId } }), Planting.count({ where: { varietyId } })]);
+    if (lots || plantings) {
+      const msg = 'This variety already has plantings or seed lots on record, so its crop cannot change; add a new variety instead.';
+      throw new AppError(409, 'in_use', msg, { cropKey: msg });
+    }
+  }
   return uniqueOr409(() => variety.update(input), duplicate, 'name');
 }
 
@@ -69,5 +76,5 @@ export async function deleteVariety(gardenId: number, varietyId: number) {
   if (lots || plantings) {
     throw new AppError(409, 'in_use', `This variety has ${plantings} planting(s) and ${lots} seed lot(s) on record; delete those first.`);
   }
-  await variety.destroy();
+  await unreferencedOr409(() => variety.destroy(), 'A planting or seed lot was just added for this variety; delete it first.');
 }

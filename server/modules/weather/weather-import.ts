@@ -6,7 +6,8 @@
 import { createHash } from 'node:crypto';
 import { parse } from 'csv-parse/sync';
 import type { Sequelize } from 'sequelize';
-import { QueryTypes } from 'sequelize';
+import { QueryTypes, UniqueConstraintError } from 'sequelize';
+import { inTransaction } from '../../lib/transaction';
 import type { CsvRowError, WeatherImportResult } from '#shared/schemas/weather';
 import { parseIsoDate } from '#shared/thermal/dates';
 import { fToC } from '#shared/thermal/units';
@@ -118,12 +119,13 @@ export async function importStationCsv(
   const sha256 = createHash('sha256').update(p.buffer).update(p.unit).digest('hex');
   const dates = rows.map((r) => r.date).sort();
   const span = { from: dates[0], to: dates[dates.length - 1] };
-  return sequelize.transaction(async (transaction) => {
+  const already = { importId: null, rowsInFile: rows.length, rowsAdded: 0, rowsChanged: 0, alreadyImported: true, ...span };
+  const write = () => inTransaction(sequelize, async (transaction) => {
     const [previous] = await sequelize.query<{ id: number }>(
       'SELECT id FROM weather_imports WHERE garden_id = ? AND sha256 = ? LIMIT 1',
       { replacements: [p.gardenId, sha256], type: QueryTypes.SELECT, transaction },
     );
-    if (previous) return { importId: previous.id, rowsInFile: rows.length, rowsAdded: 0, rowsChanged: 0, alreadyImported: true, ...span };
+    if (previous) return { ...already, importId: previous.id };
 
     const existing = new Map(
       (
@@ -155,4 +157,11 @@ export async function importStationCsv(
     }
     return { importId, rowsInFile: rows.length, rowsAdded: added.length, rowsChanged: changed.length, alreadyImported: false, ...span };
   });
+  try {
+    return await write();
+  } catch (err) {
+    // The same file uploaded twice at once: the unique (garden, file hash) key lets one through.
+    if (err instanceof UniqueConstraintError) return already;
+    throw err;
+  }
 }

@@ -2,6 +2,7 @@
 import { QueryTypes } from 'sequelize';
 import type { Sequelize, Transaction } from 'sequelize';
 import type { TempSource } from '#shared/thermal/types';
+import { inTransaction } from '../../lib/transaction';
 
 export interface CellRow {
   id: number;
@@ -75,7 +76,7 @@ export class WeatherRepository {
    * under FOR UPDATE SKIP LOCKED: concurrent instances never claim the same cell.
    */
   async claimCell(owner: string, cutoff: Date, leaseMs: number, onlyCellId?: number): Promise<CellRow | null> {
-    return this.db.transaction(async (transaction) => {
+    return inTransaction(this.db, async (transaction) => {
       const [row] = await this.db.query<{ id: number }>(
         `SELECT c.id FROM weather_cells c
           WHERE EXISTS (SELECT 1 FROM gardens g WHERE g.weather_cell_id = c.id)
@@ -155,7 +156,7 @@ export class WeatherRepository {
   ): Promise<number> {
     if (!days.length) return 0;
     const sorted = [...days].sort((a, b) => (a.date < b.date ? -1 : 1));
-    return this.db.transaction(async (transaction) => {
+    return inTransaction(this.db, async (transaction) => {
       const existing = new Map(
         (await this.cellDays(cellId, sorted[0].date, sorted[sorted.length - 1].date, transaction)).map((d) => [d.date, d]),
       );
@@ -252,9 +253,11 @@ export class WeatherRepository {
     return this.db.query<RunRow>(
       `SELECT id, kind, garden_id AS gardenId, started_at AS startedAt, finished_at AS finishedAt, status,
               cells_ok AS cellsOk, cells_failed AS cellsFailed, cells_skipped AS cellsSkipped,
-              days_written AS daysWritten, days_rejected AS daysRejected, requests, message
+              days_written AS daysWritten, days_rejected AS daysRejected, requests,
+              -- A nightly run's message may name other gardens' cells: owners see only their own runs' messages.
+              CASE WHEN garden_id = ? THEN message END AS message
          FROM job_runs WHERE garden_id IS NULL OR garden_id = ? ORDER BY id DESC LIMIT ?`,
-      { replacements: [gardenId, limit], type: QueryTypes.SELECT },
+      { replacements: [gardenId, gardenId, limit], type: QueryTypes.SELECT },
     );
   }
 }

@@ -1,9 +1,9 @@
 import { Router } from 'express';
 import type { RequestHandler } from 'express';
 import type { Sequelize } from 'sequelize';
-import { weatherImportFieldsSchema, weatherQuerySchema } from '#shared/schemas/weather';
+import { MAX_WEATHER_DAYS, weatherImportFieldsSchema, weatherQuerySchema } from '#shared/schemas/weather';
 import type { WeatherResponse } from '#shared/schemas/weather';
-import { addDays } from '#shared/thermal/dates';
+import { addDays, daysBetween } from '#shared/thermal/dates';
 import { AppError } from '../../errors';
 import { localDate } from '../../lib/local-date';
 import { receiveOneFile } from '../../lib/upload';
@@ -48,6 +48,10 @@ export function weatherRouter(deps: { sequelize: Sequelize; weather: WeatherServ
           const today = localDate(garden.timeZone, weather.now());
           const from = q.from ?? addDays(q.to ?? today, -30);
           const to = q.to ?? addDays(today, weather.settings.forecastDays - 1);
+          if (daysBetween(from, to) + 1 > MAX_WEATHER_DAYS) {
+            const msg = `Ask for at most ${MAX_WEATHER_DAYS} days at a time.`;
+            throw new AppError(400, 'validation_failed', msg, { [q.from ? 'from' : 'to']: msg });
+          }
           const days = await weather.gardenSeries(garden, from, to);
           const pastEnd = [to, addDays(today, -1)].sort()[0];
           const observedDates = new Set(days.filter((d) => d.source !== 'forecast').map((d) => d.date));

@@ -87,6 +87,19 @@ describe('station CSV upload', () => {
     ]);
   });
 
+  it('when the same file is uploaded twice at the same moment, then it lands once', async () => {
+    const { c, garden } = await growerOfNewGarden();
+    const csv = 'date,high,low\n2025-08-01,30,18\n2025-08-02,31,19\n2025-08-03,29,17\n';
+    const results = await Promise.all([upload(c, garden.id, csv), upload(c, garden.id, csv)]);
+    expect(results.map((r) => r.status).sort()).toEqual([200, 201]);
+    const [{ n }] = await sequelize.query<{ n: number }>('SELECT COUNT(*) AS n FROM weather_imports WHERE garden_id = ?', {
+      replacements: [garden.id],
+      type: QueryTypes.SELECT,
+    });
+    expect(Number(n)).toBe(1);
+    expect(await storedCount(garden.id)).toBe(3);
+  });
+
   it('when the upload is not CSV, too large, or from a viewer, then it is refused with a clear error', async () => {
     const { c, garden, viewer } = await growerOfNewGarden();
     const png = await upload(c, garden.id, Buffer.from([0x89, 0x50, 0x4e, 0x47, 0, 0, 0, 0]), 'C', 'photo.png');

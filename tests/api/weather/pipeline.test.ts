@@ -200,6 +200,10 @@ describe('weather pipeline', () => {
     const res = await c.get(`/api/gardens/${garden.id}/weather?from=2026-13-01&extra=1`);
     expect(res.status).toBe(400);
     expect(Object.keys(res.body.error.fields).sort()).toEqual(['extra', 'from']);
+    const huge = await c.get(`/api/gardens/${garden.id}/weather?from=1900-01-01`);
+    expect(huge.status).toBe(400);
+    expect(huge.body.error.fields.from).toMatch(/at most 800 days/);
+    expect((await c.get(`/api/gardens/${garden.id}/weather?from=0001-01-01`)).body.error.fields.from).toMatch(/out of range/);
   });
 });
 
