@@ -1,5 +1,18 @@
 import type { ApiErrorBody } from '#shared/schemas/errors';
 
+/** One bad row of an uploaded file, as the server reports it. */
+export interface ApiRowProblem {
+  line: number;
+  column: string | null;
+  message: string;
+}
+
+function isRowProblem(value: unknown): value is ApiRowProblem {
+  if (typeof value !== 'object' || value === null) return false;
+  const row = value as Record<string, unknown>;
+  return typeof row.line === 'number' && typeof row.message === 'string' && (row.column === null || typeof row.column === 'string');
+}
+
 /** Any failed call to the Heatclock API, with the server's stable code and per-field messages. */
 export class ApiError extends Error {
   readonly status: number;
@@ -8,6 +21,10 @@ export class ApiError extends Error {
   readonly requestId?: string;
   /** From Retry-After on 429/503, in whole seconds, when the server sent one. */
   readonly retryAfterSeconds?: number;
+  /** Whatever else the server put in its error object, kept for the caller that knows it. */
+  readonly details: Record<string, unknown>;
+  /** The line/column report of a rejected upload (`details.rows`); empty for other errors. */
+  readonly rows: ApiRowProblem[];
 
   constructor(init: {
     status: number;
@@ -16,6 +33,7 @@ export class ApiError extends Error {
     fields?: Record<string, string>;
     requestId?: string;
     retryAfterSeconds?: number;
+    details?: Record<string, unknown>;
   }) {
     super(init.message);
     this.name = 'ApiError';
@@ -24,6 +42,9 @@ export class ApiError extends Error {
     this.fields = init.fields ?? {};
     this.requestId = init.requestId;
     this.retryAfterSeconds = init.retryAfterSeconds;
+    this.details = init.details ?? {};
+    const rows = this.details.rows;
+    this.rows = Array.isArray(rows) ? rows.filter(isRowProblem) : [];
   }
 }
 
@@ -66,15 +87,24 @@ function toUrl(path: string): string {
 type Method = 'GET' | 'POST' | 'PATCH' | 'PUT' | 'DELETE';
 
 interface RequestOptions {
+  /** Sent as JSON, or as multipart when it is a FormData (files). */
   body?: unknown;
   signal?: AbortSignal;
+}
+
+function encodeBody(body: unknown, headers: Record<string, string>): BodyInit | undefined {
+  if (body === undefined) return undefined;
+  // The browser writes a multipart Content-Type with its boundary; setting one here would break it.
+  if (body instanceof FormData) return body;
+  headers['Content-Type'] = 'application/json';
+  return JSON.stringify(body);
 }
 
 async function request<T>(method: Method, path: string, options: RequestOptions = {}): Promise<T> {
   const headers: Record<string, string> = { Accept: 'application/json' };
   // The server's CSRF rule: every mutating request carries this header.
   if (method !== 'GET') headers['X-Requested-With'] = 'heatclock';
-  if (options.body !== undefined) headers['Content-Type'] = 'application/json';
+  const body = encodeBody(options.body, headers);
 
   let response: Response;
   try {
@@ -82,7 +112,7 @@ async function request<T>(method: Method, path: string, options: RequestOptions 
       method,
       headers,
       credentials: 'same-origin',
-      body: options.body === undefined ? undefined : JSON.stringify(options.body),
+      body,
       signal: options.signal,
     });
   } catch (cause) {
@@ -94,17 +124,22 @@ async function request<T>(method: Method, path: string, options: RequestOptions 
     });
   }
 
-  const body = await readJson(response);
-  if (response.ok) return body as T;
+  const answer = await readJson(response);
+  if (response.ok) return answer as T;
 
   const retryAfterSeconds = parseRetryAfter(response.headers.get('Retry-After'));
-  if (isErrorBody(body)) {
-    throw new ApiError({ status: response.status, ...body.error, retryAfterSeconds });
+  if (isErrorBody(answer)) {
+    const { code, message, fields, requestId, ...details } = answer.error as ApiErrorBody['error'] & Record<string, unknown>;
+    throw new ApiError({ status: response.status, code, message, fields, requestId, retryAfterSeconds, details });
   }
   throw new ApiError({
     status: response.status,
     code: 'http_error',
-    message: `The server answered with an unexpected error (HTTP ${response.status}). Please try again.`,
+    // A proxy in front of the app may refuse a large upload before the server can explain.
+    message:
+      response.status === 413
+        ? 'The file is too large to upload.'
+        : `The server answered with an unexpected error (HTTP ${response.status}). Please try again.`,
     retryAfterSeconds,
   });
 }
@@ -113,4 +148,5 @@ export const api = {
   get: <T>(path: string, signal?: AbortSignal) => request<T>('GET', path, { signal }),
   post: <T>(path: string, body?: unknown) => request<T>('POST', path, { body }),
   patch: <T>(path: string, body: unknown) => request<T>('PATCH', path, { body }),
+  delete: (path: string) => request<void>('DELETE', path),
 };

@@ -17,7 +17,17 @@ export function CropsPage() {
       </p>
       {crops.isPending && <Loading label="Loading the crop library…" />}
       {crops.isError && <Notice tone="error">{crops.error.message}</Notice>}
-      {crops.data && <CropLibrary crops={crops.data} units={garden.units} />}
+      {garden.role === 'owner' ? (
+        <Notice tone="info" title="Your garden’s own values">
+          As the owner you can set a value for this garden where your own records or local advice differ. The shared default stays
+          beside it, and “Use shared default” goes back to it. Changes apply to every planting of the crop in this garden.
+        </Notice>
+      ) : (
+        <Notice tone="info" title="Read only">
+          Only the garden’s owner can set this garden’s own values.
+        </Notice>
+      )}
+      {crops.data && <CropLibrary gardenId={garden.id} crops={crops.data} units={garden.units} canEdit={garden.role === 'owner'} />}
     </div>
   );
 }

@@ -1,6 +1,6 @@
 import { useState } from 'react';
 import { useNavigate } from 'react-router-dom';
-import { Download, Plus, X } from 'lucide-react';
+import { Download, FileUp, Plus, X } from 'lucide-react';
 import { CROP_LIBRARY } from '#shared/crops/library';
 import { PLANTING_STATUSES, STATUS_WORDS } from '#shared/schemas/plantings';
 import type { PlantingListQuery, PlantingStatus } from '#shared/schemas/plantings';
@@ -8,25 +8,24 @@ import { Button } from '@/components/ui/button';
 import { Loading } from '@/components/ui/loading';
 import { Notice } from '@/components/ui/notice';
 import { useCurrentGarden } from '@/app/routes/gardens/garden-layout';
+import { usePlantings } from '@/features/plantings/api/get-plantings';
 import { useBeds } from '@/features/beds/api/get-beds';
 import { useVarieties } from '@/features/varieties/api/get-varieties';
-import { useSeedLots } from '@/features/seed-lots/api/get-seed-lots';
-import { usePlantings } from '@/features/plantings/api/get-plantings';
 import { PlantingForm } from '@/features/plantings/components/planting-form';
+import { PlantingImportForm } from '@/features/plantings/components/planting-import-form';
 import { PlantingsTable } from '@/features/plantings/components/plantings-table';
 import type { SortState } from '@/features/plantings/components/plantings-table';
 import { CONTROL } from '@/features/plantings/components/field-styles';
 import { todayIn } from '@/features/plantings/components/today';
+import { usePlantingChoices } from '@/app/routes/plantings/use-planting-choices';
 
 const PAGE_SIZE = 25;
 
 function NewPlanting({ gardenId, today, onClose }: { gardenId: number; today: string; onClose: () => void }) {
   const navigate = useNavigate();
-  const beds = useBeds(gardenId);
-  const varieties = useVarieties(gardenId);
-  const lots = useSeedLots(gardenId);
-  if (beds.isPending || varieties.isPending || lots.isPending) return <Loading label="Loading beds and varieties…" />;
-  if (beds.isError || varieties.isError || lots.isError) return <Notice tone="error">Beds, varieties or seed lots could not be loaded.</Notice>;
+  const loaded = usePlantingChoices(gardenId);
+  if (loaded.status === 'pending') return <Loading label="Loading beds and varieties…" />;
+  if (loaded.status === 'error') return <Notice tone="error">Beds, varieties or seed lots could not be loaded.</Notice>;
   return (
     <section aria-labelledby="new-planting" className="rounded-lg border border-line bg-paper-raised p-4">
       <div className="mb-3 flex items-center justify-between">
@@ -40,15 +39,25 @@ function NewPlanting({ gardenId, today, onClose }: { gardenId: number; today: st
       <PlantingForm
         gardenId={gardenId}
         today={today}
-        choices={{
-          beds: beds.data.items,
-          varieties: varieties.data.items.map((v) => ({ id: v.id, name: v.name, cropName: v.crop.name })),
-          seedLots: lots.data.items.map((l) => ({ id: l.id, varietyId: l.variety.id, label: [l.lotNumber && `Lot ${l.lotNumber}`, l.packedForYear && `packed for ${l.packedForYear}`].filter(Boolean).join(', ') || 'Unlabelled lot' })),
-        }}
+        choices={loaded.choices}
         onSaved={(p) => navigate(`/g/${gardenId}/plantings/${p.id}`)}
+        onCancel={onClose}
       />
     </section>
   );
+}
+
+// Invented names for a garden that has no beds or varieties yet.
+const STAND_IN = { bed: 'North 1', crop: 'lettuce', variety: 'Copperleaf Butterhead' };
+
+/** The example file names one of this garden's own beds and varieties, so it imports as it is. */
+function ImportPlantings({ gardenId, today, onClose }: { gardenId: number; today: string; onClose: () => void }) {
+  const beds = useBeds(gardenId);
+  const varieties = useVarieties(gardenId);
+  const bed = beds.data?.items[0];
+  const variety = varieties.data?.items[0];
+  const example = bed && variety ? { bed: bed.name, crop: variety.crop.key, variety: variety.name } : STAND_IN;
+  return <PlantingImportForm gardenId={gardenId} example={example} year={today.slice(0, 4)} onClose={onClose} />;
 }
 
 export function PlantingsPage() {
@@ -56,6 +65,7 @@ export function PlantingsPage() {
   const canEdit = garden.role !== 'viewer';
   const today = todayIn(garden.timeZone);
   const [adding, setAdding] = useState(false);
+  const [importing, setImporting] = useState(false);
   const [status, setStatus] = useState<PlantingStatus | ''>('');
   const [crop, setCrop] = useState('');
   const [q, setQ] = useState('');
@@ -74,6 +84,11 @@ export function PlantingsPage() {
           <a href={`/api/gardens/${garden.id}/plantings/export.csv`} className="inline-flex min-h-11 items-center gap-2 rounded-md border border-line bg-paper-raised px-4 font-semibold" download>
             <Download className="size-5" aria-hidden="true" /> Export CSV
           </a>
+          {canEdit && !importing && (
+            <Button variant="quiet" onClick={() => setImporting(true)}>
+              <FileUp className="size-5" aria-hidden="true" /> Import CSV
+            </Button>
+          )}
           {canEdit && !adding && (
             <Button onClick={() => setAdding(true)}>
               <Plus className="size-5" aria-hidden="true" /> New planting
@@ -86,6 +101,7 @@ export function PlantingsPage() {
           Viewers see every planting but cannot change them.
         </Notice>
       )}
+      {importing && <ImportPlantings gardenId={garden.id} today={today} onClose={() => setImporting(false)} />}
       {adding && <NewPlanting gardenId={garden.id} today={today} onClose={() => setAdding(false)} />}
       <form role="search" className="grid gap-3 sm:grid-cols-3" onSubmit={(e) => e.preventDefault()}>
         <label className="flex flex-col gap-1">

@@ -19,6 +19,7 @@ export function SeedLotsPage() {
   const [adding, setAdding] = useState(false);
   const lots = useSeedLots(garden.id);
   const varieties = useVarieties(garden.id);
+  const choices = varieties.data?.items.map((v) => ({ id: v.id, label: `${v.crop.name}: ${v.name}` })) ?? [];
   return (
     <div className="flex flex-col gap-4">
       <title>{`Seed lots · ${garden.name} · Heatclock`}</title>
@@ -31,9 +32,7 @@ export function SeedLotsPage() {
         )}
       </div>
       {!canEdit && <Notice tone="info" title="Read only">Viewers see the seed lots but cannot change them.</Notice>}
-      {adding && varieties.data && (
-        <SeedLotForm gardenId={garden.id} varieties={varieties.data.items.map((v) => ({ id: v.id, label: `${v.crop.name}: ${v.name}` }))} onSaved={() => setAdding(false)} />
-      )}
+      {adding && varieties.data && <SeedLotForm gardenId={garden.id} varieties={choices} onSaved={() => setAdding(false)} onCancel={() => setAdding(false)} />}
       <p className="max-w-prose text-sm text-loam-soft">
         Seed life is the typical number of years seed keeps under good storage (cool, dry, dark). A germination test tells you more than age: count how many of 10–20 seeds sprout on a damp towel.
       </p>
@@ -41,7 +40,7 @@ export function SeedLotsPage() {
       {lots.isError && <Notice tone="error">{lots.error.message}</Notice>}
       {lots.data && (
         <div className="grid gap-3 md:grid-cols-2">
-          {lots.data.items.map((lot) => <SeedLotCard key={lot.id} gardenId={garden.id} lot={lot} canEdit={canEdit} today={todayIn(garden.timeZone)} />)}
+          {lots.data.items.map((lot) => <SeedLotCard key={lot.id} gardenId={garden.id} lot={lot} canEdit={canEdit} today={todayIn(garden.timeZone)} varieties={choices} />)}
         </div>
       )}
     </div>

@@ -26,7 +26,7 @@ export function VarietiesPage() {
         )}
       </div>
       {garden.role === 'viewer' && <Notice tone="info" title="Read only">Viewers see the varieties but cannot change them.</Notice>}
-      {adding && <VarietyForm gardenId={garden.id} onSaved={() => setAdding(false)} />}
+      {adding && <VarietyForm gardenId={garden.id} onSaved={() => setAdding(false)} onCancel={() => setAdding(false)} />}
       <label className="flex max-w-xs flex-col gap-1">
         <span className="font-semibold">Crop</span>
         <select className="min-h-11 rounded-md border border-line bg-paper-raised px-3" value={crop} onChange={(e) => setCrop(e.target.value)}>
@@ -39,7 +39,7 @@ export function VarietiesPage() {
       {varieties.data && (
         varieties.data.items.length ? (
           <div className="grid gap-3 md:grid-cols-2">
-            {varieties.data.items.map((v) => <VarietyCard key={v.id} gardenId={garden.id} variety={v} units={garden.units} />)}
+            {varieties.data.items.map((v) => <VarietyCard key={v.id} gardenId={garden.id} variety={v} units={garden.units} canEdit={garden.role !== 'viewer'} />)}
           </div>
         ) : <p>No varieties yet.</p>
       )}

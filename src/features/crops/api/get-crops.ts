@@ -1,10 +1,7 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import type { CropDto } from '#shared/schemas/crops';
 import { api } from '@/lib/api-client';
-
-export const cropKeys = {
-  list: (gardenId: number) => ['crops', gardenId, 'list'] as const,
-};
+import { cropKeys } from '@/features/crops/api/crop-keys';
 
 export async function getCrops(gardenId: number, signal?: AbortSignal): Promise<CropDto[]> {
   return (await api.get<{ crops: CropDto[] }>(`/api/gardens/${gardenId}/crops`, signal)).crops;

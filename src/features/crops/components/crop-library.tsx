@@ -1,25 +1,15 @@
+import { useState } from 'react';
+import { Pencil, SlidersHorizontal, Undo2 } from 'lucide-react';
 import { CONFIDENCE_WORDS, PARAM_GROUPS } from '#shared/crops/params';
+import type { Confidence } from '#shared/crops/params';
 import type { CropDto, CropParamDto } from '#shared/schemas/crops';
 import type { DisplayUnit } from '#shared/schemas/gardens';
 import { cToF, cDaysToFDays } from '#shared/thermal/units';
-
-const ENUM_WORDS: Record<string, string> = {
-  cool: 'Cool-season',
-  warm: 'Warm-season',
-  'very-hardy': 'Very hardy',
-  'frost-tolerant': 'Frost tolerant',
-  tender: 'Tender',
-  'warm-loving': 'Warm-loving',
-  'single-sine': 'Single sine',
-  'single-triangle': 'Single triangle',
-  'double-sine': 'Double sine',
-  'double-triangle': 'Double triangle',
-  average: 'Average',
-  'clamped-average': 'Clamped average',
-  horizontal: 'Horizontal',
-  vertical: 'Vertical',
-  intermediate: 'Intermediate',
-};
+import { Button } from '@/components/ui/button';
+import { FieldError } from '@/components/ui/text-field';
+import { useUpdateCropOverrides } from '@/features/crops/api/update-crop-overrides';
+import { ParamOverrideForm } from '@/features/crops/components/param-override-form';
+import { ENUM_WORDS } from '@/features/crops/components/param-words';
 
 const round1 = (n: number) => String(Math.round(n * 10) / 10);
 
@@ -43,29 +33,72 @@ export function formatParam(p: Pick<CropParamDto, 'value' | 'unit' | 'kind'>, un
   }
 }
 
-function Param({ p, units }: { p: CropParamDto; units: DisplayUnit }) {
+function ConfidenceWord({ confidence }: { confidence: Confidence }) {
+  return <abbr title={CONFIDENCE_WORDS[confidence]}>{CONFIDENCE_WORDS[confidence].split(':')[0]}</abbr>;
+}
+
+function Param({ gardenId, cropKey, p, units, canEdit }: { gardenId: number; cropKey: string; p: CropParamDto; units: DisplayUnit; canEdit: boolean }) {
+  const [editing, setEditing] = useState(false);
+  const clear = useUpdateCropOverrides(gardenId, cropKey);
+  const overridden = p.origin === 'garden';
   return (
-    <div className="grid gap-1 border-b border-line py-2 sm:grid-cols-[14rem_8rem_1fr] sm:gap-3">
+    <div className="grid gap-1 border-b border-line py-2 sm:grid-cols-[14rem_9rem_1fr] sm:gap-3">
       <dt className="font-semibold">{p.label}</dt>
       <dd className="tabular-nums">
         {formatParam(p, units)}
-        {p.origin === 'garden' && <span className="ml-1 text-sm font-semibold text-frost">(this garden)</span>}
+        {overridden && (
+          <span className="mt-1 flex w-fit items-center gap-1 rounded-full border border-frost bg-frost-tint px-2 text-sm font-semibold text-frost">
+            <SlidersHorizontal className="size-3.5" aria-hidden="true" /> Overridden for this garden
+          </span>
+        )}
       </dd>
       <dd className="text-sm text-loam-soft">
-        <span className="font-semibold text-loam">Source:</span> {p.source}
-        {p.confidence && (
+        {overridden && p.libraryDefault ? (
           <>
-            {' '}
-            · <abbr title={CONFIDENCE_WORDS[p.confidence]}>{CONFIDENCE_WORDS[p.confidence].split(':')[0]}</abbr>
+            <span className="block">{p.source}.</span>
+            <span className="block">
+              <span className="font-semibold text-loam">Shared default:</span> {formatParam({ ...p, value: p.libraryDefault.value }, units)} · {p.libraryDefault.source} ·{' '}
+              <ConfidenceWord confidence={p.libraryDefault.confidence} />
+            </span>
+          </>
+        ) : (
+          <>
+            <span className="font-semibold text-loam">Source:</span> {p.source}
+            {p.confidence && (
+              <>
+                {' '}
+                · <ConfidenceWord confidence={p.confidence} />
+              </>
+            )}
           </>
         )}
-        {p.libraryDefault && <> · Library default: {formatParam({ ...p, value: p.libraryDefault.value }, units)} ({p.libraryDefault.source})</>}
+        {canEdit && !editing && (
+          <span className="mt-1 flex flex-wrap gap-2">
+            <Button variant="quiet" className="text-sm" aria-label={`${overridden ? 'Change' : 'Set'} ${p.label} for this garden`} onClick={() => setEditing(true)}>
+              <Pencil className="size-4" aria-hidden="true" /> {overridden ? 'Change' : 'Set for this garden'}
+            </Button>
+            {overridden && (
+              <Button
+                variant="quiet"
+                className="text-sm"
+                aria-label={`Use the shared default for ${p.label}`}
+                disabled={clear.isPending}
+                onClick={() => clear.mutate({ params: { [p.key]: null } })}
+              >
+                <Undo2 className="size-4" aria-hidden="true" /> Use shared default
+              </Button>
+            )}
+          </span>
+        )}
+        {clear.isError && <FieldError>{clear.error.message}</FieldError>}
       </dd>
+      {editing && <ParamOverrideForm gardenId={gardenId} cropKey={cropKey} param={p} units={units} onDone={() => setEditing(false)} />}
     </div>
   );
 }
 
-export function CropLibrary({ crops, units }: { crops: CropDto[]; units: DisplayUnit }) {
+/** `canEdit` is the owner's: crop values steer every planting's projection in the garden. */
+export function CropLibrary({ gardenId, crops, units, canEdit }: { gardenId: number; crops: CropDto[]; units: DisplayUnit; canEdit: boolean }) {
   return (
     <ul className="flex flex-col gap-3">
       {crops.map((crop) => {
@@ -80,7 +113,7 @@ export function CropLibrary({ crops, units }: { crops: CropDto[]; units: Display
                 <span className="text-sm">
                   {ENUM_WORDS[crop.season]} · base {formatParam(base, units)}
                   {upper.value !== null && ` · upper ${formatParam(upper, units)}`}
-                  {crop.overrides > 0 && ` · ${crop.overrides} value${crop.overrides === 1 ? '' : 's'} set for this garden`}
+                  {crop.overrides > 0 && ` · ${crop.overrides} value${crop.overrides === 1 ? '' : 's'} overridden for this garden`}
                 </span>
               </summary>
               <div className="px-4 pb-4">
@@ -89,7 +122,7 @@ export function CropLibrary({ crops, units }: { crops: CropDto[]; units: Display
                     <h3 className="mt-3 font-bold">{g}</h3>
                     <dl>
                       {crop.params.filter((p) => p.group === g).map((p) => (
-                        <Param key={p.key} p={p} units={units} />
+                        <Param key={p.key} gardenId={gardenId} cropKey={crop.key} p={p} units={units} canEdit={canEdit} />
                       ))}
                     </dl>
                   </section>

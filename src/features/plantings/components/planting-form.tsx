@@ -15,10 +15,12 @@ import {
 } from '#shared/schemas/plantings';
 import type { PlantingCreateInput, PlantingDto } from '#shared/schemas/plantings';
 import { applyServerFieldErrors } from '@/lib/form-errors';
+import { changedValues } from '@/lib/changed-values';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { FieldError, TextField } from '@/components/ui/text-field';
 import { useCreatePlanting } from '@/features/plantings/api/create-planting';
+import { useUpdatePlanting } from '@/features/plantings/api/update-planting';
 import { CONTROL } from '@/features/plantings/components/field-styles';
 
 export interface PlantingChoices {
@@ -52,21 +54,51 @@ function Select({ label, error, children, ...props }: React.SelectHTMLAttributes
   );
 }
 
+function valuesOf(p: PlantingDto): FormInput {
+  return {
+    bedId: p.bed.id,
+    varietyId: p.variety.id,
+    seedLotId: p.seedLot?.id ?? null,
+    method: p.method,
+    status: p.status,
+    quantity: p.quantity,
+    quantityUnit: p.quantityUnit,
+    sownOn: p.sownOn,
+    emergedOn: p.emergedOn,
+    thinnedOn: p.thinnedOn,
+    transplantedOn: p.transplantedOn,
+    firstHarvestOn: p.firstHarvestOn,
+    lastHarvestOn: p.lastHarvestOn,
+    boltedOn: p.boltedOn,
+    notes: p.notes,
+  };
+}
+
+/**
+ * Adds a planting, or with `planting` edits that one. The whole record is checked with the create
+ * schema, as the server checks the merged record; only the fields that changed are sent.
+ */
 export function PlantingForm({
   gardenId,
   choices,
   today,
+  planting,
   onSaved,
+  onCancel,
 }: {
   gardenId: number;
   choices: PlantingChoices;
   today: string;
+  planting?: PlantingDto;
   onSaved: (planting: PlantingDto) => void;
+  onCancel?: () => void;
 }) {
   const create = useCreatePlanting(gardenId);
+  const update = useUpdatePlanting(gardenId, planting?.id ?? 0);
+  const mutation = planting ? update : create;
   const form = useForm<FormInput, unknown, PlantingCreateInput>({
     resolver: zodResolver(plantingCreateSchema),
-    defaultValues: {
+    defaultValues: planting ? valuesOf(planting) : {
       seedLotId: null,
       method: 'direct-sow',
       status: 'growing',
@@ -87,21 +119,27 @@ export function PlantingForm({
   const varietyId = watch('varietyId');
   const lots = choices.seedLots.filter((l) => l.varietyId === Number(varietyId));
 
-  const onSubmit = handleSubmit((values) =>
-    create.mutateAsync(values).then(onSaved, (error: unknown) => {
+  // Read while rendering: react-hook-form only tracks the parts of formState that are read.
+  const dirtyFields = formState.dirtyFields;
+  const onSubmit = handleSubmit((values) => {
+    const changes = changedValues(values, dirtyFields);
+    // Nothing changed: close without asking the server to rewrite the same values.
+    if (planting && !Object.keys(changes).length) return onSaved(planting);
+    const saving = planting ? update.mutateAsync(changes) : create.mutateAsync(values);
+    return saving.then(onSaved, (error: unknown) => {
       applyServerFieldErrors(error, setError, FIELDS);
-    }),
-  );
+    });
+  });
 
   return (
-    <form onSubmit={onSubmit} noValidate className="flex flex-col gap-4" aria-label="New planting">
-      {create.isError && !Object.keys(errors).length && (
+    <form onSubmit={onSubmit} noValidate className="flex flex-col gap-4" aria-label={planting ? 'Edit planting' : 'New planting'}>
+      {mutation.isError && !Object.keys(errors).length && (
         <Notice tone="error" title="The planting was not saved" live="alert">
-          {create.error.message}
+          {mutation.error.message}
         </Notice>
       )}
       <div className="grid gap-4 sm:grid-cols-2">
-        <Select label="Bed" error={errors.bedId?.message} {...register('bedId', { setValueAs: idOrUndefined })} defaultValue="">
+        <Select label="Bed" error={errors.bedId?.message} {...register('bedId', { setValueAs: idOrUndefined })}>
           <option value="">Choose a bed…</option>
           {choices.beds.map((b) => (
             <option key={b.id} value={b.id}>
@@ -109,7 +147,7 @@ export function PlantingForm({
             </option>
           ))}
         </Select>
-        <Select label="Variety" error={errors.varietyId?.message} {...register('varietyId', { setValueAs: idOrUndefined })} defaultValue="">
+        <Select label="Variety" error={errors.varietyId?.message} {...register('varietyId', { setValueAs: idOrUndefined })}>
           <option value="">Choose a variety…</option>
           {choices.varieties.map((v) => (
             <option key={v.id} value={v.id}>
@@ -158,7 +196,7 @@ export function PlantingForm({
           {...register('transplantedOn', { setValueAs: dateOrNull })}
         />
       </div>
-      <details className="rounded-md border border-line px-4 py-2">
+      <details className="rounded-md border border-line px-4 py-2" open={planting ? STAGE_FIELDS.some((f) => f !== 'sownOn' && f !== 'transplantedOn' && planting[f]) : undefined}>
         <summary className="cursor-pointer py-1 font-semibold">More dates (emerged, harvested, bolted…)</summary>
         <div className="grid gap-4 py-3 sm:grid-cols-2">
           {STAGE_FIELDS.filter((f) => f !== 'sownOn' && f !== 'transplantedOn').map((f) => (
@@ -173,10 +211,15 @@ export function PlantingForm({
         <textarea id="planting-notes" rows={2} className={CONTROL} {...register('notes')} />
         {errors.notes?.message && <FieldError>{errors.notes.message}</FieldError>}
       </div>
-      <div>
+      <div className="flex flex-wrap gap-2">
         <Button type="submit" disabled={formState.isSubmitting}>
-          {formState.isSubmitting ? 'Saving…' : 'Save planting'}
+          {formState.isSubmitting ? 'Saving…' : planting ? 'Save changes' : 'Save planting'}
         </Button>
+        {onCancel && (
+          <Button variant="quiet" onClick={onCancel}>
+            Cancel
+          </Button>
+        )}
       </div>
     </form>
   );

@@ -1,12 +1,42 @@
 import { useState } from 'react';
 import { ImagePlus } from 'lucide-react';
+import type { PhotoDto } from '#shared/schemas/plantings';
 import { Button } from '@/components/ui/button';
+import { ConfirmDelete } from '@/components/ui/confirm-delete';
 import { Loading } from '@/components/ui/loading';
 import { Notice } from '@/components/ui/notice';
 import { usePhotos } from '@/features/plantings/api/get-photos';
 import { useUploadPhoto } from '@/features/plantings/api/upload-photo';
+import { useDeletePhoto } from '@/features/plantings/api/delete-photo';
 import { formatDay } from '@/features/plantings/components/format-day';
 import { CONTROL } from '@/features/plantings/components/field-styles';
+
+function Photo({ gardenId, photo: p, canEdit }: { gardenId: number; photo: PhotoDto; canEdit: boolean }) {
+  const remove = useDeletePhoto(gardenId, p.plantingId, p.id);
+  return (
+    <li className="flex flex-col gap-1">
+      <figure>
+        <img src={p.url} alt={p.caption || `Photo of ${formatDay(p.takenOn)}`} width={p.width} height={p.height} loading="lazy" className="h-auto w-full rounded-md border border-line" />
+        <figcaption className="text-sm">
+          {formatDay(p.takenOn)}
+          {p.caption && ` · ${p.caption}`}
+        </figcaption>
+      </figure>
+      {canEdit && (
+        <ConfirmDelete
+          compact
+          label={`Delete the photo of ${formatDay(p.takenOn)}`}
+          question="Delete this photo?"
+          consequence="The picture and its entry in the log are removed for good."
+          confirmLabel="Delete photo"
+          onConfirm={() => remove.mutate()}
+          pending={remove.isPending}
+          error={remove.error}
+        />
+      )}
+    </li>
+  );
+}
 
 export function PlantingPhotos({ gardenId, plantingId, canEdit }: { gardenId: number; plantingId: number; canEdit: boolean }) {
   const photos = usePhotos(gardenId, plantingId);
@@ -22,15 +52,7 @@ export function PlantingPhotos({ gardenId, plantingId, canEdit }: { gardenId: nu
       {photos.data && photos.data.length > 0 && (
         <ul className="grid grid-cols-2 gap-3 sm:grid-cols-3">
           {photos.data.map((p) => (
-            <li key={p.id}>
-              <figure>
-                <img src={p.url} alt={p.caption || `Photo of ${formatDay(p.takenOn)}`} width={p.width} height={p.height} loading="lazy" className="h-auto w-full rounded-md border border-line" />
-                <figcaption className="text-sm">
-                  {formatDay(p.takenOn)}
-                  {p.caption && ` · ${p.caption}`}
-                </figcaption>
-              </figure>
-            </li>
+            <Photo key={p.id} gardenId={gardenId} photo={p} canEdit={canEdit} />
           ))}
         </ul>
       )}

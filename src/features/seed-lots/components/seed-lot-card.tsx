@@ -1,10 +1,16 @@
 import { useState } from 'react';
-import { CircleCheck, CircleHelp, Hourglass, TriangleAlert, FlaskConical } from 'lucide-react';
-import type { SeedLotDto, ViabilityStatus } from '#shared/schemas/seed-lots';
+import { CircleCheck, CircleHelp, Hourglass, TriangleAlert, FlaskConical, Pencil } from 'lucide-react';
+import type { GerminationTestDto, SeedLotDto, ViabilityStatus } from '#shared/schemas/seed-lots';
 import { Button } from '@/components/ui/button';
+import { ConfirmDelete } from '@/components/ui/confirm-delete';
+import { Loading } from '@/components/ui/loading';
 import { FieldError } from '@/components/ui/text-field';
 import { useAddGerminationTest } from '@/features/seed-lots/api/add-germination-test';
+import { useDeleteGerminationTest } from '@/features/seed-lots/api/delete-germination-test';
+import { useDeleteSeedLot } from '@/features/seed-lots/api/delete-seed-lot';
+import { useSeedLot } from '@/features/seed-lots/api/get-seed-lot';
 import { useSeedsToSow } from '@/features/seed-lots/api/get-seeds-to-sow';
+import { SeedLotForm } from '@/features/seed-lots/components/seed-lot-form';
 
 const VIABILITY: Record<ViabilityStatus, { word: string; icon: typeof CircleCheck }> = {
   tested: { word: 'Tested', icon: FlaskConical },
@@ -63,9 +69,66 @@ function SeedsToSow({ gardenId, lot }: { gardenId: number; lot: SeedLotDto }) {
   );
 }
 
-export function SeedLotCard({ gardenId, lot, canEdit, today }: { gardenId: number; lot: SeedLotDto; canEdit: boolean; today: string }) {
+function TestRow({ gardenId, lotId, test: t }: { gardenId: number; lotId: number; test: GerminationTestDto }) {
+  const remove = useDeleteGerminationTest(gardenId, lotId, t.id);
+  return (
+    <li className="flex flex-wrap items-center justify-between gap-2 py-1">
+      <span>
+        {t.testedOn}: {Math.round(t.percent)} % ({t.germinated} of {t.seedsTested} seeds)
+        {t.notes && ` · ${t.notes}`}
+      </span>
+      <ConfirmDelete
+        compact
+        label={`Delete the germination test of ${t.testedOn}`}
+        question={`Delete the test of ${t.testedOn}?`}
+        consequence="Its counts are removed for good; the lot’s viability and seeds to sow then follow the test before it, if any."
+        confirmLabel="Delete test"
+        onConfirm={() => remove.mutate()}
+        pending={remove.isPending}
+        error={remove.error}
+      />
+    </li>
+  );
+}
+
+/** Every test of the lot, which only the single-lot answer carries; fetched once the panel opens. */
+function GerminationTests({ gardenId, lotId }: { gardenId: number; lotId: number }) {
+  const lot = useSeedLot(gardenId, lotId);
+  if (lot.isPending) return <Loading label="Loading the tests…" />;
+  if (lot.isError) return <FieldError>{lot.error.message}</FieldError>;
+  const tests = lot.data.tests ?? [];
+  if (!tests.length) return <p className="text-sm text-loam-soft">No germination tests yet.</p>;
+  return (
+    <section aria-label="Germination tests" className="text-sm">
+      <h3 className="font-semibold">Germination tests</h3>
+      <ul className="divide-y divide-line">
+        {tests.map((t) => <TestRow key={t.id} gardenId={gardenId} lotId={lotId} test={t} />)}
+      </ul>
+    </section>
+  );
+}
+
+export function SeedLotCard({
+  gardenId,
+  lot,
+  canEdit,
+  today,
+  varieties,
+}: {
+  gardenId: number;
+  lot: SeedLotDto;
+  canEdit: boolean;
+  today: string;
+  /** Choices for the variety when editing. */
+  varieties: { id: number; label: string }[];
+}) {
+  const [editing, setEditing] = useState(false);
+  const [open, setOpen] = useState(false);
+  const remove = useDeleteSeedLot(gardenId, lot.id);
+  if (editing) return <SeedLotForm gardenId={gardenId} varieties={varieties} lot={lot} onSaved={() => setEditing(false)} onCancel={() => setEditing(false)} />;
   const v = VIABILITY[lot.viability.status];
   const Icon = v.icon;
+  const title = `${lot.variety.name}${lot.lotNumber ? ` lot ${lot.lotNumber}` : ''}`;
   return (
     <article className="flex flex-col gap-3 rounded-lg border border-line bg-paper-raised p-4">
       <header>
@@ -88,13 +151,32 @@ export function SeedLotCard({ gardenId, lot, canEdit, today }: { gardenId: numbe
           <span><span className="font-semibold">Caution:</span> treated seed. Wear gloves, keep it from children, animals and feed, and follow the packet label.</span>
         </p>
       )}
-      <details>
-        <summary className="min-h-11 cursor-pointer py-2 font-semibold">Seeds to sow{canEdit ? ' and germination tests' : ''}</summary>
-        <div className="flex flex-col gap-3">
-          <SeedsToSow gardenId={gardenId} lot={lot} />
-          {canEdit && <GerminationTestForm gardenId={gardenId} lotId={lot.id} today={today} />}
-        </div>
+      <details onToggle={(e) => setOpen(e.currentTarget.open)}>
+        <summary className="min-h-11 cursor-pointer py-2 font-semibold">Seeds to sow and germination tests</summary>
+        {open && (
+          <div className="flex flex-col gap-3">
+            <SeedsToSow gardenId={gardenId} lot={lot} />
+            <GerminationTests gardenId={gardenId} lotId={lot.id} />
+            {canEdit && <GerminationTestForm gardenId={gardenId} lotId={lot.id} today={today} />}
+          </div>
+        )}
       </details>
+      {canEdit && (
+        <div className="flex flex-wrap gap-2 border-t border-line pt-3">
+          <Button variant="quiet" aria-label={`Edit seed lot ${title}`} onClick={() => setEditing(true)}>
+            <Pencil className="size-5" aria-hidden="true" /> Edit
+          </Button>
+          <ConfirmDelete
+            label={`Delete seed lot ${title}`}
+            question={`Delete this seed lot of ${lot.variety.name}?`}
+            consequence="The lot’s details and all its germination tests are removed for good. A lot that plantings were sown from cannot be deleted: they keep it on record."
+            confirmLabel="Delete seed lot"
+            onConfirm={() => remove.mutate()}
+            pending={remove.isPending}
+            error={remove.error}
+          />
+        </div>
+      )}
     </article>
   );
 }

@@ -2,30 +2,79 @@ import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import type { z } from 'zod';
 import { QUANTITY_UNITS, seedLotCreateSchema } from '#shared/schemas/seed-lots';
-import type { SeedLotCreateInput } from '#shared/schemas/seed-lots';
+import type { SeedLotCreateInput, SeedLotDto } from '#shared/schemas/seed-lots';
 import { applyServerFieldErrors } from '@/lib/form-errors';
+import { changedValues } from '@/lib/changed-values';
 import { Button } from '@/components/ui/button';
+import { Notice } from '@/components/ui/notice';
 import { FieldError, TextField } from '@/components/ui/text-field';
 import { useCreateSeedLot } from '@/features/seed-lots/api/create-seed-lot';
+import { useUpdateSeedLot } from '@/features/seed-lots/api/update-seed-lot';
 
 const CONTROL = 'min-h-11 w-full rounded-md border border-line bg-paper-raised px-3 py-2';
 const numberOrNull = (v: unknown) => (v === '' || v === undefined || v === null ? null : Number(v));
+const FIELDS = ['varietyId', 'supplier', 'lotNumber', 'packedForYear', 'quantity', 'quantityUnit', 'storageNotes'] as const;
 
-export function SeedLotForm({ gardenId, varieties, onSaved }: { gardenId: number; varieties: { id: number; label: string }[]; onSaved: () => void }) {
+function valuesOf(lot: SeedLotDto): z.input<typeof seedLotCreateSchema> {
+  return {
+    varietyId: lot.variety.id,
+    supplier: lot.supplier,
+    lotNumber: lot.lotNumber,
+    packedForYear: lot.packedForYear,
+    quantity: lot.quantity,
+    quantityUnit: lot.quantityUnit,
+    storageNotes: lot.storageNotes,
+  };
+}
+
+/** Adds a seed lot, or with `lot` edits that one and sends only the fields that changed. */
+export function SeedLotForm({
+  gardenId,
+  varieties,
+  lot,
+  onSaved,
+  onCancel,
+}: {
+  gardenId: number;
+  varieties: { id: number; label: string }[];
+  lot?: SeedLotDto;
+  onSaved: () => void;
+  onCancel?: () => void;
+}) {
   const create = useCreateSeedLot(gardenId);
+  const update = useUpdateSeedLot(gardenId, lot?.id ?? 0);
+  const mutation = lot ? update : create;
   const { register, handleSubmit, formState, setError } = useForm<z.input<typeof seedLotCreateSchema>, unknown, SeedLotCreateInput>({
     resolver: zodResolver(seedLotCreateSchema),
-    defaultValues: { supplier: '', lotNumber: '', packedForYear: null, quantity: null, quantityUnit: 'seeds', storageNotes: '' },
+    defaultValues: lot ? valuesOf(lot) : { supplier: '', lotNumber: '', packedForYear: null, quantity: null, quantityUnit: 'seeds', storageNotes: '' },
   });
   const e = formState.errors;
-  const onSubmit = handleSubmit((values) =>
-    create.mutateAsync(values).then(onSaved, (error: unknown) => applyServerFieldErrors(error, setError, ['varietyId', 'supplier', 'lotNumber', 'packedForYear', 'quantity', 'storageNotes'])),
-  );
+  // Read while rendering: react-hook-form only tracks the parts of formState that are read.
+  const dirtyFields = formState.dirtyFields;
+  const onSubmit = handleSubmit((values) => {
+    const changes = changedValues(values, dirtyFields);
+    // Nothing changed: close without asking the server to rewrite the same values.
+    if (lot && !Object.keys(changes).length) return onSaved();
+    const saving = lot ? update.mutateAsync(changes) : create.mutateAsync(values);
+    return saving.then(onSaved, (error: unknown) => applyServerFieldErrors(error, setError, FIELDS));
+  });
+  const idp = `lot-${lot?.id ?? 'new'}`;
   return (
-    <form onSubmit={onSubmit} noValidate aria-label="New seed lot" className="grid gap-3 rounded-lg border border-line bg-paper-raised p-4 sm:grid-cols-2">
+    <form
+      onSubmit={onSubmit}
+      noValidate
+      aria-label={lot ? `Edit seed lot of ${lot.variety.name}` : 'New seed lot'}
+      className="grid gap-3 rounded-lg border border-line bg-paper-raised p-4 sm:grid-cols-2"
+    >
+      {lot && <h2 className="text-lg font-bold sm:col-span-2">Edit seed lot of {lot.variety.cropName}: {lot.variety.name}</h2>}
       <div className="flex flex-col gap-1">
-        <label htmlFor="lot-variety" className="font-semibold">Variety</label>
-        <select id="lot-variety" className={CONTROL} defaultValue="" {...register('varietyId', { setValueAs: (v) => (v === '' ? undefined : Number(v)) })}>
+        <label htmlFor={`${idp}-variety`} className="font-semibold">Variety</label>
+        <select
+          id={`${idp}-variety`}
+          className={CONTROL}
+          aria-invalid={e.varietyId ? true : undefined}
+          {...register('varietyId', { setValueAs: (v) => (v === '' ? undefined : Number(v)) })}
+        >
           <option value="">Choose a variety…</option>
           {varieties.map((v) => <option key={v.id} value={v.id}>{v.label}</option>)}
         </select>
@@ -41,8 +90,14 @@ export function SeedLotForm({ gardenId, varieties, onSaved }: { gardenId: number
         </select>
       </div>
       <TextField label="Storage notes" error={e.storageNotes?.message} {...register('storageNotes')} />
-      <div>
-        <Button type="submit" disabled={formState.isSubmitting}>Save seed lot</Button>
+      {mutation.isError && !Object.keys(e).length && (
+        <div className="sm:col-span-2">
+          <Notice tone="error" title="The seed lot was not saved" live="alert">{mutation.error.message}</Notice>
+        </div>
+      )}
+      <div className="flex flex-wrap gap-2">
+        <Button type="submit" disabled={formState.isSubmitting}>{lot ? 'Save changes' : 'Save seed lot'}</Button>
+        {onCancel && <Button variant="quiet" onClick={onCancel}>Cancel</Button>}
       </div>
     </form>
   );

@@ -1,12 +1,15 @@
 import { useState } from 'react';
-import { Info, Sprout, TriangleAlert } from 'lucide-react';
+import { Info, Pencil, Sprout, TriangleAlert } from 'lucide-react';
 import type { DisplayUnit } from '#shared/schemas/gardens';
 import { DTM_FROM_WORDS, RATING_WORDS, TRAIT_WORDS } from '#shared/schemas/varieties';
 import type { VarietyDto } from '#shared/schemas/varieties';
 import { cDaysToFDays } from '#shared/thermal/units';
 import { Button } from '@/components/ui/button';
+import { ConfirmDelete } from '@/components/ui/confirm-delete';
 import { Loading } from '@/components/ui/loading';
 import { useVariety } from '@/features/varieties/api/get-variety';
+import { useDeleteVariety } from '@/features/varieties/api/delete-variety';
+import { VarietyForm } from '@/features/varieties/components/variety-form';
 
 const rating = (n: number | null) => (n === null ? '—' : `${RATING_WORDS[n]} (${n} of 5)`);
 const cm = (n: number | null) => (n === null ? '—' : `${n} cm`);
@@ -31,8 +34,11 @@ function Target({ gardenId, id, units }: { gardenId: number; id: number; units: 
   );
 }
 
-export function VarietyCard({ gardenId, variety: v, units }: { gardenId: number; variety: VarietyDto; units: DisplayUnit }) {
+export function VarietyCard({ gardenId, variety: v, units, canEdit }: { gardenId: number; variety: VarietyDto; units: DisplayUnit; canEdit: boolean }) {
   const [showTarget, setShowTarget] = useState(false);
+  const [editing, setEditing] = useState(false);
+  const remove = useDeleteVariety(gardenId, v.id);
+  if (editing) return <VarietyForm gardenId={gardenId} variety={v} onSaved={() => setEditing(false)} onCancel={() => setEditing(false)} />;
   const facts: [string, string][] = [
     ['Days to maturity', v.dtmDays === null ? '—' : `${v.dtmDays} days ${DTM_FROM_WORDS[v.dtmFrom]}`],
     ['Days to emergence', v.emergenceDaysMin === null && v.emergenceDaysMax === null ? '—' : `${v.emergenceDaysMin ?? '?'}–${v.emergenceDaysMax ?? '?'} days`],
@@ -85,6 +91,22 @@ export function VarietyCard({ gardenId, variety: v, units }: { gardenId: number;
         <Button variant="quiet" onClick={() => setShowTarget(true)} className="self-start">
           <Sprout className="size-5" aria-hidden="true" /> Show degree-day target
         </Button>
+      )}
+      {canEdit && (
+        <div className="flex flex-wrap gap-2 border-t border-line pt-3">
+          <Button variant="quiet" aria-label={`Edit variety ${v.name}`} onClick={() => setEditing(true)}>
+            <Pencil className="size-5" aria-hidden="true" /> Edit
+          </Button>
+          <ConfirmDelete
+            label={`Delete variety ${v.name}`}
+            question={`Delete the variety “${v.name}”?`}
+            consequence="Its packet facts, traits and notes are removed for good. A variety with plantings or seed lots on record cannot be deleted until those are deleted."
+            confirmLabel="Delete variety"
+            onConfirm={() => remove.mutate()}
+            pending={remove.isPending}
+            error={remove.error}
+          />
+        </div>
       )}
     </article>
   );

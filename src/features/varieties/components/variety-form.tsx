@@ -3,56 +3,78 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import type { z } from 'zod';
 import { CROP_LIBRARY } from '#shared/crops/library';
 import { DTM_FROM, DTM_FROM_WORDS, RATING_WORDS, TRAIT_WORDS, VARIETY_TRAITS, varietyCreateSchema } from '#shared/schemas/varieties';
-import type { VarietyCreateInput } from '#shared/schemas/varieties';
+import type { VarietyCreateInput, VarietyDto } from '#shared/schemas/varieties';
 import { applyServerFieldErrors } from '@/lib/form-errors';
+import { changedValues } from '@/lib/changed-values';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { FieldError, TextField } from '@/components/ui/text-field';
 import { useCreateVariety } from '@/features/varieties/api/create-variety';
+import { useUpdateVariety } from '@/features/varieties/api/update-variety';
 
 type FormInput = z.input<typeof varietyCreateSchema>;
 const numberOrNull = (v: unknown) => (v === '' || v === undefined || v === null ? null : Number(v));
 const CONTROL = 'min-h-11 w-full rounded-md border border-line bg-paper-raised px-3 py-2';
-const FIELDS = ['cropKey', 'name', 'dtmDays', 'dtmFrom', 'emergenceDaysMin', 'emergenceDaysMax', 'boltTolerance', 'heatTolerance', 'traits', 'sunHours', 'waterCmPerWeek', 'sowDepthCm', 'spacingCm', 'thinSpacingCm', 'notes'] as const;
+const FIELDS = ['cropKey', 'name', 'dtmDays', 'dtmFrom', 'emergenceDaysMin', 'emergenceDaysMax', 'boltTolerance', 'heatTolerance', 'traits', 'containerFriendly', 'sunHours', 'waterCmPerWeek', 'sowDepthCm', 'spacingCm', 'thinSpacingCm', 'notes'] as const;
 
-export function VarietyForm({ gardenId, onSaved }: { gardenId: number; onSaved: () => void }) {
+const EMPTY: FormInput = {
+  cropKey: 'lettuce', name: '', dtmDays: null, dtmFrom: 'sowing', emergenceDaysMin: null, emergenceDaysMax: null, boltTolerance: null, heatTolerance: null,
+  traits: [], containerFriendly: false, sunHours: null, waterCmPerWeek: null, sowDepthCm: null, spacingCm: null, thinSpacingCm: null, gddTargetOverrideC: null, notes: '',
+};
+
+function valuesOf(v: VarietyDto): FormInput {
+  const { id: _id, crop, guidance: _guidance, gddTarget: _target, ...fields } = v;
+  return { ...fields, cropKey: crop.key };
+}
+
+/** Adds a variety, or with `variety` edits that one and sends only the fields that changed. */
+export function VarietyForm({ gardenId, variety, onSaved, onCancel }: { gardenId: number; variety?: VarietyDto; onSaved: () => void; onCancel?: () => void }) {
   const create = useCreateVariety(gardenId);
+  const update = useUpdateVariety(gardenId, variety?.id ?? 0);
+  const mutation = variety ? update : create;
   const { register, handleSubmit, formState, setError } = useForm<FormInput, unknown, VarietyCreateInput>({
     resolver: zodResolver(varietyCreateSchema),
-    defaultValues: {
-      cropKey: 'lettuce', name: '', dtmDays: null, dtmFrom: 'sowing', emergenceDaysMin: null, emergenceDaysMax: null, boltTolerance: null, heatTolerance: null,
-      traits: [], containerFriendly: false, sunHours: null, waterCmPerWeek: null, sowDepthCm: null, spacingCm: null, thinSpacingCm: null, gddTargetOverrideC: null, notes: '',
-    },
+    defaultValues: variety ? valuesOf(variety) : EMPTY,
   });
   const e = formState.errors;
   const num = (name: Parameters<typeof register>[0]) => register(name, { setValueAs: numberOrNull });
-  const onSubmit = handleSubmit((values) =>
-    create.mutateAsync(values).then(onSaved, (error: unknown) => applyServerFieldErrors(error, setError, FIELDS)),
-  );
+  // Read while rendering: react-hook-form only tracks the parts of formState that are read.
+  const dirtyFields = formState.dirtyFields;
+  const onSubmit = handleSubmit((values) => {
+    const changes = changedValues(values, dirtyFields);
+    // Nothing changed: close without asking the server to rewrite the same values.
+    if (variety && !Object.keys(changes).length) return onSaved();
+    const saving = variety ? update.mutateAsync(changes) : create.mutateAsync(values);
+    return saving.then(onSaved, (error: unknown) => applyServerFieldErrors(error, setError, FIELDS));
+  });
+  const idp = `v${variety?.id ?? 'new'}`;
   const ratingSelect = (name: 'boltTolerance' | 'heatTolerance', label: string) => (
     <div className="flex flex-col gap-1">
-      <label htmlFor={`v-${name}`} className="font-semibold">{label}</label>
-      <select id={`v-${name}`} className={CONTROL} {...num(name)}>
+      <label htmlFor={`${idp}-${name}`} className="font-semibold">{label}</label>
+      <select id={`${idp}-${name}`} className={CONTROL} {...num(name)}>
         <option value="">Not known</option>
         {[1, 2, 3, 4, 5].map((n) => <option key={n} value={n}>{RATING_WORDS[n]} ({n} of 5)</option>)}
       </select>
     </div>
   );
   return (
-    <form onSubmit={onSubmit} noValidate aria-label="New variety" className="grid gap-3 rounded-lg border border-line bg-paper-raised p-4 sm:grid-cols-2">
+    <form onSubmit={onSubmit} noValidate aria-label={variety ? `Edit variety ${variety.name}` : 'New variety'} className="grid gap-3 rounded-lg border border-line bg-paper-raised p-4 sm:grid-cols-2">
+      {variety && <h2 className="text-lg font-bold sm:col-span-2">Edit “{variety.name}”</h2>}
       <div className="flex flex-col gap-1">
-        <label htmlFor="v-crop" className="font-semibold">Crop</label>
-        <select id="v-crop" className={CONTROL} {...register('cropKey')}>
+        <label htmlFor={`${idp}-crop`} className="font-semibold">Crop</label>
+        <select id={`${idp}-crop`} className={CONTROL} {...register('cropKey')}>
           {CROP_LIBRARY.map((c) => <option key={c.key} value={c.key}>{c.name}</option>)}
         </select>
+        {e.cropKey?.message && <FieldError>{e.cropKey.message}</FieldError>}
       </div>
       <TextField label="Variety name" error={e.name?.message} {...register('name')} />
       <TextField label="Days to maturity" unit="days" inputMode="numeric" error={e.dtmDays?.message} {...num('dtmDays')} />
       <div className="flex flex-col gap-1">
-        <label htmlFor="v-from" className="font-semibold">Counted from</label>
-        <select id="v-from" className={CONTROL} {...register('dtmFrom')}>
+        <label htmlFor={`${idp}-from`} className="font-semibold">Counted from</label>
+        <select id={`${idp}-from`} className={CONTROL} {...register('dtmFrom')}>
           {DTM_FROM.map((f) => <option key={f} value={f}>{DTM_FROM_WORDS[f]}</option>)}
         </select>
+        {e.dtmFrom?.message && <FieldError>{e.dtmFrom.message}</FieldError>}
       </div>
       <TextField label="Days to emergence, fewest" unit="days" inputMode="numeric" error={e.emergenceDaysMin?.message} {...num('emergenceDaysMin')} />
       <TextField label="Days to emergence, most" unit="days" inputMode="numeric" error={e.emergenceDaysMax?.message} {...num('emergenceDaysMax')} />
@@ -78,9 +100,10 @@ export function VarietyForm({ gardenId, onSaved }: { gardenId: number; onSaved: 
       <TextField label="Sun" unit="h a day" inputMode="decimal" error={e.sunHours?.message} {...num('sunHours')} />
       <TextField label="Water" unit="cm a week" inputMode="decimal" error={e.waterCmPerWeek?.message} {...num('waterCmPerWeek')} />
       <TextField label="Notes" error={e.notes?.message} {...register('notes')} />
-      {create.isError && !Object.keys(e).length && <div className="sm:col-span-2"><Notice tone="error" live="alert">{create.error.message}</Notice></div>}
-      <div>
-        <Button type="submit" disabled={formState.isSubmitting}>Save variety</Button>
+      {mutation.isError && !Object.keys(e).length && <div className="sm:col-span-2"><Notice tone="error" live="alert">{mutation.error.message}</Notice></div>}
+      <div className="flex flex-wrap gap-2">
+        <Button type="submit" disabled={formState.isSubmitting}>{variety ? 'Save changes' : 'Save variety'}</Button>
+        {onCancel && <Button variant="quiet" onClick={onCancel}>Cancel</Button>}
       </div>
     </form>
   );

@@ -3,13 +3,14 @@ import { useForm } from 'react-hook-form';
 import { FileUp, LoaderCircle } from 'lucide-react';
 import { UNITS } from '#shared/schemas/gardens';
 import type { DisplayUnit } from '#shared/schemas/gardens';
-import type { CsvRowError, WeatherImportResult } from '#shared/schemas/weather';
+import type { WeatherImportResult } from '#shared/schemas/weather';
+import type { ApiError } from '@/lib/api-client';
 import { UNIT_WORDS } from '@/lib/format';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
+import { RowReport } from '@/components/ui/row-report';
 import { FieldError } from '@/components/ui/text-field';
 import { useImportWeatherCsv } from '@/features/weather/api/import-weather-csv';
-import type { WeatherImportError } from '@/features/weather/api/import-weather-csv';
 import { formatCount, formatDayRange } from '@/features/weather/utils/format-weather';
 
 const MAX_BYTES = 2 * 1024 * 1024;
@@ -32,31 +33,6 @@ function checkFile(files: FileList | null): true | string {
   return true;
 }
 
-function RowReport({ rows }: { rows: CsvRowError[] }) {
-  return (
-    <div className="mt-2 overflow-x-auto rounded-md border border-line bg-paper-raised" tabIndex={0} role="region" aria-label="Rows to fix">
-      <table className="w-full border-collapse text-sm">
-        <thead>
-          <tr className="border-b border-line text-left">
-            <th scope="col" className="px-3 py-1.5">Line</th>
-            <th scope="col" className="px-3 py-1.5">Column</th>
-            <th scope="col" className="px-3 py-1.5">What to fix</th>
-          </tr>
-        </thead>
-        <tbody>
-          {rows.map((row, k) => (
-            <tr key={`${row.line}-${row.column ?? ''}-${k}`} className="border-b border-line/60 last:border-b-0">
-              <td className="px-3 py-1.5 tabular-nums">{row.line}</td>
-              <td className="px-3 py-1.5">{row.column ?? 'whole row'}</td>
-              <td className="px-3 py-1.5">{row.message}</td>
-            </tr>
-          ))}
-        </tbody>
-      </table>
-    </div>
-  );
-}
-
 function ImportOutcome({ result }: { result: WeatherImportResult }) {
   if (result.alreadyImported) {
     return (
@@ -74,7 +50,7 @@ function ImportOutcome({ result }: { result: WeatherImportResult }) {
   );
 }
 
-function ImportFailure({ error }: { error: WeatherImportError }) {
+function ImportFailure({ error }: { error: ApiError }) {
   if (error.code === 'csv_invalid') {
     return (
       <Notice tone="error" title="Nothing was imported" live="alert">

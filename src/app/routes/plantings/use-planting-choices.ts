@@ -1,0 +1,27 @@
+import type { SeedLotDto } from '#shared/schemas/seed-lots';
+import { useBeds } from '@/features/beds/api/get-beds';
+import { useVarieties } from '@/features/varieties/api/get-varieties';
+import { useSeedLots } from '@/features/seed-lots/api/get-seed-lots';
+import type { PlantingChoices } from '@/features/plantings/components/planting-form';
+
+const lotLabel = (l: SeedLotDto) =>
+  [l.lotNumber && `Lot ${l.lotNumber}`, l.packedForYear && `packed for ${l.packedForYear}`].filter(Boolean).join(', ') || 'Unlabelled lot';
+
+/** The garden's beds, varieties and seed lots as the planting form offers them; composed here because features do not import each other. */
+export type PlantingChoicesState = { status: 'pending' } | { status: 'error' } | { status: 'success'; choices: PlantingChoices };
+
+export function usePlantingChoices(gardenId: number): PlantingChoicesState {
+  const beds = useBeds(gardenId);
+  const varieties = useVarieties(gardenId);
+  const lots = useSeedLots(gardenId);
+  if (beds.isError || varieties.isError || lots.isError) return { status: 'error' };
+  if (!beds.data || !varieties.data || !lots.data) return { status: 'pending' };
+  return {
+    status: 'success',
+    choices: {
+      beds: beds.data.items,
+      varieties: varieties.data.items.map((v) => ({ id: v.id, name: v.name, cropName: v.crop.name })),
+      seedLots: lots.data.items.map((l) => ({ id: l.id, varietyId: l.variety.id, label: lotLabel(l) })),
+    },
+  };
+}

@@ -1,0 +1,48 @@
+import { useState } from 'react';
+import { Box, Fence, LayoutGrid, Pencil, Rows3, Square } from 'lucide-react';
+import { BED_KIND_WORDS } from '#shared/schemas/beds';
+import type { BedDto, BedKind } from '#shared/schemas/beds';
+import { Button } from '@/components/ui/button';
+import { ConfirmDelete } from '@/components/ui/confirm-delete';
+import { useDeleteBed } from '@/features/beds/api/delete-bed';
+import { BedForm } from '@/features/beds/components/bed-form';
+
+const ICON: Record<BedKind, typeof Box> = { bed: Square, 'raised-bed': LayoutGrid, plot: Fence, row: Rows3, container: Box };
+const size = (n: number | null) => (n === null ? '—' : `${n} m`);
+
+export function BedCard({ gardenId, bed: b, canEdit }: { gardenId: number; bed: BedDto; canEdit: boolean }) {
+  const [editing, setEditing] = useState(false);
+  const remove = useDeleteBed(gardenId, b.id);
+  if (editing) return <BedForm gardenId={gardenId} bed={b} onDone={() => setEditing(false)} />;
+  const Icon = ICON[b.kind];
+  return (
+    <article className="flex h-full flex-col gap-1 rounded-lg border border-line bg-paper-raised p-4">
+      <h2 className="flex items-center gap-2 text-lg font-bold">
+        <Icon className="size-5" aria-hidden="true" /> {b.name}
+      </h2>
+      <p className="text-sm text-loam-soft">{BED_KIND_WORDS[b.kind]}</p>
+      <p>
+        {size(b.lengthM)} × {size(b.widthM)}
+        {b.areaM2 !== null && ` · ${b.areaM2} m²`}
+      </p>
+      <p>{b.activePlantings} growing or planned now</p>
+      {b.notes && <p className="text-sm">{b.notes}</p>}
+      {canEdit && (
+        <div className="mt-auto flex flex-wrap gap-2 pt-2">
+          <Button variant="quiet" aria-label={`Edit bed ${b.name}`} onClick={() => setEditing(true)}>
+            <Pencil className="size-5" aria-hidden="true" /> Edit
+          </Button>
+          <ConfirmDelete
+            label={`Delete bed ${b.name}`}
+            question={`Delete the bed “${b.name}”?`}
+            consequence="Its name, size and notes are removed for good. A bed with plantings on record, past or present, cannot be deleted: those plantings would lose their place."
+            confirmLabel="Delete bed"
+            onConfirm={() => remove.mutate()}
+            pending={remove.isPending}
+            error={remove.error}
+          />
+        </div>
+      )}
+    </article>
+  );
+}

@@ -1,0 +1,4 @@
+export const cropKeys = {
+  all: (gardenId: number) => ['crops', gardenId] as const,
+  list: (gardenId: number) => ['crops', gardenId, 'list'] as const,
+};

@@ -1,0 +1,17 @@
+export const ENUM_WORDS: Record<string, string> = {
+  cool: 'Cool-season',
+  warm: 'Warm-season',
+  'very-hardy': 'Very hardy',
+  'frost-tolerant': 'Frost tolerant',
+  tender: 'Tender',
+  'warm-loving': 'Warm-loving',
+  'single-sine': 'Single sine',
+  'single-triangle': 'Single triangle',
+  'double-sine': 'Double sine',
+  'double-triangle': 'Double triangle',
+  average: 'Average',
+  'clamped-average': 'Clamped average',
+  horizontal: 'Horizontal',
+  vertical: 'Vertical',
+  intermediate: 'Intermediate',
+};

@@ -1,0 +1,17 @@
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+import type { VarietyDto, VarietyUpdateInput } from '#shared/schemas/varieties';
+import { api } from '@/lib/api-client';
+import { varietyKeys } from '@/features/varieties/api/variety-keys';
+
+export async function updateVariety(gardenId: number, varietyId: number, input: VarietyUpdateInput): Promise<VarietyDto> {
+  return (await api.patch<{ variety: VarietyDto }>(`/api/gardens/${gardenId}/varieties/${varietyId}`, input)).variety;
+}
+
+export function useUpdateVariety(gardenId: number, varietyId: number) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (input: VarietyUpdateInput) => updateVariety(gardenId, varietyId, input),
+    // The degree-day target follows from days to maturity, so the detail is stale too.
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: varietyKeys.all(gardenId) }),
+  });
+}
