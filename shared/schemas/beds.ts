@@ -43,6 +43,8 @@ export interface BedDto {
   notes: string;
   /** Plantings in this bed that are planned or growing. */
   activePlantings: number;
+  /** Every planting on record in this bed, past ones included; a bed with any cannot be deleted. */
+  plantingsOnRecord: number;
 }
 
 export type BedPage = Page<BedDto>;

@@ -10,7 +10,7 @@ describe('beds', () => {
     const { clients, base } = await gardenWithClients(app);
     const created = await clients.grower.post(`${base}/beds`).send({ name: 'Herb spiral', kind: 'bed', lengthM: 2, widthM: 1.5 });
     expect(created.status).toBe(201);
-    expect(created.body.bed).toMatchObject({ name: 'Herb spiral', kind: 'bed', areaM2: 3, notes: '', activePlantings: 0 });
+    expect(created.body.bed).toMatchObject({ name: 'Herb spiral', kind: 'bed', areaM2: 3, notes: '', activePlantings: 0, plantingsOnRecord: 0 });
     const id = created.body.bed.id;
     const renamed = await clients.grower.patch(`${base}/beds/${id}`).send({ name: 'Spiral', kind: 'container' });
     expect(renamed.body.bed).toMatchObject({ name: 'Spiral', kind: 'container' });
@@ -52,7 +52,9 @@ describe('beds', () => {
 
   it('when a bed has plantings, then it cannot be deleted; another garden’s bed is not found', async () => {
     const { clients, base, garden } = await gardenWithClients(app);
-    const p = await makePlanting(garden.id);
+    const p = await makePlanting(garden.id, { status: 'harvested', firstHarvestOn: '2025-05-20', lastHarvestOn: '2025-05-30' } as never);
+    const shown = await clients.viewer.get(`${base}/beds/${p.bedId}`).expect(200);
+    expect(shown.body.bed).toMatchObject({ activePlantings: 0, plantingsOnRecord: 1 });
     expect((await clients.grower.delete(`${base}/beds/${p.bedId}`)).status).toBe(409);
     const other = await makeBed((await createGarden()).id);
     expect((await clients.grower.get(`${base}/beds/${other.id}`)).status).toBe(404);

@@ -130,11 +130,23 @@ describe('deleting', () => {
     expect(seen.filter((r) => r.method === 'DELETE')).toHaveLength(0);
   });
 
-  it('when a bed still has plantings, then the 409 is explained in words and the bed stays', async () => {
+  it('when a bed has plantings on record, then it offers no delete and says why', async () => {
     server.use(
       signedInAs(grower),
       ...memberOf([aGarden({ role: 'grower' })]),
-      http.get('/api/gardens/1/beds', () => HttpResponse.json(page(1, [aBed()]))),
+      http.get('/api/gardens/1/beds', () => HttpResponse.json(page(1, [aBed({ plantingsOnRecord: 4 })]))),
+    );
+    renderApp('/g/1/beds');
+
+    expect(await screen.findByText('Kept: its plantings on record need their place.')).toBeTruthy();
+    expect(screen.queryByRole('button', { name: 'Delete bed North 1' })).toBeNull();
+  });
+
+  it('when a planting lands in a bed just before it is deleted, then the 409 is explained in words and the bed stays', async () => {
+    server.use(
+      signedInAs(grower),
+      ...memberOf([aGarden({ role: 'grower' })]),
+      http.get('/api/gardens/1/beds', () => HttpResponse.json(page(1, [aBed({ plantingsOnRecord: 0 })]))),
       http.delete('/api/gardens/1/beds/3', () =>
         HttpResponse.json({ error: { code: 'in_use', message: 'This bed has 6 plantings on record; move or delete them first.' } }, { status: 409 }),
       ),
@@ -142,7 +154,7 @@ describe('deleting', () => {
     const { user } = renderApp('/g/1/beds');
 
     await user.click(await screen.findByRole('button', { name: 'Delete bed North 1' }));
-    expect(screen.getByText(/A bed with plantings on record, past or present, cannot be deleted/)).toBeTruthy();
+    expect(screen.getByText('Its name, size and notes are removed for good.')).toBeTruthy();
     await user.click(screen.getByRole('button', { name: 'Delete bed' }));
 
     const alert = await screen.findByRole('alert');

@@ -34,7 +34,10 @@ describe('planting CSV import', () => {
             error: {
               code: 'import_invalid',
               message: 'Nothing was imported: 2 problems in the file.',
-              fields: { 'line 2, bed': 'No bed named "South 9" in this garden.', 'line 2, status': 'Status must be planned, growing, harvested, bolted or failed.' },
+              rows: [
+                { line: 2, column: 'bed', message: 'No bed named "South 9" in this garden.' },
+                { line: 2, column: 'status', message: 'Status must be planned, growing, harvested, bolted or failed.' },
+              ],
             },
           },
           { status: 422 },

@@ -1,7 +1,8 @@
 import type { BedDto } from '#shared/schemas/beds';
 import type { Bed } from '../../db/models';
+import type { BedCounts } from './beds.service';
 
-export function presentBed(b: Bed, activePlantings: number): BedDto {
+export function presentBed(b: Bed, counts: BedCounts = { active: 0, onRecord: 0 }): BedDto {
   return {
     id: b.id,
     name: b.name,
@@ -10,6 +11,7 @@ export function presentBed(b: Bed, activePlantings: number): BedDto {
     widthM: b.widthM,
     areaM2: b.lengthM !== null && b.widthM !== null ? Math.round(b.lengthM * b.widthM * 100) / 100 : null,
     notes: b.notes,
-    activePlantings,
+    activePlantings: counts.active,
+    plantingsOnRecord: counts.onRecord,
   };
 }

@@ -5,14 +5,14 @@ import { mountRoutes } from '../../lib/routes';
 import type { RouteTableEntry } from '../../lib/routes';
 import { recordId } from '../records/params';
 import { pageOf } from '../records/paging';
-import { activeCounts, createBed, deleteBed, getBed, listBeds, updateBed } from './beds.service';
+import { plantingCounts, createBed, deleteBed, getBed, listBeds, updateBed } from './beds.service';
 import { presentBed } from './beds.presenter';
 
 export function bedsRouter(table: RouteTableEntry[]) {
   const router = Router();
   const one = async (gardenId: number, bedId: number) => {
     const bed = await getBed(gardenId, bedId);
-    return presentBed(bed, (await activeCounts(gardenId, [bed.id])).get(bed.id) ?? 0);
+    return presentBed(bed, (await plantingCounts(gardenId, [bed.id])).get(bed.id));
   };
   mountRoutes(
     router,
@@ -24,8 +24,8 @@ export function bedsRouter(table: RouteTableEntry[]) {
         access: 'viewer',
         handler: async (req, res) => {
           const q = parseQuery(bedListQuerySchema, req.query);
-          const { rows, count, active } = await listBeds(req.membership!.gardenId, q);
-          res.json(pageOf(rows.map((b) => presentBed(b, active.get(b.id) ?? 0)), count, q));
+          const { rows, count, counts } = await listBeds(req.membership!.gardenId, q);
+          res.json(pageOf(rows.map((b) => presentBed(b, counts.get(b.id))), count, q));
         },
       },
       {
@@ -34,7 +34,7 @@ export function bedsRouter(table: RouteTableEntry[]) {
         access: 'grower',
         handler: async (req, res) => {
           const bed = await createBed(req.membership!.gardenId, parseBody(bedCreateSchema, req.body));
-          res.status(201).json({ bed: presentBed(bed, 0) });
+          res.status(201).json({ bed: presentBed(bed) });
         },
       },
       {

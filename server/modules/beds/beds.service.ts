@@ -1,4 +1,4 @@
-import { Op, fn, col } from 'sequelize';
+import { Op, fn, col, literal } from 'sequelize';
 import type { WhereOptions } from 'sequelize';
 import type { BedCreateInput, BedUpdateInput, bedListQuerySchema } from '#shared/schemas/beds';
 import type { z } from 'zod';
@@ -16,19 +16,24 @@ export async function listBeds(gardenId: number, q: BedListQuery) {
   if (q.q) Object.assign(where, { name: { [Op.like]: likeText(q.q) } });
   if (q.kind) Object.assign(where, { kind: q.kind });
   const { rows, count } = await Bed.findAndCountAll({ where, order: [['name', 'ASC'], ['id', 'ASC']], ...limitOffset(q) });
-  return { rows, count, active: await activeCounts(gardenId, rows.map((b) => b.id)) };
+  return { rows, count, counts: await plantingCounts(gardenId, rows.map((b) => b.id)) };
 }
 
-/** Planned or growing plantings per bed, for the beds shown. */
-export async function activeCounts(gardenId: number, bedIds: number[]): Promise<Map<number, number>> {
+export interface BedCounts {
+  active: number;
+  onRecord: number;
+}
+
+/** Planned or growing plantings, and all plantings on record, per bed, for the beds shown. */
+export async function plantingCounts(gardenId: number, bedIds: number[]): Promise<Map<number, BedCounts>> {
   if (!bedIds.length) return new Map();
   const rows = (await Planting.findAll({
-    attributes: ['bedId', [fn('COUNT', col('id')), 'n']],
-    where: { gardenId, bedId: bedIds, status: ['planned', 'growing'] },
+    attributes: ['bedId', [fn('COUNT', col('id')), 'onRecord'], [literal("SUM(status IN ('planned', 'growing'))"), 'active']],
+    where: { gardenId, bedId: bedIds },
     group: ['bedId'],
     raw: true,
-  })) as unknown as { bedId: number; n: number }[];
-  return new Map(rows.map((r) => [r.bedId, Number(r.n)]));
+  })) as unknown as { bedId: number; onRecord: number; active: number }[];
+  return new Map(rows.map((r) => [r.bedId, { active: Number(r.active), onRecord: Number(r.onRecord) }]));
 }
 
 export async function getBed(gardenId: number, bedId: number) {

@@ -134,16 +134,22 @@ function parseRows(buffer: Buffer): { header: string[]; records: { line: number;
     });
   } catch (err) {
     const e = err as { message?: string; lines?: number };
-    throw new AppError(422, 'import_invalid', 'The file could not be read as CSV.', { [`line ${e.lines ?? 1}`]: e.message ?? 'Malformed CSV.' });
+    reject([{ line: e.lines ?? 1, column: '', message: e.message ?? 'Malformed CSV.' }], 'The file could not be read as CSV.');
   }
   return { header, records: parsed.map((p) => ({ line: p.info.lines, cells: p.record })) };
 }
 
-function reject(problems: ImportProblem[]): never {
+/** A 422 whose `rows` list each problem by line and column, the same report the weather import gives. */
+function reject(problems: ImportProblem[], headline?: string): never {
   const shown = problems.slice(0, 50);
-  const fields = Object.fromEntries(shown.map((p) => [`line ${p.line}, ${p.column}`, p.message]));
   const more = problems.length > shown.length ? ` (showing the first ${shown.length})` : '';
-  throw new AppError(422, 'import_invalid', `Nothing was imported: ${problems.length} problem${problems.length === 1 ? '' : 's'} in the file${more}.`, fields);
+  const err = new AppError(
+    422,
+    'import_invalid',
+    headline ?? `Nothing was imported: ${problems.length} problem${problems.length === 1 ? '' : 's'} in the file${more}.`,
+  );
+  err.extra = { rows: shown.map((p) => ({ line: p.line, column: p.column || null, message: p.message })) };
+  throw err;
 }
 
 const sameLog = (a: PlantingLog, b: LogEntryCreateInput) =>

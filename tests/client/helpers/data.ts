@@ -49,7 +49,7 @@ export function aPlanting(overrides: Partial<PlantingDto> = {}): PlantingDto {
 }
 
 export function aBed(overrides: Partial<BedDto> = {}): BedDto {
-  return { id: 3, name: 'North 1', kind: 'raised-bed', lengthM: 2.4, widthM: 1.2, areaM2: 2.88, notes: '', activePlantings: 2, ...overrides };
+  return { id: 3, name: 'North 1', kind: 'raised-bed', lengthM: 2.4, widthM: 1.2, areaM2: 2.88, notes: '', activePlantings: 2, plantingsOnRecord: 5, ...overrides };
 }
 
 /** A crop with a few of its parameters, enough for the library page. */

@@ -25,22 +25,28 @@ export function BedCard({ gardenId, bed: b, canEdit }: { gardenId: number; bed: 
         {size(b.lengthM)} × {size(b.widthM)}
         {b.areaM2 !== null && ` · ${b.areaM2} m²`}
       </p>
-      <p>{b.activePlantings} growing or planned now</p>
+      <p>
+        {b.activePlantings} growing or planned now · {b.plantingsOnRecord} on record in all
+      </p>
       {b.notes && <p className="text-sm">{b.notes}</p>}
       {canEdit && (
         <div className="mt-auto flex flex-wrap gap-2 pt-2">
           <Button variant="quiet" aria-label={`Edit bed ${b.name}`} onClick={() => setEditing(true)}>
             <Pencil className="size-5" aria-hidden="true" /> Edit
           </Button>
-          <ConfirmDelete
-            label={`Delete bed ${b.name}`}
-            question={`Delete the bed “${b.name}”?`}
-            consequence="Its name, size and notes are removed for good. A bed with plantings on record, past or present, cannot be deleted: those plantings would lose their place."
-            confirmLabel="Delete bed"
-            onConfirm={() => remove.mutate()}
-            pending={remove.isPending}
-            error={remove.error}
-          />
+          {b.plantingsOnRecord === 0 ? (
+            <ConfirmDelete
+              label={`Delete bed ${b.name}`}
+              question={`Delete the bed “${b.name}”?`}
+              consequence="Its name, size and notes are removed for good."
+              confirmLabel="Delete bed"
+              onConfirm={() => remove.mutate()}
+              pending={remove.isPending}
+              error={remove.error}
+            />
+          ) : (
+            <p className="self-center text-sm text-loam-soft">Kept: its plantings on record need their place.</p>
+          )}
         </div>
       )}
     </article>

@@ -14,7 +14,7 @@ import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { RowReport } from '@/components/ui/row-report';
 import { FieldError } from '@/components/ui/text-field';
-import { importProblems, useImportPlantings } from '@/features/plantings/api/import-plantings';
+import { useImportPlantings } from '@/features/plantings/api/import-plantings';
 
 const MAX_BYTES = 2 * 1024 * 1024;
 const DATE = 'a date, YYYY-MM-DD';
@@ -74,7 +74,7 @@ function Summary({ report: r }: { report: ImportReport }) {
 }
 
 function Failure({ error }: { error: ApiError }) {
-  const rows = importProblems(error);
+  const rows = error.rows;
   return (
     <Notice tone="error" title="Nothing was imported" live="alert">
       <p>
