@@ -6,7 +6,6 @@ import { chromium } from 'playwright-core';
 import type { Browser, Page } from 'playwright-core';
 import { createApp } from '../../server/app';
 import { projectRoot } from '../../server/config';
-import { seedDemo } from '../../server/db/seeders/demo';
 import { testDb } from './test-app';
 
 export const CHROMIUM = '/usr/bin/chromium';
@@ -19,8 +18,8 @@ export async function startBrowserSession() {
   if (!existsSync(CHROMIUM)) throw new Error('Chromium is missing: scripts/browser.sh installs it (apt-get install chromium)');
   const clientDir = path.join(projectRoot, 'dist', 'client');
   if (!existsSync(path.join(clientDir, 'index.html'))) throw new Error('The client is not built: run npx vite build');
+  // The demo accounts and gardens are seeded once per run by the global setup.
   const { sequelize, config } = testDb();
-  await seedDemo(sequelize);
   const app = createApp({ config, sequelize, clientDir });
   const server: Server = await new Promise((resolve) => {
     const s = app.listen(0, '127.0.0.1', () => resolve(s));
@@ -60,7 +59,7 @@ export async function startBrowserSession() {
     await browser.close();
     await new Promise((r) => server.close(r));
   }
-  return { baseUrl, newPage, close, offsite, pageErrors };
+  return { app, baseUrl, newPage, close, offsite, pageErrors };
 }
 
 export async function signInAs(page: Page, baseUrl: string, email: string, password = 'heatclock-demo') {

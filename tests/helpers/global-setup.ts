@@ -1,8 +1,13 @@
 import { loadConfig } from '../../server/config';
 import { createSequelize } from '../../server/db/sequelize';
 import { migrate } from '../../server/db/migrate';
+import { initModels } from '../../server/db/models';
+import { seedDemo } from '../../server/db/seeders/demo';
 
-/** Brings the test database's schema up to date once per run (scripts/test.sh has started MariaDB). */
+/**
+ * Once per run: brings the test database's schema up to date and seeds the invented demo the
+ * browser tests sign in to (scripts/test.sh has started MariaDB).
+ */
 export default async function setup() {
   if (process.env.HEATCLOCK_NO_DB) return;
   process.env.NODE_ENV = 'test';
@@ -10,6 +15,8 @@ export default async function setup() {
   const sequelize = createSequelize(config.db);
   try {
     await migrate(sequelize);
+    initModels(sequelize);
+    await seedDemo(sequelize);
   } finally {
     await sequelize.close();
   }
