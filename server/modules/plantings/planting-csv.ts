@@ -14,7 +14,8 @@ import type { ImportProblem, ImportReport, LogEntryCreateInput, PlantingCreateIn
 import { Bed, Planting, PlantingLog, SeedLot, Variety } from '../../db/models';
 import { AppError } from '../../errors';
 import { inTransaction } from '../../lib/transaction';
-import { plantingFields, plantingIncludes } from './plantings.service';
+import { plantingIncludes } from './plantings.service';
+import { plantingFields } from './plantings.presenter';
 
 type Column = (typeof PLANTING_CSV_COLUMNS)[number];
 

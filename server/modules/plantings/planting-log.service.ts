@@ -1,7 +1,7 @@
 import type { Transaction } from 'sequelize';
 import { plantingCreateSchema } from '#shared/schemas/plantings';
 import type { LogEntryCreateInput } from '#shared/schemas/plantings';
-import { plantingFields } from './plantings.service';
+import { plantingFields } from './plantings.presenter';
 import { Planting, PlantingLog, User } from '../../db/models';
 import { AppError } from '../../errors';
 import { limitOffset } from '../records/paging';

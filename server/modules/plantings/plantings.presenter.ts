@@ -1,5 +1,5 @@
 import { findCrop } from '#shared/crops/library';
-import type { NextEventDto, PlantingDto } from '#shared/schemas/plantings';
+import type { NextEventDto, PlantingCreateInput, PlantingDto } from '#shared/schemas/plantings';
 import { addDays, seasonOf } from '#shared/thermal/index';
 import type { Planting, Variety } from '../../db/models';
 
@@ -36,12 +36,31 @@ export function presentPlanting(p: Planting, latitude: number): PlantingDto {
   const v = p.variety!;
   const crop = findCrop(v.cropKey);
   const lot = p.seedLot ?? null;
+  const { bedId: _bed, varietyId: _variety, seedLotId: _lot, ...stages } = plantingFields(p);
   return {
     id: p.id,
     bed: { id: p.bed!.id, name: p.bed!.name },
     variety: { id: v.id, name: v.name, dtmDays: v.dtmDays, dtmFrom: v.dtmFrom, boltTolerance: v.boltTolerance },
     crop: { key: v.cropKey, name: crop?.name ?? v.cropKey, season: crop?.params.season.value ?? 'cool' },
     seedLot: lot ? { id: lot.id, label: seedLotLabel(lot) } : null,
+    ...stages,
+    season: p.startOn ? seasonOf(p.startOn, latitude).label : null,
+    nextEvent: nextEvent(p, v),
+    logCount: Number(p.get('logCount') ?? 0),
+  };
+}
+
+export function seedLotLabel(lot: { supplier: string; lotNumber: string; packedForYear: number | null }): string {
+  const parts = [lot.lotNumber && `lot ${lot.lotNumber}`, lot.supplier, lot.packedForYear && `packed for ${lot.packedForYear}`].filter(Boolean);
+  return parts.length ? parts.join(', ') : 'Unlabelled lot';
+}
+
+/** The stored planting in the shape of the create schema, for presenting and for merged checks. */
+export function plantingFields(p: Planting): PlantingCreateInput {
+  return {
+    bedId: p.bedId,
+    varietyId: p.varietyId,
+    seedLotId: p.seedLotId,
     method: p.method,
     status: p.status,
     quantity: p.quantity,
@@ -54,13 +73,5 @@ export function presentPlanting(p: Planting, latitude: number): PlantingDto {
     lastHarvestOn: p.lastHarvestOn,
     boltedOn: p.boltedOn,
     notes: p.notes,
-    season: p.startOn ? seasonOf(p.startOn, latitude).label : null,
-    nextEvent: nextEvent(p, v),
-    logCount: Number(p.get('logCount') ?? 0),
   };
-}
-
-export function seedLotLabel(lot: { supplier: string; lotNumber: string; packedForYear: number | null }): string {
-  const parts = [lot.lotNumber && `lot ${lot.lotNumber}`, lot.supplier, lot.packedForYear && `packed for ${lot.packedForYear}`].filter(Boolean);
-  return parts.length ? parts.join(', ') : 'Unlabelled lot';
 }

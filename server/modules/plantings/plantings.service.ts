@@ -7,6 +7,7 @@ import { Bed, Planting, PlantingPhoto, SeedLot, Variety } from '../../db/models'
 import { AppError, validationError } from '../../errors';
 import { likeText, limitOffset } from '../records/paging';
 import { bedInGarden, seedLotInGarden, varietyInGarden } from '../records/scope';
+import { plantingFields } from './plantings.presenter';
 import { inTransaction } from '../../lib/transaction';
 import { uniqueOr409 } from '../records/unique';
 
@@ -98,25 +99,6 @@ export async function createPlanting(gardenId: number, userId: number, input: Pl
   return getPlanting(gardenId, id);
 }
 
-export function plantingFields(p: Planting): PlantingCreateInput {
-  return {
-    bedId: p.bedId,
-    varietyId: p.varietyId,
-    seedLotId: p.seedLotId,
-    method: p.method,
-    status: p.status,
-    quantity: p.quantity,
-    quantityUnit: p.quantityUnit,
-    sownOn: p.sownOn,
-    emergedOn: p.emergedOn,
-    thinnedOn: p.thinnedOn,
-    transplantedOn: p.transplantedOn,
-    firstHarvestOn: p.firstHarvestOn,
-    lastHarvestOn: p.lastHarvestOn,
-    boltedOn: p.boltedOn,
-    notes: p.notes,
-  };
-}
 
 export async function updatePlanting(gardenId: number, plantingId: number, input: PlantingUpdateInput) {
   await inTransaction(Planting.sequelize!, async (transaction) => {

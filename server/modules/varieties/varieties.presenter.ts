@@ -1,13 +1,24 @@
 import { findCrop } from '#shared/crops/library';
 import { traitGuidance } from '#shared/crops/guidance';
-import type { GddTargetDto, VarietyDto } from '#shared/schemas/varieties';
+import type { GddTargetDto, VarietyCreateInput, VarietyDto } from '#shared/schemas/varieties';
 import type { Variety } from '../../db/models';
 
 export function presentVariety(v: Variety, season: 'cool' | 'warm', gddTarget?: GddTargetDto): VarietyDto {
   const crop = findCrop(v.cropKey);
+  const { cropKey: _cropKey, ...packetFacts } = varietyFields(v);
   return {
     id: v.id,
     crop: { key: v.cropKey, name: crop?.name ?? v.cropKey, season },
+    ...packetFacts,
+    guidance: traitGuidance(v.traits),
+    ...(gddTarget ? { gddTarget } : {}),
+  };
+}
+
+/** The stored packet facts in the shape of the create schema, for presenting and for merged checks. */
+export function varietyFields(v: Variety): VarietyCreateInput {
+  return {
+    cropKey: v.cropKey,
     name: v.name,
     dtmDays: v.dtmDays,
     dtmFrom: v.dtmFrom,
@@ -24,7 +35,5 @@ export function presentVariety(v: Variety, season: 'cool' | 'warm', gddTarget?: 
     thinSpacingCm: v.thinSpacingCm,
     gddTargetOverrideC: v.gddTargetOverrideC,
     notes: v.notes,
-    guidance: traitGuidance(v.traits),
-    ...(gddTarget ? { gddTarget } : {}),
   };
 }

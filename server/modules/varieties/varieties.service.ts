@@ -7,6 +7,7 @@ import { Planting, SeedLot, Variety } from '../../db/models';
 import { AppError, validationError } from '../../errors';
 import { likeText, limitOffset } from '../records/paging';
 import { unreferencedOr409, uniqueOr409 } from '../records/unique';
+import { varietyFields } from './varieties.presenter';
 
 type VarietyListQuery = z.output<typeof varietyListQuerySchema>;
 
@@ -35,7 +36,7 @@ export async function createVariety(gardenId: number, input: VarietyCreateInput)
 export async function updateVariety(gardenId: number, varietyId: number, input: VarietyUpdateInput) {
   const variety = await getVariety(gardenId, varietyId);
   // A partial change must still leave a consistent variety (e.g. traits, emergence range).
-  const merged = { ...pickFields(variety), ...input };
+  const merged = { ...varietyFields(variety), ...input };
   const check = varietyCreateSchema.safeParse(merged);
   if (!check.success) throw validationError(check.error);
   if (input.cropKey && input.cropKey !== variety.cropKey) {
@@ -48,27 +49,6 @@ export async function updateVariety(gardenId: number, varietyId: number, input: 
   return uniqueOr409(() => variety.update(input), duplicate, 'name');
 }
 
-function pickFields(v: Variety): VarietyCreateInput {
-  return {
-    cropKey: v.cropKey,
-    name: v.name,
-    dtmDays: v.dtmDays,
-    dtmFrom: v.dtmFrom,
-    emergenceDaysMin: v.emergenceDaysMin,
-    emergenceDaysMax: v.emergenceDaysMax,
-    boltTolerance: v.boltTolerance,
-    heatTolerance: v.heatTolerance,
-    traits: v.traits,
-    containerFriendly: v.containerFriendly,
-    sunHours: v.sunHours,
-    waterCmPerWeek: v.waterCmPerWeek,
-    sowDepthCm: v.sowDepthCm,
-    spacingCm: v.spacingCm,
-    thinSpacingCm: v.thinSpacingCm,
-    gddTargetOverrideC: v.gddTargetOverrideC,
-    notes: v.notes,
-  };
-}
 
 export async function deleteVariety(gardenId: number, varietyId: number) {
   const variety = await getVariety(gardenId, varietyId);
