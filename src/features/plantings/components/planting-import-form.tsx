@@ -1,5 +1,5 @@
 import { useId, useState } from 'react';
-import { Download, FileUp, LoaderCircle, X } from 'lucide-react';
+import { Download, X } from 'lucide-react';
 import {
   HARVEST_UNITS,
   LOG_KINDS,
@@ -10,6 +10,7 @@ import {
 } from '#shared/schemas/plantings';
 import type { ImportReport } from '#shared/schemas/plantings';
 import type { ApiError } from '@/lib/api-client';
+import { FILE_INPUT_CLASS, UploadButton } from '@/components/ui/upload-button';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { RowReport } from '@/components/ui/row-report';
@@ -149,19 +150,12 @@ export function PlantingImportForm({ gardenId, example, year, onClose }: { garde
             aria-invalid={shownFileError ? true : undefined}
             aria-describedby={shownFileError ? `${id}-file-error` : undefined}
             onChange={(e) => setFile(e.target.files?.[0] ?? null)}
-            className="w-full max-w-md min-w-0 rounded-md border border-line bg-paper p-1.5 text-sm file:mr-3 file:min-h-9 file:rounded file:border-0 file:bg-paper-sunk file:px-3 file:font-semibold file:text-loam aria-[invalid=true]:border-2 aria-[invalid=true]:border-clay"
+            className={FILE_INPUT_CLASS}
           />
           {shownFileError && <FieldError id={`${id}-file-error`}>{shownFileError}</FieldError>}
         </div>
         <div>
-          <Button type="submit" disabled={upload.isPending}>
-            {upload.isPending ? (
-              <LoaderCircle className="size-5 animate-spin motion-reduce:animate-none" aria-hidden="true" />
-            ) : (
-              <FileUp className="size-5" aria-hidden="true" />
-            )}
-            {upload.isPending ? 'Importing…' : 'Import plantings'}
-          </Button>
+          <UploadButton pending={upload.isPending} label="Import plantings" pendingLabel="Importing…" />
         </div>
       </form>
       {upload.isSuccess && <Summary report={upload.data} />}

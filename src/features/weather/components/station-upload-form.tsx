@@ -1,12 +1,11 @@
 import { useId } from 'react';
 import { useForm } from 'react-hook-form';
-import { FileUp, LoaderCircle } from 'lucide-react';
 import { UNITS } from '#shared/schemas/gardens';
 import type { DisplayUnit } from '#shared/schemas/gardens';
 import type { WeatherImportResult } from '#shared/schemas/weather';
 import type { ApiError } from '@/lib/api-client';
 import { UNIT_WORDS } from '@/lib/format';
-import { Button } from '@/components/ui/button';
+import { FILE_INPUT_CLASS, UploadButton } from '@/components/ui/upload-button';
 import { Notice } from '@/components/ui/notice';
 import { RowReport } from '@/components/ui/row-report';
 import { FieldError } from '@/components/ui/text-field';
@@ -137,21 +136,14 @@ export function StationUploadForm({ gardenId, gardenUnit }: { gardenId: number; 
             accept=".csv,text/csv"
             aria-invalid={fileError ? true : undefined}
             aria-describedby={[`${id}-format`, fileError ? `${id}-file-error` : null].filter(Boolean).join(' ')}
-            className="w-full max-w-md min-w-0 rounded-md border border-line bg-paper p-1.5 text-sm file:mr-3 file:min-h-9 file:rounded file:border-0 file:bg-paper-sunk file:px-3 file:font-semibold file:text-loam aria-[invalid=true]:border-2 aria-[invalid=true]:border-clay"
+            className={FILE_INPUT_CLASS}
             {...register('file', { validate: checkFile })}
           />
           {fileError && <FieldError id={`${id}-file-error`}>{fileError}</FieldError>}
         </div>
 
         <div>
-          <Button type="submit" disabled={upload.isPending}>
-            {upload.isPending ? (
-              <LoaderCircle className="size-5 animate-spin motion-reduce:animate-none" aria-hidden="true" />
-            ) : (
-              <FileUp className="size-5" aria-hidden="true" />
-            )}
-            {upload.isPending ? 'Uploading…' : 'Upload readings'}
-          </Button>
+          <UploadButton pending={upload.isPending} label="Upload readings" pendingLabel="Uploading…" />
         </div>
       </form>
 
