@@ -25,6 +25,8 @@ import { dayLengthHours } from './day-length';
 import { validateMethod } from './degree-days';
 import { degreeDaysAt, toDenseSeries } from './series';
 import type { DailyTemp, DegreeDayMethod } from './types';
+import { formatDegreeDays, formatTemp } from './units';
+import type { TempUnit } from './units';
 
 export type BoltRiskLevel = 'low' | 'elevated' | 'high';
 
@@ -96,7 +98,7 @@ export interface BoltRiskDay {
 }
 
 export interface BoltRiskInput {
-  /** Start event (sowing or transplant), day 1 of the degree-day count. */
+  /** First day judged and counted: for a planting, firstCountedDay(start event) (start-event.ts). */
   start: string;
   /** Observed then forecast days from start on (source 'forecast' marks forecast days). */
   days: readonly DailyTemp[];
@@ -108,6 +110,8 @@ export interface BoltRiskInput {
   /** 1 (bolts readily) … 5 (very slow to bolt); 3 when unknown. */
   boltTolerance?: number;
   scoring?: Partial<BoltScoring>;
+  /** Unit of the temperatures and degree days in the reasons' words (computation stays °C). */
+  unit?: TempUnit;
 }
 
 export interface BoltRiskAssessment {
@@ -146,6 +150,7 @@ export function scoreBoltDay(
   scoring: BoltScoring,
   tolerance: number,
   explain: boolean,
+  unit: TempUnit = 'C',
 ): { score: number; level: BoltRiskLevel; reasons: BoltReason[] } {
   const reasons: BoltReason[] = [];
   let raw = 0;
@@ -158,9 +163,9 @@ export function scoreBoltDay(
     const fc = s.heatRunForecast > 0;
     const note = fc ? ` (${s.heatRunForecast} of them forecast)` : '';
     if (s.heatRun >= streakDays) {
-      add('heat', scoring.heatStreak, fc, () => `${s.heatRun} days in a row with highs above ${fmt(triggers.heatThresholdC!)} °C${note}`);
+      add('heat', scoring.heatStreak, fc, () => `${s.heatRun} days in a row with highs above ${formatTemp(triggers.heatThresholdC!, unit)}${note}`);
     } else {
-      add('heat', scoring.heatDay, fc, () => `${s.heatRun} of ${streakDays} days in a row with highs above ${fmt(triggers.heatThresholdC!)} °C so far${note} (today ${fmt(s.tmax)} °C)`);
+      add('heat', scoring.heatDay, fc, () => `${s.heatRun} of ${streakDays} days in a row with highs above ${formatTemp(triggers.heatThresholdC!, unit)} so far${note} (today ${formatTemp(s.tmax, unit)})`);
     }
   }
   if (triggers.criticalPhotoperiodH !== undefined) {
@@ -176,7 +181,7 @@ export function scoreBoltDay(
   }
   const v = triggers.vernalization;
   if (v && s.coldDays !== null && s.coldDays > 0) {
-    const msg = () => `${s.coldDays} days with a mean between ${fmt(v.minC)} and ${fmt(v.maxC)} °C after the juvenile phase (${fmt(v.juvenileGdd)} degree days); ${v.requiredDays} needed`;
+    const msg = () => `${s.coldDays} days with a mean between ${formatTemp(v.minC, unit)} and ${formatTemp(v.maxC, unit)} after the juvenile phase (${formatDegreeDays(v.juvenileGdd, unit)}); ${v.requiredDays} needed`;
     if (s.coldDays >= v.requiredDays) add('vernalization', scoring.vernalized, s.forecast, msg);
     else if (s.coldDays >= v.requiredDays / 2) add('vernalization', scoring.vernalizing, s.forecast, msg);
   }
@@ -237,7 +242,7 @@ export function assessBoltRisk(input: BoltRiskInput): BoltRiskAssessment {
       maturityFraction: target ? gdd / target : null,
       forecast,
     };
-    const r = scoreBoltDay(state, triggers, scoring, tolerance, true);
+    const r = scoreBoltDay(state, triggers, scoring, tolerance, true, input.unit);
     out.push({ date: fromDayNumber(n), forecast, ...r });
   }
   return { days: out, missingDates };

@@ -79,6 +79,8 @@ export function degreeDaysOf(s: DenseSeries, method: DegreeDayMethod): Float64Ar
 
 export interface AccumulatedDay {
   date: string;
+  tmax: number;
+  tmin: number;
   dd: number;
   cumulative: number;
   source: TempSource;
@@ -119,7 +121,7 @@ export function accumulateDegreeDays(
     }
     const dd = degreeDaysAt(s, i, method);
     total += dd;
-    days.push({ date: fromDayNumber(n), dd, cumulative: total, source: s.source[i] as TempSource });
+    days.push({ date: fromDayNumber(n), tmax: s.tmax[i], tmin: s.tmin[i], dd, cumulative: total, source: s.source[i] as TempSource });
   }
   return { method, start: range.start, end: fromDayNumber(endN), days, missingDates, total };
 }

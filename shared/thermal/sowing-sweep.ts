@@ -157,7 +157,7 @@ function cutoffDayNumber(cutoff: { monthDay: string }, sowN: number): number {
 
 /**
  * Maturity windows and risk shares for each sowing date from `from` to `to`. Maturity is the
- * first day whose cumulative degree days since sowing (sowing day included) reach the target.
+ * first day whose cumulative degree days since sowing (from the day after it) reach the target.
  * An analog year with a gap before maturity is left out of that candidate, never bridged.
  * The loop runs analog year by analog year over consecutive candidates so that each search
  * starts from the previous candidate's answer; the per-candidate percentiles then reuse the
@@ -192,10 +192,11 @@ export function sowingWindowSweep(clim: SweepClimatology, opts: SweepOptions): S
       a = recompute[k] ? analogStart(civil[k], y, series.first) : a + 1;
       if (a < 0 || a >= len) continue;
       if (byFrost && !(frostIdx >= a)) frostIdx = firstAtOrAfter(fallFrosts, a);
-      const hi = Math.min(len, a + maxDays) - 1;
-      const m = findMaturity(prefixDd, a, Math.max(a, previous), hi, opts.target);
+      const hi = Math.min(len, a + 1 + maxDays) - 1;
+      // The sowing day is day 0 (start-event.ts): degree days count from index a + 1.
+      const m = findMaturity(prefixDd, a + 1, Math.max(a + 1, previous), hi, opts.target);
       const end = m >= 0 ? m : hi;
-      if (prefixMissing[end + 1] - prefixMissing[a] > 0 || (m < 0 && a + maxDays > len)) continue;
+      if (prefixMissing[end + 1] - prefixMissing[a + 1] > 0 || (m < 0 && a + 1 + maxDays > len)) continue;
       previous = m;
       offsets[k * years + y - 1] = m >= 0 ? m - a : Infinity;
       if (m >= 0 && prefixHigh[Math.min(len, m + harvestDays)] - prefixHigh[m] > 0) high[k]++;

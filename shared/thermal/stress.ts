@@ -5,7 +5,8 @@
 import { addDays } from './dates';
 import { toDenseSeries } from './series';
 import type { DailyTemp } from './types';
-import { fToC } from './units';
+import { formatTemp, fToC } from './units';
+import type { TempUnit } from './units';
 
 export type HardinessClass = 'very-hardy' | 'frost-tolerant' | 'tender' | 'warm-loving';
 export type FrostSeverity = 'possible' | 'light' | 'moderate' | 'severe';
@@ -52,6 +53,8 @@ export interface StressProfile {
   hardiness: HardinessClass;
   /** Warm-season crops suffer chilling injury below ~50 °F. */
   chillingSensitive?: boolean;
+  /** Nights in a row below the chilling limit that make a spell worth acting on (default 3: a sustained spell, not one cool night; common practice, no source). */
+  chillingMinDays?: number;
   blossomDrop?: BlossomDropProfile;
   pollinationHeat?: PollinationHeatProfile;
 }
@@ -85,11 +88,20 @@ export const FROST_SEVERITIES_BY_CLASS: Record<HardinessClass, readonly FrostSev
 
 const f1 = (c: number) => String(Number(c.toFixed(1)));
 
+/**
+ * A low exactly on a published °F edge belongs to the colder category (≤ 24 °F is severe), but
+ * the same low can reach us by another float path than fToC, e.g. (24 + 40) × 5/9 − 40 =
+ * −4.444444444444443 against fToC's −4.444444444444445, and would slip a category on a last-bit
+ * difference. 1e-6 °C is far below any thermometer and far above such rounding.
+ */
+const EDGE_C = 1e-6;
+const atOrBelow = (tminC: number, f: number) => tminC <= fToC(f) + EDGE_C;
+
 function frostSeverity(tminC: number, t: StressThresholdsF): FrostSeverity | null {
-  if (tminC <= fToC(t.severeFreeze)) return 'severe';
-  if (tminC <= fToC(t.moderateFreeze)) return 'moderate';
-  if (tminC <= fToC(t.lightFreeze)) return 'light';
-  if (tminC <= fToC(t.frostPossible)) return 'possible';
+  if (atOrBelow(tminC, t.severeFreeze)) return 'severe';
+  if (atOrBelow(tminC, t.moderateFreeze)) return 'moderate';
+  if (atOrBelow(tminC, t.lightFreeze)) return 'light';
+  if (atOrBelow(tminC, t.frostPossible)) return 'possible';
   return null;
 }
 
@@ -147,7 +159,12 @@ export function stressEvents(
   days: readonly DailyTemp[],
   profile: StressProfile,
   thresholds: StressThresholdsF = STRESS_THRESHOLDS_F,
+  unit: TempUnit = 'C',
 ): StressEvent[] {
+  const deg = (c: number) => formatTemp(c, unit);
+  // A published °F limit is shown as published; in a °C garden its °C value comes first.
+  const published = (f: number) => (unit === 'F' ? `${f} °F` : `${f1(fToC(f))} °C (${f} °F)`);
+  const nDays = (n: number) => `${n} ${n === 1 ? 'day' : 'days'}`;
   const s = toDenseSeries(days);
   const dayAt = (i: number) => ({
     date: addDays('1970-01-01', s.first + i),
@@ -172,13 +189,13 @@ export function stressEvents(
   });
   events.push(...group('frost', frostHits, 1, (e) =>
     e.severity === 'possible'
-      ? `low of ${f1(e.figures.lowestMinC!)} °C is at or below ${f1(e.figures.thresholdC)} °C (${e.figures.thresholdF} °F): frost can form on plants`
-      : `${e.severity} freeze: low of ${f1(e.figures.lowestMinC!)} °C is at or below ${f1(e.figures.thresholdC)} °C (${e.figures.thresholdF} °F)`));
+      ? `low of ${deg(e.figures.lowestMinC!)} is at or below ${published(e.figures.thresholdF)}: frost can form on plants`
+      : `${e.severity} freeze: low of ${deg(e.figures.lowestMinC!)} is at or below ${published(e.figures.thresholdF)}`));
 
   if (profile.chillingSensitive) {
     const limit = fToC(thresholds.chilling);
     const hits = idx.map((i) => (s.present[i] && s.tmin[i] < limit ? { ...dayAt(i), severity: 'watch' as const, thresholdF: thresholds.chilling } : null));
-    events.push(...group('chilling', hits, 1, (e) => `lows down to ${f1(e.figures.lowestMinC!)} °C, below ${f1(e.figures.thresholdC)} °C (${e.figures.thresholdF} °F), for ${e.days} day(s): chilling injury of warm-season crops`));
+    events.push(...group('chilling', hits, profile.chillingMinDays ?? 3, (e) => `lows down to ${deg(e.figures.lowestMinC!)}, below ${published(e.figures.thresholdF)}, ${nDays(e.days)} in a row: chilling injury of warm-season crops`));
   }
 
   const b = profile.blossomDrop;
@@ -192,9 +209,9 @@ export function stressEvents(
       if (d.tmin < fToC(b.nightBelowF)) return { ...d, severity: 'watch' as const, thresholdF: b.nightBelowF };
       return null;
     });
-    const limits = `highs above ${f1(fToC(b.highWatchF))} °C (${b.highWatchF} °F), nights above ${f1(fToC(b.nightAboveF))} °C (${b.nightAboveF} °F) or below ${f1(fToC(b.nightBelowF))} °C (${b.nightBelowF} °F)`;
+    const limits = `highs above ${published(b.highWatchF)}, nights above ${published(b.nightAboveF)} or below ${published(b.nightBelowF)}`;
     events.push(...group('blossom-drop', hits, b.minDays, (e) =>
-      `${e.days} days in a row with ${limits}; highs up to ${f1(e.figures.highestMaxC!)} °C, lows down to ${f1(e.figures.lowestMinC!)} °C: blossoms may drop`));
+      `${e.days} days in a row with ${limits}; highs up to ${deg(e.figures.highestMaxC!)}, lows down to ${deg(e.figures.lowestMinC!)}: blossoms may drop`));
   }
 
   const p = profile.pollinationHeat;
@@ -206,7 +223,7 @@ export function stressEvents(
       return streak ? { ...dayAt(i), severity: (streak >= p.warningFromDay ? 'warning' : 'watch') as StressSeverity, thresholdF: p.highAboveF } : null;
     });
     events.push(...group('pollination-heat', hits, 1, (e) =>
-      `${e.days} day(s) with highs above ${f1(e.figures.thresholdC)} °C (${e.figures.thresholdF} °F), up to ${f1(e.figures.highestMaxC!)} °C: pollen is lost${e.days >= p.warningFromDay ? `, from day ${p.warningFromDay} about 1 % of kernels a day` : ''}`));
+      `${nDays(e.days)} with highs above ${published(e.figures.thresholdF)}, up to ${deg(e.figures.highestMaxC!)}: pollen is lost${e.days >= p.warningFromDay ? `, from day ${p.warningFromDay} about 1 % of kernels a day` : ''}`));
   }
   return events.sort((x, y) => (x.start < y.start ? -1 : x.start > y.start ? 1 : 0));
 }

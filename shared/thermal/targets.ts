@@ -21,7 +21,7 @@ export interface DtmTargetInput {
 }
 
 export interface DtmTarget {
-  /** Median over past years and window days of the degree days in `days` days from the start event. */
+  /** Median over past years and window days of the degree days in the `days` days after the start event. */
   target: number;
   /** The planting event the target counts from: sowing (for sowing and emergence DTMs) or transplant. */
   countsFrom: 'sowing' | 'transplant';
@@ -79,8 +79,9 @@ export function degreeDayTargetFromDtm(input: DtmTargetInput): DtmTarget {
       const endYear = wraps ? y + 1 : y;
       const toDay = Math.min(to.day, to.month === 2 && !isLeapYear(endYear) ? 28 : 31);
       const end = civilToDayNumber({ year: endYear, month: to.month, day: toDay }) - s.first;
-      for (let a = Math.max(0, start); a <= end && a + days <= s.length; a++) {
-        if (missing[a + days] - missing[a] === 0) samples.push(prefix[a + days] - prefix[a]);
+      // The start day is day 0 (start-event.ts): a sample sums the `days` days after it.
+      for (let a = Math.max(0, start); a <= end && a + 1 + days <= s.length; a++) {
+        if (missing[a + 1 + days] - missing[a + 1] === 0) samples.push(prefix[a + 1 + days] - prefix[a + 1]);
       }
     }
   }

@@ -27,3 +27,27 @@ export function cDaysToFDays(cDays: number): number {
 export function fDaysToCDays(fDays: number): number {
   return fDays / 1.8;
 }
+
+export type TempUnit = 'C' | 'F';
+
+/** A stored °C reading in the display unit. */
+export function tempIn(c: number, unit: TempUnit): number {
+  return unit === 'F' ? cToF(c) : c;
+}
+
+/** Stored °C-days in the display unit's degree days (°F-days or °C-days). */
+export function degreeDaysIn(cDays: number, unit: TempUnit): number {
+  return unit === 'F' ? cDaysToFDays(cDays) : cDays;
+}
+
+const oneDecimal = (x: number) => String(Number(x.toFixed(1)));
+
+/** "80 °F", "26.7 °C": a reading for people, one decimal at most. */
+export function formatTemp(c: number, unit: TempUnit): string {
+  return `${oneDecimal(tempIn(c, unit))} °${unit}`;
+}
+
+/** "412 °F-days": whole degree days for people. */
+export function formatDegreeDays(cDays: number, unit: TempUnit): string {
+  return `${Math.round(degreeDaysIn(cDays, unit))} °${unit}-days`;
+}

@@ -71,7 +71,7 @@ describe('bolt risk heuristic (Heatclock’s own; triggers per SCIENCE §3)', ()
     const older = assessBoltRisk({ start: '2025-03-01', days, latitude: 45, triggers, method: bm }).days;
     const last = older[older.length - 1];
     expect(last.level).toBe('elevated');
-    expect(last.reasons[0].message).toBe('12 days with a mean between 4 and 10 °C after the juvenile phase (100 degree days); 10 needed');
+    expect(last.reasons[0].message).toBe('12 days with a mean between 4 °C and 10 °C after the juvenile phase (100 °C-days); 10 needed');
   });
 
   it('when the plant nears its degree-day target, then closeness adds to an active trigger', () => {
@@ -123,6 +123,9 @@ describe('stress events (SCIENCE §4: NWS freeze categories, Purdue HO-203 class
     expect(events[0].figures.lowestMinC).toBeCloseTo(fToC(26), 10);
     expect(events[0].figures.thresholdF).toBe(28);
     expect(events[0].message).toMatch(/^moderate freeze: low of -3\.3 °C is at or below -2\.2 °C \(28 °F\)$/);
+    // In a °F garden the words carry the published °F figures alone.
+    const inF = stressEvents(frostWeek, STRESS_PROFILE_DEFAULTS.tomato.profile, undefined, 'F').filter((e) => e.kind === 'frost');
+    expect(inF[0].message).toBe('moderate freeze: low of 26 °F is at or below 28 °F');
     expect(events[1].forecast).toBe(true);
   });
 
@@ -134,10 +137,11 @@ describe('stress events (SCIENCE §4: NWS freeze categories, Purdue HO-203 class
     ]);
   });
 
-  it('warm-season crops get chilling below 50 °F (10 °C)', () => {
-    const events = stressEvents([day('2025-05-01', 20, 11), day('2025-05-02', 18, 9.9), day('2025-05-03', 18, 8)], STRESS_PROFILE_DEFAULTS.pepper.profile);
-    const chill = events.filter((e) => e.kind === 'chilling');
-    expect(chill.map((e) => [e.start, e.end])).toEqual([['2025-05-02', '2025-05-03']]);
+  it('warm-season crops get chilling below 50 °F (10 °C) after a sustained spell (3 nights, common practice, no source), not a single night', () => {
+    const spell = [day('2025-05-01', 20, 11), day('2025-05-02', 18, 9.9), day('2025-05-03', 18, 8), day('2025-05-04', 17, 9), day('2025-05-05', 20, 12), day('2025-05-06', 19, 8), day('2025-05-07', 21, 12)];
+    const chill = stressEvents(spell, STRESS_PROFILE_DEFAULTS.pepper.profile).filter((e) => e.kind === 'chilling');
+    expect(chill.map((e) => [e.start, e.end])).toEqual([['2025-05-02', '2025-05-04']]);
+    expect(chill[0].message).toBe('lows down to 8 °C, below 10 °C (50 °F), 3 days in a row: chilling injury of warm-season crops');
   });
 
   it('tomato blossom drop needs several (3) days of highs > 85 °F or nights > 70 °F; > 92 °F makes it a warning', () => {

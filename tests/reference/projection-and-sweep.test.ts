@@ -49,14 +49,16 @@ describe('maturity projection: observed, then forecast, then analog years', () =
   it('south (35 °S): a season crossing New Year continues through each analog’s own January', () => {
     const south = syntheticWeather('2012-07-01', 365 * 8 + 2, { seed: 5, southern: true });
     const p = projectMaturity({ start: '2020-11-01', target: 900, method, observed: [], history: south, latitude: -35 });
-    expect(p.scenarios[0]).toMatchObject({ season: '2019–20', analogStart: '2019-11-01' });
+    // The analog continues from the first counted day, the day after the start event.
+    expect(p.scenarios[0]).toMatchObject({ season: '2019–20', analogStart: '2019-11-02' });
     expect(p.scenarios.map((s) => s.season)).toContain('2012–13');
     for (const s of p.scenarios) expect(s.maturityDate! > '2020-12-01' && s.maturityDate! < '2021-04-01').toBe(true);
   });
 
   it('Feb 29: an analog year without it starts on Feb 28', () => {
     const flat = constantDays('2019-01-01', 400, 20, 20);
-    const p = projectMaturity({ start: '2020-02-29', target: 100, method: { base: 10, method: 'average' }, observed: [], history: flat.filter((d) => d.date < '2020-01-01'), latitude: 45 });
+    // Sown on Feb 28, so Feb 29 is the first counted day.
+    const p = projectMaturity({ start: '2020-02-28', target: 100, method: { base: 10, method: 'average' }, observed: [], history: flat.filter((d) => d.date < '2020-01-01'), latitude: 45 });
     expect(p.scenarios).toEqual([{ season: '2019', analogStart: '2019-02-28', maturityDate: '2020-03-09', beforeCutoff: true }]);
   });
 });
@@ -115,7 +117,8 @@ describe('sowing-window sweep', () => {
       let cum = 0;
       let k = 0;
       let matured = -1;
-      for (; k < 366; k++) {
+      // The sowing day is day 0; degree days count from the next day (start-event.ts).
+      for (k = 1; k <= 366; k++) {
         const d = byDate.get(addDays(start, k));
         if (!d) break;
         const next = byDate.get(addDays(start, k + 1));
@@ -125,7 +128,7 @@ describe('sowing-window sweep', () => {
           break;
         }
       }
-      if (matured < 0 && k < 366) continue;
+      if (matured < 0 && k <= 366) continue;
       offsets.push(matured < 0 ? Infinity : matured);
       if (matured >= 0) {
         const from = addDays(start, matured - 30);
