@@ -58,6 +58,8 @@ interface Base {
   spacingCm: number;
   /** A qualitative bolting note for crops without engine trigger figures. */
   boltNote?: string;
+  /** Set false for a cool-season crop that does not bolt (its heat trigger means something else). */
+  bolts?: false;
 }
 
 const coolBase = (value: number, confidence: Confidence, source: string) => at(value, confidence, source);
@@ -68,7 +70,7 @@ const BASES: Base[] = [
   { key: 'arugula', name: 'Arugula', botanicalName: 'Eruca vesicaria subsp. sativa', season: 'cool', base: coolBase(fToC(40), 'L', SRC.coolDefault), hardiness: 'frost-tolerant', hardinessSource: at(null, 'from memory', 'Not in Purdue HO-203’s list; class from memory'), germF: null, seedLife: null, depthCm: 0.5, spacingCm: 10 },
   { key: 'cilantro', name: 'Cilantro', botanicalName: 'Coriandrum sativum', season: 'cool', base: coolBase(fToC(40), 'L', SRC.coolDefault), hardiness: 'frost-tolerant', hardinessSource: at(null, 'from memory', 'Not in Purdue HO-203’s list; class from memory'), germF: null, seedLife: null, depthCm: 1, spacingCm: 15 },
   { key: 'radish', name: 'Radish', botanicalName: 'Raphanus sativus', season: 'cool', base: coolBase(fToC(40), 'L', SRC.coolDefault), hardiness: 'frost-tolerant', germF: [40, 85, 95], seedLife: 5, depthCm: 1.2, spacingCm: 4 },
-  { key: 'pea', name: 'Pea', botanicalName: 'Pisum sativum', season: 'cool', base: coolBase(fToC(40), 'H', `${SRC.delaware}; fastest varieties harvested at ≈1,250 base-40 °F GDD`), hardiness: 'very-hardy', germF: [40, 75, 85], seedLife: 3, depthCm: 2.5, spacingCm: 5 },
+  { key: 'pea', name: 'Pea', botanicalName: 'Pisum sativum', season: 'cool', base: coolBase(fToC(40), 'H', `${SRC.delaware}; fastest varieties harvested at ≈1,250 base-40 °F GDD`), hardiness: 'very-hardy', germF: [40, 75, 85], seedLife: 3, depthCm: 2.5, spacingCm: 5, bolts: false },
   { key: 'bok-choy', engineKey: 'bok choy', name: 'Bok choy', botanicalName: 'Brassica rapa subsp. chinensis', season: 'cool', base: coolBase(fToC(40), 'M', `${SRC.delaware} (cole crop figure applied)`), hardiness: 'frost-tolerant', germF: [40, 85, 100], germSource: SRC.germCole, seedLife: 3, seedLifeSource: `${SRC.seedLife}: Chinese cabbage figure`, depthCm: 1, spacingCm: 20 },
   { key: 'broccoli', name: 'Broccoli', botanicalName: 'Brassica oleracea var. italica', season: 'cool', base: coolBase(0, 'H', 'Tan et al. 2000, Scientia Horticulturae 84:227'), hardiness: 'frost-tolerant', germF: [40, 85, 100], germSource: SRC.germCole, seedLife: 3, depthCm: 1.2, spacingCm: 45, boltNote: SRC.biennial },
   { key: 'cabbage', name: 'Cabbage', botanicalName: 'Brassica oleracea var. capitata', season: 'cool', base: coolBase(fToC(40), 'L', `${SRC.coolDefault}; Univ. of Delaware uses base 40 °F for cole crops`), hardiness: 'frost-tolerant', germF: [40, 85, 100], seedLife: 4, depthCm: 1.2, spacingCm: 45 },
@@ -161,7 +163,7 @@ function build(b: Base): CropDefinition {
     ...stressParams(b, STRESS_PROFILE_DEFAULTS[engineKey]),
     ...seedParams(b),
   };
-  return { key: b.key, name: b.name, botanicalName: b.botanicalName, params };
+  return { key: b.key, name: b.name, botanicalName: b.botanicalName, engineKey, bolts: b.season === 'cool' && b.bolts !== false, params };
 }
 
 export const CROP_LIBRARY: readonly CropDefinition[] = BASES.map(build);

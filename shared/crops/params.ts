@@ -103,9 +103,16 @@ export type ParamValue<K extends CropParamKey> = (typeof CROP_PARAMS)[K] extends
 
 export type CropParams = { [K in CropParamKey]: Sourced<ParamValue<K>> };
 
+/** One value per parameter, as a garden uses them (shared defaults merged with its overrides). */
+export type CropParamValues = { [K in CropParamKey]: ParamValue<K> };
+
 export interface CropDefinition {
   key: string;
   name: string;
   botanicalName: string;
+  /** Key of the crop in the thermal engine's bolt and stress defaults. */
+  engineKey: string;
+  /** False for crops that do not bolt within their garden season (warm-season crops, pea). */
+  bolts: boolean;
   params: CropParams;
 }

@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { CROP_PARAMS, CROP_PARAM_KEYS } from '#shared/crops/params';
 import type { Confidence, CropParamKey, ParamGroup, ParamUnit } from '#shared/crops/params';
+import type { DegreeDayBasis } from '#shared/crops/basis';
 
 export const cropKeySchema = z.string().regex(/^[a-z][a-z-]{1,39}$/, 'Must be a crop key such as lettuce or bok-choy.');
 
@@ -49,6 +50,11 @@ export interface CropParamDto {
   /** The shared default, present when this garden overrides it. */
   libraryDefault: { value: number | string | boolean | null; source: string; confidence: Confidence } | null;
   updatedAt: string | null;
+  /**
+   * Degree-day figures only: the method the value was counted with; `stale` when the crop now
+   * counts with another, so the figure is not used until it is set again.
+   */
+  ddBasis?: DegreeDayBasis & { stale: boolean };
 }
 
 export interface CropDto {

@@ -3,6 +3,7 @@ import { CROP_KEYS } from '#shared/crops/library';
 import { notesSchema, nullableInt, nullableNumber, pageQueryShape } from './records';
 import type { Page } from './records';
 import type { TraitGuidance } from '#shared/crops/guidance';
+import type { DegreeDayBasis } from '#shared/crops/basis';
 
 export const DTM_FROM = ['sowing', 'emergence', 'transplant'] as const;
 export type DtmFrom = (typeof DTM_FROM)[number];
@@ -49,7 +50,10 @@ const varietyShape = {
   sowDepthCm: nullableNumber('Sowing depth', 0, 15, ' cm'),
   spacingCm: nullableNumber('Spacing', 1, 300, ' cm'),
   thinSpacingCm: nullableNumber('Thinning spacing', 1, 300, ' cm'),
-  /** °C-days; replaces the target derived from days to maturity. */
+  /**
+   * °C-days; replaces the target derived from days to maturity. The server records the crop's
+   * method with it (VarietyDto.gddTargetBasis); clients never send that.
+   */
   gddTargetOverrideC: nullableNumber('Degree-day target', 1, 10_000),
   notes: notesSchema,
 };
@@ -97,6 +101,10 @@ export interface GddTargetDto {
   /** Spread of the derivation over past years, °C-days. */
   p10C: number | null;
   p90C: number | null;
+  /** Which method a grower's target was counted with, or why it is not used now. */
+  basisNote?: string;
+  /** True when the grower's target was counted with another method than the crop now uses. */
+  stale: boolean;
 }
 
 export interface VarietyDto {
@@ -117,6 +125,8 @@ export interface VarietyDto {
   spacingCm: number | null;
   thinSpacingCm: number | null;
   gddTargetOverrideC: number | null;
+  /** What the override was counted with; null without an override. */
+  gddTargetBasis: DegreeDayBasis | null;
   notes: string;
   guidance: TraitGuidance[];
   /** Only on the single-variety answer: the derivation reads the garden's weather history. */

@@ -2,6 +2,8 @@ import { describe, expect, it } from 'vitest';
 import { testApp } from '../helpers/test-app';
 import { gardenWithClients, makeLot, makeVariety, makePlanting } from '../helpers/garden-records';
 import { createGarden } from '../helpers/factories';
+import { fToC } from '#shared/thermal/index';
+import { Variety } from '../../server/db/models';
 
 const app = testApp();
 
@@ -90,5 +92,45 @@ describe('a variety in use keeps its crop', () => {
     expect(res.body.error.fields.cropKey).toMatch(/cannot change/);
     const again = await clients.grower.get(`${base}/varieties/${planting.varietyId}`).expect(200);
     expect(again.body.variety.crop.key).toBe('lettuce');
+  });
+});
+
+describe('a grower’s degree-day target keeps the method it was set in', () => {
+  it('when a grower sets the target, then the crop’s method is stored with it and shown beside it', async () => {
+    const { clients, base } = await gardenWithClients(app);
+    const id = (await clients.grower.post(`${base}/varieties`).send({ ...packet, gddTargetOverrideC: 500 })).body.variety.id;
+    const row = await Variety.findByPk(id);
+    expect(row).toMatchObject({ gddTargetBaseC: expect.closeTo(fToC(40), 9), gddTargetUpperC: null, gddTargetMethod: 'single-sine', gddTargetCutoff: 'horizontal' });
+    const v = (await clients.viewer.get(`${base}/varieties/${id}`)).body.variety;
+    expect(v.gddTargetBasis).toMatchObject({ method: 'single-sine', upperC: null });
+    expect(v.gddTarget).toMatchObject({ valueC: 500, basis: 'override', stale: false, basisNote: 'Set at base 40 °F, single sine.' });
+  });
+
+  it('when a client sends the method itself, then 400: only the server records it', async () => {
+    const { clients, base } = await gardenWithClients(app);
+    const res = await clients.grower.post(`${base}/varieties`).send({ ...packet, gddTargetOverrideC: 500, gddTargetBaseC: 0 });
+    expect(res.status).toBe(400);
+    expect(Object.keys(res.body.error.fields)).toEqual(['gddTargetBaseC']);
+  });
+
+  it('when the crop’s base changes after the target was set, then the packet-derived target is used and the note says why in units', async () => {
+    const { clients, base } = await gardenWithClients(app);
+    const id = (await clients.grower.post(`${base}/varieties`).send({ ...packet, gddTargetOverrideC: 500 })).body.variety.id;
+    expect((await clients.owner.patch(`${base}/crops/spinach`).send({ params: { baseC: { value: 7 } } })).status).toBe(200);
+    const t = (await clients.viewer.get(`${base}/varieties/${id}`)).body.variety.gddTarget;
+    const note = 'Your target of 900 °F-days was set at base 40 °F, single sine; this crop now counts from base 44.6 °F, single sine, so the packet-derived target is used until you set it again.';
+    expect(t).toMatchObject({ basis: expect.stringMatching(/derived|none/), stale: true, basisNote: note });
+    expect(t.valueC).not.toBe(500);
+    expect(t.explanation.startsWith(note)).toBe(true);
+
+    const again = await clients.grower.patch(`${base}/varieties/${id}`).send({ gddTargetOverrideC: 500 });
+    expect(again.body.variety.gddTarget).toMatchObject({ valueC: 500, basis: 'override', stale: false, basisNote: 'Set at base 44.6 °F, single sine.' });
+  });
+
+  it('when a target stored before the method was recorded is read, then it counts as the library default method', async () => {
+    const { clients, base, garden } = await gardenWithClients(app);
+    const v = await makeVariety(garden.id, { cropKey: 'spinach', gddTargetOverrideC: 450 });
+    const t = (await clients.viewer.get(`${base}/varieties/${v.id}`)).body.variety.gddTarget;
+    expect(t).toMatchObject({ valueC: 450, basis: 'override', stale: false });
   });
 });

@@ -94,3 +94,73 @@ describe('crop overrides', () => {
     expect(screen.queryByRole('button', { name: /for this garden|shared default/ })).toBeNull();
   });
 });
+
+describe('crop values checked together', () => {
+  it('when the owner sets a base above the upper threshold, then the form says so in °F and sends nothing', async () => {
+    server.use(...cropsPage('owner', () => shared));
+    const { user } = renderApp('/g/1/crops');
+
+    await user.click(await screen.findByText('Lettuce'));
+    await user.click(screen.getByRole('button', { name: 'Set Base temperature for this garden' }));
+    const form = screen.getByRole('form', { name: 'Set Base temperature for this garden' });
+    const value = within(form).getByLabelText('Value for this garden, °F');
+    await user.clear(value);
+    await user.type(value, '77');
+    await user.click(within(form).getByRole('button', { name: 'Save for this garden' }));
+
+    expect(await within(form).findByText('The upper threshold (75 °F) must be above the base temperature (77 °F).')).toBeTruthy();
+    expect(seen.filter((r) => r.method === 'PATCH')).toHaveLength(0);
+  });
+
+  it('when the server refuses the pair, then its message for this field shows under the field', async () => {
+    const message = 'The upper threshold (80 °F) must be above the base temperature (82 °F).';
+    server.use(
+      ...cropsPage('owner', () => shared),
+      http.patch('/api/gardens/1/crops/lettuce', () =>
+        HttpResponse.json(
+          { error: { code: 'validation_failed', message, fields: { 'params.baseC.value': message, 'params.upperC.value': message }, requestId: 'r1' } },
+          { status: 400 },
+        ),
+      ),
+    );
+    const { user } = renderApp('/g/1/crops');
+
+    await user.click(await screen.findByText('Lettuce'));
+    await user.click(screen.getByRole('button', { name: 'Set Upper threshold for this garden' }));
+    const form = screen.getByRole('form', { name: 'Set Upper threshold for this garden' });
+    const value = within(form).getByLabelText('Value for this garden, °F');
+    await user.clear(value);
+    await user.type(value, '80');
+    await user.click(within(form).getByRole('button', { name: 'Save for this garden' }));
+
+    expect(await within(form).findByText(message)).toBeTruthy();
+    expect(within(form).getByLabelText('Value for this garden, °F').getAttribute('aria-invalid')).toBe('true');
+  });
+
+  it('when a degree-day figure is the garden’s own, then the method it was counted with shows beside it, and a stale one says it is not used', async () => {
+    const juvenile = (stale: boolean) =>
+      aParam({
+        key: 'juvenileGdd',
+        label: 'Vernalization: juvenile phase before cold counts',
+        group: 'Bolting',
+        unit: 'C-days',
+        value: 400,
+        origin: 'garden',
+        confidence: null,
+        source: 'Set for this garden',
+        libraryDefault: { value: 500, source: 'Extension bulletin (invented for tests)', confidence: 'L' },
+        ddBasis: { baseC: 40 / 9, upperC: null, method: 'single-sine', cutoff: 'horizontal', stale },
+      });
+    let crop = aCrop([aParam(), upper, juvenile(false)]);
+    server.use(...cropsPage('owner', () => crop));
+    const first = renderApp('/g/1/crops');
+    await first.user.click(await screen.findByText('Lettuce'));
+    expect(screen.getByText('set at base 40 °F, single sine')).toBeTruthy();
+    first.unmount();
+
+    crop = aCrop([aParam(), upper, juvenile(true)]);
+    const second = renderApp('/g/1/crops');
+    await second.user.click(await screen.findByText('Lettuce'));
+    expect(screen.getByText('Set at base 40 °F, single sine; this crop now counts differently, so it is not used until it is set again.')).toBeTruthy();
+  });
+});

@@ -1,6 +1,8 @@
 import { DataTypes, Model } from 'sequelize';
 import type { CreationOptional, InferAttributes, InferCreationAttributes, Sequelize } from 'sequelize';
 import type { DtmFrom, VarietyTrait } from '#shared/schemas/varieties';
+import { DD_CUTOFFS, DD_METHODS } from '#shared/crops/params';
+import type { ParamValue } from '#shared/crops/params';
 
 export class Variety extends Model<InferAttributes<Variety>, InferCreationAttributes<Variety>> {
   declare id: CreationOptional<number>;
@@ -22,6 +24,14 @@ export class Variety extends Model<InferAttributes<Variety>, InferCreationAttrib
   declare spacingCm: number | null;
   declare thinSpacingCm: number | null;
   declare gddTargetOverrideC: number | null;
+  /**
+   * The method the override was counted with (°C), set by the server when a grower sets it; all
+   * null on rows from before 0007, read as the crop's library default method.
+   */
+  declare gddTargetBaseC: CreationOptional<number | null>;
+  declare gddTargetUpperC: CreationOptional<number | null>;
+  declare gddTargetMethod: CreationOptional<ParamValue<'method'> | null>;
+  declare gddTargetCutoff: CreationOptional<ParamValue<'cutoff'> | null>;
   declare notes: string;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
@@ -58,6 +68,10 @@ export class Variety extends Model<InferAttributes<Variety>, InferCreationAttrib
         spacingCm: { type: DataTypes.DOUBLE, allowNull: true },
         thinSpacingCm: { type: DataTypes.DOUBLE, allowNull: true },
         gddTargetOverrideC: { type: DataTypes.DOUBLE, allowNull: true },
+        gddTargetBaseC: { type: DataTypes.DOUBLE, allowNull: true },
+        gddTargetUpperC: { type: DataTypes.DOUBLE, allowNull: true },
+        gddTargetMethod: { type: DataTypes.ENUM(...DD_METHODS), allowNull: true },
+        gddTargetCutoff: { type: DataTypes.ENUM(...DD_CUTOFFS), allowNull: true },
         notes: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,

@@ -1,12 +1,15 @@
 import type { Transaction } from 'sequelize';
 import type { z } from 'zod';
 import { CROP_LIBRARY, findCrop } from '#shared/crops/library';
-import { CROP_PARAM_KEYS } from '#shared/crops/params';
-import type { CropDefinition, CropParamKey, CropParams } from '#shared/crops/params';
+import { basisOfValues } from '#shared/crops/basis';
+import { paramProblems } from '#shared/crops/consistency';
+import { CROP_PARAMS, CROP_PARAM_KEYS } from '#shared/crops/params';
+import type { CropDefinition, CropParamKey, CropParamValues } from '#shared/crops/params';
 import type { CropOverridesUpdateInput, cropListQuerySchema } from '#shared/schemas/crops';
 import { CropOverride } from '../../db/models';
 import { AppError } from '../../errors';
 import { inTransaction } from '../../lib/transaction';
+import { getGarden } from '../gardens/gardens.service';
 
 type CropListQuery = z.output<typeof cropListQuerySchema>;
 
@@ -21,8 +24,8 @@ export function cropOrNotFound(cropKey: string): CropDefinition {
   return crop;
 }
 
-async function overridesOf(gardenId: number, cropKeys: string[], transaction?: Transaction) {
-  const rows = await CropOverride.findAll({ where: { gardenId, cropKey: cropKeys }, transaction });
+async function overridesOf(gardenId: number, cropKeys: string[], transaction?: Transaction, lock = false) {
+  const rows = await CropOverride.findAll({ where: { gardenId, cropKey: cropKeys }, transaction, ...(lock && transaction ? { lock: transaction.LOCK.UPDATE } : {}) });
   const byCrop = new Map<string, Map<CropParamKey, CropOverride>>();
   for (const row of rows) {
     if (!(CROP_PARAM_KEYS as string[]).includes(row.paramKey)) continue;
@@ -38,14 +41,35 @@ export function overrideValue(row: CropOverride): unknown {
 }
 
 /** A crop's parameter values as this garden uses them: its overrides over the shared defaults. */
-export function effectiveValues({ crop, overrides }: CropWithOverrides): { [K in CropParamKey]: CropParams[K]['value'] } {
+export function effectiveValues({ crop, overrides }: CropWithOverrides): CropParamValues {
   const out = {} as Record<CropParamKey, unknown>;
   for (const key of CROP_PARAM_KEYS) {
     const o = overrides.get(key);
     out[key] = o ? overrideValue(o) : crop.params[key].value;
   }
-  return out as { [K in CropParamKey]: CropParams[K]['value'] };
+  return out as CropParamValues;
 }
+
+/** The values the garden would use after this change: a removed override falls back to the default. */
+function valuesAfter(current: CropWithOverrides, input: CropOverridesUpdateInput): CropParamValues {
+  const out: Record<CropParamKey, unknown> = effectiveValues(current);
+  for (const key of CROP_PARAM_KEYS) {
+    const change = input.params[key];
+    if (change !== undefined) out[key] = change === null ? current.crop.params[key].value : change.value;
+  }
+  return out as CropParamValues;
+}
+
+function inconsistent(problems: Partial<Record<CropParamKey, string>>): AppError {
+  const fields = Object.fromEntries(Object.entries(problems).map(([key, message]) => [`params.${key}.value`, message!]));
+  const message = [...new Set(Object.values(fields))].join(' ');
+  return new AppError(400, 'validation_failed', message, fields);
+}
+
+const isDegreeDays = (key: CropParamKey) => {
+  const meta = CROP_PARAMS[key];
+  return meta.kind === 'number' && meta.unit === 'C-days';
+};
 
 export async function listCrops(gardenId: number, q: CropListQuery): Promise<CropWithOverrides[]> {
   const byCrop = await overridesOf(gardenId, CROP_LIBRARY.map((c) => c.key));
@@ -63,10 +87,20 @@ export async function getCrop(gardenId: number, cropKey: string, transaction?: T
   return { crop, overrides: byCrop.get(crop.key) ?? new Map() };
 }
 
-/** Sets or clears this garden's own values; the shared library is never written. */
+/**
+ * Sets or clears this garden's own values; the shared library is never written. The change is
+ * checked together with everything it leaves in place, and a degree-day figure keeps the
+ * method it is counted with after this change (the grower's figure is read in that method).
+ */
 export async function updateCropOverrides(gardenId: number, userId: number, cropKey: string, input: CropOverridesUpdateInput) {
   const crop = cropOrNotFound(cropKey);
+  const garden = await getGarden(gardenId);
   return inTransaction(CropOverride.sequelize!, async (transaction) => {
+    const byCrop = await overridesOf(gardenId, [crop.key], transaction, true);
+    const after = valuesAfter({ crop, overrides: byCrop.get(crop.key) ?? new Map() }, input);
+    const problems = paramProblems(after, garden.units);
+    if (Object.keys(problems).length) throw inconsistent(problems);
+    const basis = basisOfValues(after);
     for (const key of CROP_PARAM_KEYS) {
       const change = input.params[key];
       if (change === undefined) continue;
@@ -76,7 +110,16 @@ export async function updateCropOverrides(gardenId: number, userId: number, crop
         await existing?.destroy({ transaction });
         continue;
       }
-      const fields = { valueJson: JSON.stringify(change.value), note: change.note ?? '', updatedBy: userId };
+      const measured = isDegreeDays(key) && change.value !== null;
+      const fields = {
+        valueJson: JSON.stringify(change.value),
+        note: change.note ?? '',
+        updatedBy: userId,
+        ddBaseC: measured ? basis.baseC : null,
+        ddUpperC: measured ? basis.upperC : null,
+        ddMethod: measured ? basis.method : null,
+        ddCutoff: measured ? basis.cutoff : null,
+      };
       if (existing) await existing.update(fields, { transaction });
       else await CropOverride.create({ ...where, ...fields }, { transaction });
     }

@@ -1,7 +1,17 @@
 import { findCrop } from '#shared/crops/library';
+import { libraryBasis, recordedBasis } from '#shared/crops/basis';
+import type { DegreeDayBasis } from '#shared/crops/basis';
 import { traitGuidance } from '#shared/crops/guidance';
 import type { GddTargetDto, VarietyCreateInput, VarietyDto } from '#shared/schemas/varieties';
 import type { Variety } from '../../db/models';
+
+/** The method the override was counted with; rows from before 0007 count as the crop's library method. */
+export function targetBasis(v: Variety): DegreeDayBasis | null {
+  if (v.gddTargetOverrideC === null) return null;
+  const stored = recordedBasis({ baseC: v.gddTargetBaseC, upperC: v.gddTargetUpperC, method: v.gddTargetMethod, cutoff: v.gddTargetCutoff });
+  const crop = findCrop(v.cropKey);
+  return stored ?? (crop ? libraryBasis(crop) : null);
+}
 
 export function presentVariety(v: Variety, season: 'cool' | 'warm', gddTarget?: GddTargetDto): VarietyDto {
   const crop = findCrop(v.cropKey);
@@ -10,6 +20,7 @@ export function presentVariety(v: Variety, season: 'cool' | 'warm', gddTarget?: 
     id: v.id,
     crop: { key: v.cropKey, name: crop?.name ?? v.cropKey, season },
     ...packetFacts,
+    gddTargetBasis: targetBasis(v),
     guidance: traitGuidance(v.traits),
     ...(gddTarget ? { gddTarget } : {}),
   };

@@ -3,11 +3,13 @@ import type { WhereOptions } from 'sequelize';
 import type { z } from 'zod';
 import type { VarietyCreateInput, VarietyUpdateInput, varietyListQuerySchema } from '#shared/schemas/varieties';
 import { varietyCreateSchema } from '#shared/schemas/varieties';
+import { basisOfValues } from '#shared/crops/basis';
 import { Planting, SeedLot, Variety } from '../../db/models';
 import { AppError, validationError } from '../../errors';
 import { likeText, limitOffset } from '../records/paging';
 import { unreferencedOr409, uniqueOr409 } from '../records/unique';
 import { varietyFields } from './varieties.presenter';
+import { effectiveValues, getCrop } from '../crops/crops.service';
 
 type VarietyListQuery = z.output<typeof varietyListQuerySchema>;
 
@@ -29,8 +31,16 @@ export async function getVariety(gardenId: number, varietyId: number) {
   return variety;
 }
 
+/** A grower's target is read in the crop's method as it stands when the target is set. */
+async function targetBasisColumns(gardenId: number, cropKey: string, override: number | null) {
+  if (override === null) return { gddTargetBaseC: null, gddTargetUpperC: null, gddTargetMethod: null, gddTargetCutoff: null };
+  const b = basisOfValues(effectiveValues(await getCrop(gardenId, cropKey)));
+  return { gddTargetBaseC: b.baseC, gddTargetUpperC: b.upperC, gddTargetMethod: b.method, gddTargetCutoff: b.cutoff };
+}
+
 export async function createVariety(gardenId: number, input: VarietyCreateInput) {
-  return uniqueOr409(() => Variety.create({ gardenId, ...input }), duplicate, 'name');
+  const basis = await targetBasisColumns(gardenId, input.cropKey, input.gddTargetOverrideC);
+  return uniqueOr409(() => Variety.create({ gardenId, ...input, ...basis }), duplicate, 'name');
 }
 
 export async function updateVariety(gardenId: number, varietyId: number, input: VarietyUpdateInput) {
@@ -46,9 +56,10 @@ export async function updateVariety(gardenId: number, varietyId: number, input: 
       throw new AppError(409, 'in_use', msg, { cropKey: msg });
     }
   }
-  return uniqueOr409(() => variety.update(input), duplicate, 'name');
+  // Sending the target again, even unchanged, re-reads it in the crop's current method.
+  const basis = input.gddTargetOverrideC !== undefined ? await targetBasisColumns(gardenId, merged.cropKey, input.gddTargetOverrideC) : {};
+  return uniqueOr409(() => variety.update({ ...input, ...basis }), duplicate, 'name');
 }
-
 
 export async function deleteVariety(gardenId: number, varietyId: number) {
   const variety = await getVariety(gardenId, varietyId);

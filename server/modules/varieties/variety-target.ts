@@ -1,15 +1,19 @@
 /**
- * The degree-day target of a variety: the grower's override, else the thermal engine's
- * conversion of the packet's days to maturity over this garden's own past weather.
+ * The degree-day target of a variety: the grower's override while the crop still counts with
+ * the method it was set in, else the thermal engine's conversion of the packet's days to
+ * maturity over this garden's own past weather.
  */
+import { basisOfValues, basisWords, sameBasis } from '#shared/crops/basis';
+import { formatDegreeDays } from '#shared/thermal/units';
+import type { CropParamValues } from '#shared/crops/params';
 import { dayOfYear, degreeDayTargetFromDtm, isSouthern } from '#shared/thermal/index';
-import type { DailyTemp, DegreeDayMethod } from '#shared/thermal/index';
+import { startEvent } from '#shared/thermal/start-event';
+import type { DailyTemp } from '#shared/thermal/index';
 import type { GddTargetDto } from '#shared/schemas/varieties';
 import { Planting } from '../../db/models';
 import type { Garden, Variety } from '../../db/models';
-import type { effectiveValues } from '../crops/crops.service';
-
-type Effective = ReturnType<typeof effectiveValues>;
+import { cropMethod } from '../crops/crop-thermal';
+import { targetBasis } from './varieties.presenter';
 
 /**
  * Typical start windows when the garden has no plantings of the variety yet (common practice,
@@ -22,15 +26,15 @@ const DEFAULT_WINDOWS = {
 } as const;
 
 /**
- * The span of month-days this variety's packet count has started on in this garden: transplant
- * dates when its days to maturity count from transplanting, sowing dates otherwise. The span is
- * the shortest one around the calendar, so starts in November and January make a window across
- * New Year (southern summers), not one across the whole year.
+ * The span of month-days this variety's plantings have started on in this garden, each from its
+ * start event (the one rule, start-event.ts). The span is the shortest one around the calendar,
+ * so starts in November and January make a window across New Year (southern summers), not one
+ * across the whole year.
  */
 async function ownWindow(variety: Variety): Promise<{ from: string; to: string } | null> {
-  const rows = await Planting.findAll({ where: { varietyId: variety.id }, attributes: ['sownOn', 'transplantedOn'], raw: true });
+  const rows = await Planting.findAll({ where: { varietyId: variety.id }, attributes: ['method', 'status', 'sownOn', 'emergedOn', 'transplantedOn'], raw: true });
   const starts = rows
-    .map((p) => (variety.dtmFrom === 'transplant' ? p.transplantedOn : (p.sownOn ?? p.transplantedOn)))
+    .map((p) => startEvent(p, variety).event?.on)
     .filter((d): d is string => !!d)
     .map((d) => d.slice(5));
   return shortestCircularSpan(starts);
@@ -54,33 +58,63 @@ export function shortestCircularSpan(monthDays: string[]): { from: string; to: s
   return { from: sorted[after], to: sorted[(after + sorted.length - 1) % sorted.length] };
 }
 
-const none = (explanation: string): GddTargetDto => ({ valueC: null, basis: 'none', countsFrom: null, explanation, p10C: null, p90C: null });
+const none = (explanation: string): GddTargetDto => ({ valueC: null, basis: 'none', countsFrom: null, explanation, p10C: null, p90C: null, stale: false });
 
+type Override = { use: GddTargetDto } | { setAside: string };
+
+/**
+ * The grower's target when its method still holds, or the reason it is set aside: a figure
+ * counted at another base or method is a different amount of heat, so it is never reused.
+ */
+function override(variety: Variety, crop: CropParamValues, units: 'C' | 'F'): Override | null {
+  const measured = targetBasis(variety);
+  if (variety.gddTargetOverrideC === null || !measured) return null;
+  const current = basisOfValues(crop);
+  if (!sameBasis(measured, current)) {
+    const was = `${formatDegreeDays(variety.gddTargetOverrideC, units)} was set at ${basisWords(measured, units)}`;
+    return { setAside: `Your target of ${was}; this crop now counts from ${basisWords(current, units)}, so the packet-derived target is used until you set it again.` };
+  }
+  const countsFrom = variety.dtmFrom === 'transplant' ? 'transplant' : 'sowing';
+  const at = basisWords(measured, units);
+  return {
+    use: { valueC: variety.gddTargetOverrideC, basis: 'override', countsFrom, explanation: `Set by a grower for this variety, at ${at}.`, p10C: null, p90C: null, basisNote: `Set at ${at}.`, stale: false },
+  };
+}
+
+/**
+ * `forPlanting`: a planting's own start event and its days from it (startEvent()), so a planting
+ * whose start differs from the packet's count (an indoor start with a sowing count, say) gets
+ * a target counted from its own start.
+ */
 export async function varietyTarget(
   garden: Garden,
   variety: Variety,
-  crop: Effective,
+  crop: CropParamValues,
   loadHistory: (garden: Garden) => Promise<DailyTemp[]>,
+  forPlanting?: { days: number; from: 'sowing' | 'transplant' },
 ): Promise<GddTargetDto> {
-  const countsFrom = variety.dtmFrom === 'transplant' ? 'transplant' : 'sowing';
-  if (variety.gddTargetOverrideC !== null) {
-    return { valueC: variety.gddTargetOverrideC, basis: 'override', countsFrom, explanation: 'Set by a grower for this variety.', p10C: null, p90C: null };
-  }
+  const own = override(variety, crop, garden.units);
+  if (own && 'use' in own) return own.use;
+  const derived = await packetTarget(garden, variety, crop, loadHistory, forPlanting);
+  if (!own) return derived;
+  return { ...derived, explanation: `${own.setAside} ${derived.explanation}`, basisNote: own.setAside, stale: true };
+}
+
+async function packetTarget(garden: Garden, variety: Variety, crop: CropParamValues, loadHistory: (garden: Garden) => Promise<DailyTemp[]>, forPlanting?: { days: number; from: 'sowing' | 'transplant' }): Promise<GddTargetDto> {
   if (variety.dtmDays === null) return none('Add the packet’s days to maturity to derive a degree-day target.');
   const history = await loadHistory(garden);
   if (!history.length) return none('No past weather for this garden yet: the target is derived once its history has been fetched.');
   const hemisphere = isSouthern(garden.latitude ?? 0) ? 'S' : 'N';
   const own = await ownWindow(variety);
   const window = own ?? DEFAULT_WINDOWS[crop.season][hemisphere];
-  const method: DegreeDayMethod = { base: crop.baseC!, method: crop.method, cutoff: crop.cutoff, ...(crop.upperC !== null ? { upper: crop.upperC } : {}) };
   const emergence = variety.emergenceDaysMax ?? variety.emergenceDaysMin ?? undefined;
   try {
     const t = degreeDayTargetFromDtm({
-      daysToMaturity: variety.dtmDays,
-      countsFrom: variety.dtmFrom,
-      daysToEmergence: emergence,
+      ...(forPlanting
+        ? { daysToMaturity: forPlanting.days, countsFrom: forPlanting.from }
+        : { daysToMaturity: variety.dtmDays, countsFrom: variety.dtmFrom, daysToEmergence: emergence }),
       history,
-      method,
+      method: cropMethod(crop),
       window,
     });
     const from = own ? 'this variety’s own start dates' : `the usual ${crop.season}-season start window`;
@@ -91,6 +125,7 @@ export async function varietyTarget(
       explanation: `${t.days} days from ${t.countsFrom === 'transplant' ? 'transplanting' : 'sowing'}, measured in this garden’s past weather over ${from} (${window.from} to ${window.to}, ${t.samples} samples).`,
       p10C: t.p10,
       p90C: t.p90,
+      stale: false,
     };
   } catch (err) {
     if (err instanceof RangeError) return none(`The target could not be derived: ${err.message}.`);

@@ -1,5 +1,6 @@
 import { useState } from 'react';
 import { Pencil, SlidersHorizontal, Undo2 } from 'lucide-react';
+import { basisWords } from '#shared/crops/basis';
 import { CONFIDENCE_WORDS, PARAM_GROUPS } from '#shared/crops/params';
 import type { Confidence } from '#shared/crops/params';
 import type { CropDto, CropParamDto } from '#shared/schemas/crops';
@@ -37,7 +38,35 @@ function ConfidenceWord({ confidence }: { confidence: Confidence }) {
   return <abbr title={CONFIDENCE_WORDS[confidence]}>{CONFIDENCE_WORDS[confidence].split(':')[0]}</abbr>;
 }
 
-function Param({ gardenId, cropKey, p, units, canEdit }: { gardenId: number; cropKey: string; p: CropParamDto; units: DisplayUnit; canEdit: boolean }) {
+/** A degree-day figure only means something in the method it was counted with. */
+function DegreeDayBasisNote({ p, units }: { p: CropParamDto; units: DisplayUnit }) {
+  const b = p.ddBasis;
+  if (!b || (p.origin !== 'garden' && !b.stale)) return null;
+  const words = basisWords(b, units);
+  if (!b.stale) return <span className="block text-sm text-loam-soft">set at {words}</span>;
+  const whose = p.origin === 'garden' ? 'Set' : 'Shared figure counted';
+  return (
+    <span className="block text-sm text-clay">
+      {whose} at {words}; this crop now counts differently, so it is not used until it is set again.
+    </span>
+  );
+}
+
+function Param({
+  gardenId,
+  cropKey,
+  p,
+  params,
+  units,
+  canEdit,
+}: {
+  gardenId: number;
+  cropKey: string;
+  p: CropParamDto;
+  params: readonly CropParamDto[];
+  units: DisplayUnit;
+  canEdit: boolean;
+}) {
   const [editing, setEditing] = useState(false);
   const clear = useUpdateCropOverrides(gardenId, cropKey);
   const overridden = p.origin === 'garden';
@@ -46,6 +75,7 @@ function Param({ gardenId, cropKey, p, units, canEdit }: { gardenId: number; cro
       <dt className="font-semibold">{p.label}</dt>
       <dd className="tabular-nums">
         {formatParam(p, units)}
+        <DegreeDayBasisNote p={p} units={units} />
         {overridden && (
           <span className="mt-1 flex w-fit items-center gap-1 rounded-full border border-frost bg-frost-tint px-2 text-sm font-semibold text-frost">
             <SlidersHorizontal className="size-3.5" aria-hidden="true" /> Overridden for this garden
@@ -92,7 +122,7 @@ function Param({ gardenId, cropKey, p, units, canEdit }: { gardenId: number; cro
         )}
         {clear.isError && <FieldError>{clear.error.message}</FieldError>}
       </dd>
-      {editing && <ParamOverrideForm gardenId={gardenId} cropKey={cropKey} param={p} units={units} onDone={() => setEditing(false)} />}
+      {editing && <ParamOverrideForm gardenId={gardenId} cropKey={cropKey} param={p} params={params} units={units} onDone={() => setEditing(false)} />}
     </div>
   );
 }
@@ -122,7 +152,7 @@ export function CropLibrary({ gardenId, crops, units, canEdit }: { gardenId: num
                     <h3 className="mt-3 font-bold">{g}</h3>
                     <dl>
                       {crop.params.filter((p) => p.group === g).map((p) => (
-                        <Param key={p.key} gardenId={gardenId} cropKey={crop.key} p={p} units={units} canEdit={canEdit} />
+                        <Param key={p.key} gardenId={gardenId} cropKey={crop.key} p={p} params={crop.params} units={units} canEdit={canEdit} />
                       ))}
                     </dl>
                   </section>

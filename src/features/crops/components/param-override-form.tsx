@@ -1,6 +1,7 @@
 import { useId, useState } from 'react';
-import { CROP_PARAMS } from '#shared/crops/params';
-import type { CropParamKey } from '#shared/crops/params';
+import { paramProblems } from '#shared/crops/consistency';
+import { CROP_PARAMS, CROP_PARAM_KEYS } from '#shared/crops/params';
+import type { CropParamKey, CropParamValues } from '#shared/crops/params';
 import { cropOverridesUpdateSchema } from '#shared/schemas/crops';
 import type { CropParamDto } from '#shared/schemas/crops';
 import type { DisplayUnit } from '#shared/schemas/gardens';
@@ -40,17 +41,36 @@ function initialText(p: CropParamDto, units: DisplayUnit): string {
   return String(p.value);
 }
 
-/** Sets this garden's own value for one crop parameter, checked with the shared schema first. */
+/** The crop's values as the garden has them, with this one changed: what the server will check. */
+function valuesWith(params: readonly CropParamDto[], key: CropParamKey, value: unknown): CropParamValues {
+  const byKey = new Map<string, unknown>(params.map((q) => [q.key, q.value]));
+  byKey.set(key, value);
+  return Object.fromEntries(CROP_PARAM_KEYS.map((k) => [k, byKey.get(k) ?? null])) as CropParamValues;
+}
+
+/** The server's message for this field, else its first one: a change may break a pair with another field. */
+function serverProblem(error: Error, key: CropParamKey): string {
+  const fields = (error as { fields?: Record<string, string> }).fields ?? {};
+  return fields[`params.${key}.value`] ?? Object.values(fields)[0] ?? error.message;
+}
+
+/**
+ * Sets this garden's own value for one crop parameter, checked with the shared schema and then,
+ * with the crop's other values, with the same consistency rule as the server.
+ */
 export function ParamOverrideForm({
   gardenId,
   cropKey,
   param: p,
+  params,
   units,
   onDone,
 }: {
   gardenId: number;
   cropKey: string;
   param: CropParamDto;
+  /** Every parameter of the crop as the garden has it. */
+  params: readonly CropParamDto[];
   units: DisplayUnit;
   onDone: () => void;
 }) {
@@ -82,11 +102,12 @@ export function ParamOverrideForm({
       const outOfRange = (issue.code === 'too_small' || issue.code === 'too_big') && range;
       return setProblem(outOfRange ? `${p.label} must be from ${range}.` : issue.message);
     }
+    const key = p.key as CropParamKey;
+    const problems = paramProblems(valuesWith(params, key, parsed.data.params[key]?.value), units);
+    const together = problems[key] ?? Object.values(problems)[0];
+    if (together) return setProblem(together);
     setProblem(null);
-    save.mutate(parsed.data, {
-      onSuccess: onDone,
-      onError: (error) => setProblem(Object.values((error as { fields?: Record<string, string> }).fields ?? {})[0] ?? error.message),
-    });
+    save.mutate(parsed.data, { onSuccess: onDone, onError: (error) => setProblem(serverProblem(error, key)) });
   };
 
   return (

@@ -2,6 +2,7 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { VarietyDto, VarietyUpdateInput } from '#shared/schemas/varieties';
 import { api } from '@/lib/api-client';
 import { varietyKeys } from '@/features/varieties/api/variety-keys';
+import { progressRootKey } from '@/lib/progress-root-key';
 
 export async function updateVariety(gardenId: number, varietyId: number, input: VarietyUpdateInput): Promise<VarietyDto> {
   return (await api.patch<{ variety: VarietyDto }>(`/api/gardens/${gardenId}/varieties/${varietyId}`, input)).variety;
@@ -11,7 +12,8 @@ export function useUpdateVariety(gardenId: number, varietyId: number) {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: (input: VarietyUpdateInput) => updateVariety(gardenId, varietyId, input),
-    // The degree-day target follows from days to maturity, so the detail is stale too.
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: varietyKeys.all(gardenId) }),
+    // The degree-day target follows from days to maturity, so the detail and every planting's progress are stale too.
+    onSuccess: () =>
+      Promise.all([queryClient.invalidateQueries({ queryKey: varietyKeys.all(gardenId) }), queryClient.invalidateQueries({ queryKey: progressRootKey(gardenId) })]),
   });
 }

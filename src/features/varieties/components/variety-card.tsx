@@ -3,17 +3,17 @@ import { Info, Pencil, Sprout, TriangleAlert } from 'lucide-react';
 import type { DisplayUnit } from '#shared/schemas/gardens';
 import { DTM_FROM_WORDS, RATING_WORDS, TRAIT_WORDS } from '#shared/schemas/varieties';
 import type { VarietyDto } from '#shared/schemas/varieties';
-import { cDaysToFDays } from '#shared/thermal/units';
+import { formatDegreeDays as degreeDays } from '#shared/thermal/units';
 import { Button } from '@/components/ui/button';
 import { ConfirmDelete } from '@/components/ui/confirm-delete';
 import { Loading } from '@/components/ui/loading';
 import { useVariety } from '@/features/varieties/api/get-variety';
 import { useDeleteVariety } from '@/features/varieties/api/delete-variety';
 import { VarietyForm } from '@/features/varieties/components/variety-form';
+import { targetWords } from '@/features/varieties/components/target-words';
 
 const rating = (n: number | null) => (n === null ? '—' : `${RATING_WORDS[n]} (${n} of 5)`);
 const cm = (n: number | null) => (n === null ? '—' : `${n} cm`);
-const degreeDays = (c: number, units: DisplayUnit) => (units === 'F' ? `${Math.round(cDaysToFDays(c))} °F-days` : `${Math.round(c)} °C-days`);
 
 function Target({ gardenId, id, units }: { gardenId: number; id: number; units: DisplayUnit }) {
   const v = useVariety(gardenId, id);
@@ -25,6 +25,7 @@ function Target({ gardenId, id, units }: { gardenId: number; id: number; units: 
       <p className="font-semibold">
         Degree-day target: {t.valueC === null ? 'not known yet' : `${degreeDays(t.valueC, units)} from ${t.countsFrom === 'transplant' ? 'transplanting' : 'sowing'}`}
         {t.basis === 'override' && ' (set by a grower)'}
+        {t.stale && ' (your own target is set aside)'}
       </p>
       {t.p10C !== null && t.p90C !== null && (
         <p className="text-sm">Past years ranged {degreeDays(t.p10C, units)} to {degreeDays(t.p90C, units)} (10th–90th percentile).</p>
@@ -38,7 +39,7 @@ export function VarietyCard({ gardenId, variety: v, units, canEdit }: { gardenId
   const [showTarget, setShowTarget] = useState(false);
   const [editing, setEditing] = useState(false);
   const remove = useDeleteVariety(gardenId, v.id);
-  if (editing) return <VarietyForm gardenId={gardenId} variety={v} onSaved={() => setEditing(false)} onCancel={() => setEditing(false)} />;
+  if (editing) return <VarietyForm gardenId={gardenId} variety={v} units={units} onSaved={() => setEditing(false)} onCancel={() => setEditing(false)} />;
   const facts: [string, string][] = [
     ['Days to maturity', v.dtmDays === null ? '—' : `${v.dtmDays} days ${DTM_FROM_WORDS[v.dtmFrom]}`],
     ['Days to emergence', v.emergenceDaysMin === null && v.emergenceDaysMax === null ? '—' : `${v.emergenceDaysMin ?? '?'}–${v.emergenceDaysMax ?? '?'} days`],
@@ -50,6 +51,7 @@ export function VarietyCard({ gardenId, variety: v, units, canEdit }: { gardenId
     ['Sun', v.sunHours === null ? '—' : `${v.sunHours} h a day`],
     ['Water', v.waterCmPerWeek === null ? '—' : `${v.waterCmPerWeek} cm a week`],
     ['Container-friendly', v.containerFriendly ? 'Yes' : 'No'],
+    ...(v.gddTargetOverrideC !== null ? [['Your degree-day target', targetWords(v, units)] as [string, string]] : []),
   ];
   return (
     <article className="flex flex-col gap-3 rounded-lg border border-line bg-paper-raised p-4">

@@ -4,6 +4,7 @@ import type { z } from 'zod';
 import { CROP_LIBRARY } from '#shared/crops/library';
 import { DTM_FROM, DTM_FROM_WORDS, RATING_WORDS, TRAIT_WORDS, VARIETY_TRAITS, varietyCreateSchema } from '#shared/schemas/varieties';
 import type { VarietyCreateInput, VarietyDto } from '#shared/schemas/varieties';
+import type { DisplayUnit } from '#shared/schemas/gardens';
 import { applyServerFieldErrors } from '@/lib/form-errors';
 import { changedValues } from '@/lib/changed-values';
 import { Button } from '@/components/ui/button';
@@ -11,6 +12,7 @@ import { Notice } from '@/components/ui/notice';
 import { FieldError, TextField } from '@/components/ui/text-field';
 import { useCreateVariety } from '@/features/varieties/api/create-variety';
 import { useUpdateVariety } from '@/features/varieties/api/update-variety';
+import { targetWords } from '@/features/varieties/components/target-words';
 
 type FormInput = z.input<typeof varietyCreateSchema>;
 const numberOrNull = (v: unknown) => (v === '' || v === undefined || v === null ? null : Number(v));
@@ -23,12 +25,25 @@ const EMPTY: FormInput = {
 };
 
 function valuesOf(v: VarietyDto): FormInput {
-  const { id: _id, crop, guidance: _guidance, gddTarget: _target, ...fields } = v;
+  const { id: _id, crop, guidance: _guidance, gddTarget: _target, gddTargetBasis: _basis, ...fields } = v;
   return { ...fields, cropKey: crop.key };
 }
 
 /** Adds a variety, or with `variety` edits that one and sends only the fields that changed. */
-export function VarietyForm({ gardenId, variety, onSaved, onCancel }: { gardenId: number; variety?: VarietyDto; onSaved: () => void; onCancel?: () => void }) {
+export function VarietyForm({
+  gardenId,
+  variety,
+  units = 'C',
+  onSaved,
+  onCancel,
+}: {
+  gardenId: number;
+  variety?: VarietyDto;
+  /** How the grower's own degree-day target is shown while editing. */
+  units?: DisplayUnit;
+  onSaved: () => void;
+  onCancel?: () => void;
+}) {
   const create = useCreateVariety(gardenId);
   const update = useUpdateVariety(gardenId, variety?.id ?? 0);
   const mutation = variety ? update : create;
@@ -100,6 +115,9 @@ export function VarietyForm({ gardenId, variety, onSaved, onCancel }: { gardenId
       <TextField label="Sun" unit="h a day" inputMode="decimal" error={e.sunHours?.message} {...num('sunHours')} />
       <TextField label="Water" unit="cm a week" inputMode="decimal" error={e.waterCmPerWeek?.message} {...num('waterCmPerWeek')} />
       <TextField label="Notes" error={e.notes?.message} {...register('notes')} />
+      {variety && variety.gddTargetOverrideC !== null && (
+        <p className="text-sm text-loam-soft sm:col-span-2">Your degree-day target: {targetWords(variety, units)}.</p>
+      )}
       {mutation.isError && !Object.keys(e).length && <div className="sm:col-span-2"><Notice tone="error" live="alert">{mutation.error.message}</Notice></div>}
       <div className="flex flex-wrap gap-2">
         <Button type="submit" disabled={formState.isSubmitting}>{variety ? 'Save changes' : 'Save variety'}</Button>
