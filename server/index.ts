@@ -5,6 +5,7 @@ import { createApp } from './app';
 import { createLogger } from './lib/logger';
 import { scheduleWeatherJob } from './jobs/weather-job';
 import type { WeatherService } from './modules/weather/weather.service';
+import type { Worker } from './jobs/worker';
 
 const config = loadConfig();
 const logger = createLogger(config.logLevel);
@@ -19,6 +20,9 @@ if (config.weather.mode === 'fake') {
 
 const app = createApp({ config, sequelize, logger });
 const weather = app.locals.weather as WeatherService;
+// Every instance runs the event worker: claims are per row, so instances share the work.
+const worker = app.locals.worker as Worker;
+worker.start();
 const task = config.scheduler
   ? scheduleWeatherJob(weather, { cron: config.weather.cron, timeZone: config.weather.cronTimeZone, logger })
   : null;
@@ -39,9 +43,12 @@ async function shutdown(signal: string) {
   stopping = true;
   logger.info('shutting down', { signal });
   await task?.stop();
-  server.close();
+  // Requests in flight finish before the database closes under them (at most 10 s).
+  const drained = new Promise((resolve) => server.close(resolve));
   server.closeIdleConnections();
+  await Promise.race([drained, new Promise((resolve) => setTimeout(resolve, 10_000).unref())]);
   await weather.idle();
+  await worker.stop();
   await sequelize.close().catch(() => undefined);
   process.exit(0);
 }

@@ -8,6 +8,7 @@ import axios from 'axios';
 import type { AxiosError, AxiosInstance } from 'axios';
 import axiosRetry, { isNetworkOrIdempotentRequestError } from 'axios-retry';
 import { z } from 'zod';
+import { fToC } from '#shared/thermal/units';
 import type { Logger } from '../../lib/logger';
 
 export const OPEN_METEO_FORECAST_URL = 'https://api.open-meteo.com/v1/forecast';
@@ -66,7 +67,8 @@ const tempSchema = z.number().finite().min(-90).max(60);
 
 function toCelsius(unit: string): ((v: number) => number) | null {
   if (unit === '°C') return (v) => v;
-  if (unit === '°F') return (v) => Math.round(((v - 32) / 1.8) * 10) / 10;
+  // Unrounded, like station imports: a rounded 24 °F would no longer be a severe freeze.
+  if (unit === '°F') return fToC;
   return null;
 }
 

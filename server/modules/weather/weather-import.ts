@@ -1,7 +1,7 @@
 /**
  * A grower's own station data as CSV: date, high, low in °F or °C. Every row is checked and every
  * problem reported with its line and column; the file is stored all or nothing, in one
- * transaction, and re-uploading the same file adds nothing.
+ * transaction with the garden's "weather changed" event, and re-uploading the same file adds nothing.
  */
 import { createHash } from 'node:crypto';
 import { parse } from 'csv-parse/sync';
@@ -12,6 +12,8 @@ import type { CsvRowError, WeatherImportResult } from '#shared/schemas/weather';
 import { parseIsoDate } from '#shared/thermal/dates';
 import { fToC } from '#shared/thermal/units';
 import { AppError } from '../../errors';
+import { recordWeatherChanged } from './weather-events';
+import { sameTemp } from './weather.repository';
 
 const ALIASES: Record<'date' | 'high' | 'low', string[]> = {
   date: ['date', 'day'],
@@ -88,7 +90,8 @@ export function parseStationCsv(buffer: Buffer, unit: 'F' | 'C', today: string):
         rowProblems.push({ line, column: key, message: `"${raw}" is not a number.` });
         continue;
       }
-      const c = Math.round(toC(v) * 10) / 10;
+      // Unrounded: 24 °F must stay exactly the severe-freeze threshold, not −4.4 °C above it.
+      const c = toC(v);
       if (c < -90 || c > 60) {
         rowProblems.push({ line, column: key, message: `${v} °${unit} is outside the plausible range for air temperature.` });
         continue;
@@ -114,6 +117,7 @@ export function parseStationCsv(buffer: Buffer, unit: 'F' | 'C', today: string):
 export async function importStationCsv(
   sequelize: Sequelize,
   p: { gardenId: number; userId: number; fileName: string; buffer: Buffer; unit: 'F' | 'C'; today: string },
+  afterCommit: () => void = () => undefined,
 ): Promise<WeatherImportResult> {
   const rows = parseStationCsv(p.buffer, p.unit, p.today);
   const sha256 = createHash('sha256').update(p.buffer).update(p.unit).digest('hex');
@@ -133,12 +137,12 @@ export async function importStationCsv(
           'SELECT date, tmax_c AS tmax, tmin_c AS tmin FROM garden_weather_days WHERE garden_id = ? AND date BETWEEN ? AND ? FOR UPDATE',
           { replacements: [p.gardenId, span.from, span.to], type: QueryTypes.SELECT, transaction },
         )
-      ).map((r) => [r.date, { tmax: Number(r.tmax), tmin: Number(r.tmin) }]),
+      ).map((r) => [r.date, r]),
     );
     const added = rows.filter((r) => !existing.has(r.date));
     const changed = rows.filter((r) => {
       const old = existing.get(r.date);
-      return old && (old.tmax !== r.tmax || old.tmin !== r.tmin);
+      return old && (!sameTemp(old.tmax, r.tmax) || !sameTemp(old.tmin, r.tmin));
     });
     const [importId] = (await sequelize.query(
       `INSERT INTO weather_imports (garden_id, user_id, file_name, sha256, unit, rows_in_file, rows_added, rows_changed, created_at)
@@ -154,6 +158,11 @@ export async function importStationCsv(
          ON DUPLICATE KEY UPDATE tmax_c = VALUES(tmax_c), tmin_c = VALUES(tmin_c), import_id = VALUES(import_id), updated_at = VALUES(updated_at)`,
         { replacements: chunk.flatMap((r) => [p.gardenId, r.date, r.tmax, r.tmin, importId]), transaction },
       );
+    }
+    if (writes.length) {
+      const written = writes.map((r) => r.date).sort();
+      await recordWeatherChanged(transaction, { gardenId: p.gardenId }, written[0], written[written.length - 1]);
+      transaction.afterCommit(afterCommit);
     }
     return { importId, rowsInFile: rows.length, rowsAdded: added.length, rowsChanged: changed.length, alreadyImported: false, ...span };
   });

@@ -25,6 +25,20 @@ export interface StoredDay {
 }
 
 export type CellSource = 'observed' | 'forecast' | 'filled';
+
+export interface CellDayWrite {
+  date: string;
+  tmax: number;
+  tmin: number;
+  source: CellSource;
+  note?: string | null;
+}
+
+/**
+ * Temperatures are DOUBLE and may come from °F arithmetic: equal readings can differ in the last
+ * bits, and no real change is ever this small.
+ */
+export const sameTemp = (a: number, b: number) => Math.abs(a - b) < 1e-9;
 /** An observation replaces a fill, and a fill replaces a forecast; never the other way round. */
 const RANK: Record<CellSource, number> = { forecast: 1, filled: 2, observed: 3 };
 
@@ -75,7 +89,7 @@ export class WeatherRepository {
    * Claims one cell that gardens use and that nobody refreshed since `cutoff`, by a lease taken
    * under FOR UPDATE SKIP LOCKED: concurrent instances never claim the same cell.
    */
-  async claimCell(owner: string, cutoff: Date, leaseMs: number, onlyCellId?: number): Promise<CellRow | null> {
+  async claimCell(owner: string, cutoff: Date, leaseMs: number, onlyCellId?: number, skip: readonly number[] = []): Promise<CellRow | null> {
     return inTransaction(this.db, async (transaction) => {
       const [row] = await this.db.query<{ id: number }>(
         `SELECT c.id FROM weather_cells c
@@ -83,8 +97,13 @@ export class WeatherRepository {
             AND (c.refreshed_at IS NULL OR c.refreshed_at < ?)
             AND (c.lease_until IS NULL OR c.lease_until < UTC_TIMESTAMP(3))
             ${onlyCellId ? 'AND c.id = ?' : ''}
+            ${skip.length ? 'AND c.id NOT IN (?)' : ''}
           ORDER BY c.id LIMIT 1 FOR UPDATE SKIP LOCKED`,
-        { replacements: onlyCellId ? [cutoff, onlyCellId] : [cutoff], type: QueryTypes.SELECT, transaction },
+        {
+          replacements: [cutoff, ...(onlyCellId ? [onlyCellId] : []), ...(skip.length ? [skip] : [])],
+          type: QueryTypes.SELECT,
+          transaction,
+        },
       );
       if (!row) return null;
       await this.db.query(
@@ -143,49 +162,70 @@ export class WeatherRepository {
         WHERE cell_id = ? AND date BETWEEN ? AND ? ORDER BY date`,
       { replacements: [cellId, from, to], type: QueryTypes.SELECT, transaction },
     );
-    return rows.map((r) => ({ ...r, tmax: Number(r.tmax), tmin: Number(r.tmin) }));
+    return rows;
   }
 
   /**
    * Writes days for a cell, skipping any that would lower provenance or change nothing, so a
-   * re-run of the same day writes nothing. Returns how many rows were inserted or changed.
+   * re-run of the same day writes nothing. Returns the dates inserted or changed, in order.
    */
-  async upsertCellDays(
-    cellId: number,
-    days: Array<{ date: string; tmax: number; tmin: number; source: CellSource; note?: string | null }>,
-  ): Promise<number> {
-    if (!days.length) return 0;
+  async upsertCellDays(cellId: number, days: CellDayWrite[], transaction: Transaction): Promise<string[]> {
+    if (!days.length) return [];
     const sorted = [...days].sort((a, b) => (a.date < b.date ? -1 : 1));
-    return inTransaction(this.db, async (transaction) => {
-      const existing = new Map(
-        (await this.cellDays(cellId, sorted[0].date, sorted[sorted.length - 1].date, transaction)).map((d) => [d.date, d]),
-      );
-      const writes = sorted.filter((d) => {
-        const old = existing.get(d.date);
-        if (!old) return true;
-        if (RANK[d.source] < RANK[old.source as CellSource]) return false;
-        return old.tmax !== d.tmax || old.tmin !== d.tmin || old.source !== d.source || (old.note ?? null) !== (d.note ?? null);
-      });
-      for (let i = 0; i < writes.length; i += 1000) {
-        const chunk = writes.slice(i, i + 1000);
-        await this.db.query(
-          `INSERT INTO weather_days (cell_id, date, tmax_c, tmin_c, source, fill_note, fetched_at)
-           VALUES ${chunk.map(() => '(?, ?, ?, ?, ?, ?, UTC_TIMESTAMP(3))').join(', ')}
-           ON DUPLICATE KEY UPDATE ${RANKED_UPDATE}`,
-          { replacements: chunk.flatMap((d) => [cellId, d.date, d.tmax, d.tmin, d.source, d.note ?? null]), transaction },
-        );
-      }
-      return writes.length;
+    const existing = new Map(
+      (await this.cellDays(cellId, sorted[0].date, sorted[sorted.length - 1].date, transaction)).map((d) => [d.date, d]),
+    );
+    const writes = sorted.filter((d) => {
+      const old = existing.get(d.date);
+      if (!old) return true;
+      if (RANK[d.source] < RANK[old.source as CellSource]) return false;
+      return !sameTemp(old.tmax, d.tmax) || !sameTemp(old.tmin, d.tmin) || old.source !== d.source || (old.note ?? null) !== (d.note ?? null);
     });
+    for (let i = 0; i < writes.length; i += 1000) {
+      const chunk = writes.slice(i, i + 1000);
+      await this.db.query(
+        `INSERT INTO weather_days (cell_id, date, tmax_c, tmin_c, source, fill_note, fetched_at)
+         VALUES ${chunk.map(() => '(?, ?, ?, ?, ?, ?, UTC_TIMESTAMP(3))').join(', ')}
+         ON DUPLICATE KEY UPDATE ${RANKED_UPDATE}`,
+        { replacements: chunk.flatMap((d) => [cellId, d.date, d.tmax, d.tmin, d.source, d.note ?? null]), transaction },
+      );
+    }
+    return writes.map((d) => d.date);
   }
 
-  async gardenDays(gardenId: number, from: string, to: string, transaction?: Transaction) {
-    const rows = await this.db.query<{ date: string; tmax: number; tmin: number }>(
-      `SELECT date, tmax_c AS tmax, tmin_c AS tmin FROM garden_weather_days
-        WHERE garden_id = ? AND date BETWEEN ? AND ? ORDER BY date`,
-      { replacements: [gardenId, from, to], type: QueryTypes.SELECT, transaction },
+  /** The first and last date a cell has a value for, if any. */
+  async cellSpan(cellId: number, transaction?: Transaction): Promise<{ from: string; to: string } | null> {
+    const [row] = await this.db.query<{ from: string | null; to: string | null }>(
+      'SELECT MIN(date) AS `from`, MAX(date) AS `to` FROM weather_days WHERE cell_id = ?',
+      { replacements: [cellId], type: QueryTypes.SELECT, transaction },
     );
-    return rows.map((r) => ({ date: r.date, tmax: Number(r.tmax), tmin: Number(r.tmin) }));
+    return row?.from && row.to ? { from: row.from, to: row.to } : null;
+  }
+
+  /** The days of several cells in one query, per cell in date order. */
+  async cellsDays(cellIds: number[], from: string, to: string, transaction?: Transaction): Promise<Map<number, StoredDay[]>> {
+    const out = new Map<number, StoredDay[]>(cellIds.map((id) => [id, []]));
+    if (!cellIds.length) return out;
+    const rows = await this.db.query<StoredDay & { cellId: number }>(
+      `SELECT cell_id AS cellId, date, tmax_c AS tmax, tmin_c AS tmin, source, fill_note AS note FROM weather_days
+        WHERE cell_id IN (?) AND date BETWEEN ? AND ? ORDER BY cell_id, date`,
+      { replacements: [cellIds, from, to], type: QueryTypes.SELECT, transaction },
+    );
+    for (const { cellId, ...d } of rows) out.get(cellId)!.push(d);
+    return out;
+  }
+
+  /** Station days of several gardens in one query, per garden in date order. */
+  async gardensDays(gardenIds: number[], from: string, to: string, transaction?: Transaction): Promise<Map<number, StoredDay[]>> {
+    const out = new Map<number, StoredDay[]>(gardenIds.map((id) => [id, []]));
+    if (!gardenIds.length) return out;
+    const rows = await this.db.query<{ gardenId: number; date: string; tmax: number; tmin: number }>(
+      `SELECT garden_id AS gardenId, date, tmax_c AS tmax, tmin_c AS tmin FROM garden_weather_days
+        WHERE garden_id IN (?) AND date BETWEEN ? AND ? ORDER BY garden_id, date`,
+      { replacements: [gardenIds, from, to], type: QueryTypes.SELECT, transaction },
+    );
+    for (const { gardenId, ...d } of rows) out.get(gardenId)!.push({ ...d, source: 'imported', note: null });
+    return out;
   }
 
   async gardensOfCell(cellId: number): Promise<number[]> {

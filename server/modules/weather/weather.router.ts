@@ -11,7 +11,7 @@ import { mountRoutes, requireSignedIn } from '../../lib/routes';
 import type { RouteTableEntry } from '../../lib/routes';
 import { parseBody, parseQuery } from '../../lib/validate';
 import { getGarden } from '../gardens/gardens.service';
-import { findGaps } from './weather.service';
+import { findGaps } from './weather-gaps';
 import type { WeatherService } from './weather.service';
 import { importStationCsv } from './weather-import';
 import { activeThresholds } from './weather-thresholds';
@@ -100,7 +100,7 @@ export function weatherRouter(deps: { sequelize: Sequelize; weather: WeatherServ
             buffer: req.file.buffer,
             unit: fields.unit,
             today: localDate(garden.timeZone, weather.now()),
-          });
+          }, () => weather.eventsCommitted());
           res.status(result.alreadyImported ? 200 : 201).json({ import: result });
         },
       },

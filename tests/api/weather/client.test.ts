@@ -88,7 +88,10 @@ describe('weather service client (Open-Meteo format, answered by the MSW fake)',
     await expect(client().history(plot)).rejects.toThrow(/Unexpected temperature units/);
     fakeWeather.fail({ kind: 'units', unit: '°F' });
     const res = await client().history(plot);
-    // The fake still sent °C numbers, so reading them as °F must change them: 14.2 °F = -9.9 °C.
-    expect(res.days[0]).toEqual({ date: '2024-04-01', tmax: -9.9, tmin: -16.6 });
+    // The fake still sent °C numbers, so reading them as °F must change them, unrounded:
+    // 14.2 °F = (14.2 − 32) / 1.8 = −9.888… °C.
+    expect(res.days[0].date).toBe('2024-04-01');
+    expect(res.days[0].tmax).toBeCloseTo(-9.8889, 4);
+    expect(res.days[0].tmin).toBeCloseTo(-16.6111, 4);
   });
 });

@@ -7,6 +7,7 @@ import { syntheticDay } from '../../../fixtures/weather/generator';
 import { addDays } from '#shared/thermal/dates';
 import type { WeatherService } from '../../../server/modules/weather/weather.service';
 import { RANKED_UPDATE } from '../../../server/modules/weather/weather.repository';
+import { findGaps } from '../../../server/modules/weather/weather-gaps';
 
 const { sequelize } = testDb();
 beforeEach(() => fakeWeather.reset());
@@ -140,7 +141,6 @@ describe('weather pipeline', () => {
 
     const series = await weather.gardenSeries({ id: garden.id, weatherCellId: cellId }, '2026-06-05', '2026-06-19');
     const dates = new Set(series.filter((d) => d.source !== 'forecast').map((d) => d.date));
-    const { findGaps } = await import('../../../server/modules/weather/weather.service');
     expect(findGaps(dates, '2026-06-05', '2026-06-19')).toEqual([{ from: '2026-06-07', to: '2026-06-10', days: 4 }]);
 
     // A later observation replaces the fill.
@@ -211,7 +211,7 @@ describe('provenance is enforced by the database too', () => {
   it('when a fill is written over an observed day (as a racing writer would), then the observation stays', async () => {
     const weather = testWeather();
     const { cellId } = await locatedGarden(weather);
-    await weather.repo.upsertCellDays(cellId, [{ date: '2020-03-03', tmax: 12.5, tmin: 1.5, source: 'observed' }]);
+    await sequelize.transaction((t) => weather.repo.upsertCellDays(cellId, [{ date: '2020-03-03', tmax: 12.5, tmin: 1.5, source: 'observed' }], t));
     // A writer whose read saw no observation yet: its statement reaches the row after the observation did.
     await sequelize.query(
       `INSERT INTO weather_days (cell_id, date, tmax_c, tmin_c, source, fill_note, fetched_at)
