@@ -24,6 +24,12 @@ import { photosRouter } from './modules/photos/photos.router';
 import { weatherRouter } from './modules/weather/weather.router';
 import { WeatherService } from './modules/weather/weather.service';
 import { createWeatherClient } from './integrations/weather/open-meteo';
+import { ProgressService } from './modules/progress/progress.service';
+import { progressRouter } from './modules/progress/progress.router';
+import { registerProgressInvalidation } from './modules/progress/progress-invalidation';
+import { plantingProgressProcessor } from './jobs/processors/planting-progress';
+import { createWorker } from './jobs/worker';
+import type { Worker } from './jobs/worker';
 
 export interface AppDeps {
   config: AppConfig;
@@ -33,6 +39,8 @@ export interface AppDeps {
   clientDir?: string | null;
   /** Injected in tests and benchmarks; built from config otherwise. */
   weather?: WeatherService;
+  /** Runs the garden event processors; one is made (not started) when none is given. */
+  worker?: Worker;
 }
 
 export function createWeatherService(config: AppConfig, sequelize: Sequelize, logger: Logger, now?: () => Date) {
@@ -51,10 +59,17 @@ export function createWeatherService(config: AppConfig, sequelize: Sequelize, lo
   });
 }
 
-export function createApp({ config, sequelize, logger = createLogger(config.logLevel), clientDir, weather }: AppDeps) {
+export function createApp({ config, sequelize, logger = createLogger(config.logLevel), clientDir, weather, worker }: AppDeps) {
   const app = express();
   const weatherService = weather ?? createWeatherService(config, sequelize, logger);
+  const eventWorker = worker ?? createWorker({ sequelize, logger });
+  weatherService.onEventsCommitted(() => eventWorker.kick());
   app.locals.weather = weatherService;
+  const progress = new ProgressService(sequelize, weatherService);
+  app.locals.progress = progress;
+  registerProgressInvalidation(progress.repo);
+  eventWorker.register(plantingProgressProcessor(progress));
+  app.locals.worker = eventWorker;
   const routes: RouteTableEntry[] = [];
   app.locals.routes = routes;
   app.disable('x-powered-by');
@@ -104,7 +119,8 @@ export function createApp({ config, sequelize, logger = createLogger(config.logL
   api.use(cropsRouter(routes));
   api.use(varietiesRouter(routes, weatherService));
   api.use(seedLotsRouter(routes));
-  api.use(plantingsRouter(config, routes));
+  api.use(progressRouter(progress, routes));
+  api.use(plantingsRouter(config, routes, progress));
   api.use(photosRouter(config, routes));
   api.use('/api', () => {
     throw new AppError(404, 'not_found', 'No such API route.');

@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { idSchema, isoDateSchema, notesSchema, nullableNumber, pageQueryShape, sortOrderSchema } from './records';
 import type { Page } from './records';
+import type { ProgressSummaryDto } from './progress';
 
 export const PLANTING_METHODS = ['direct-sow', 'transplant', 'indoor-start'] as const;
 export type PlantingMethod = (typeof PLANTING_METHODS)[number];
@@ -99,7 +100,7 @@ export const plantingUpdateSchema = z
   .superRefine((p, ctx) => checkStages(p, ctx, false));
 export type PlantingUpdateInput = z.infer<typeof plantingUpdateSchema>;
 
-export const PLANTING_SORTS = ['sown', 'crop', 'variety', 'bed', 'status'] as const;
+export const PLANTING_SORTS = ['sown', 'crop', 'variety', 'bed', 'status', 'progress', 'ready', 'risk'] as const;
 export type PlantingSort = (typeof PLANTING_SORTS)[number];
 
 export const plantingListQuerySchema = z.strictObject({
@@ -111,7 +112,7 @@ export const plantingListQuerySchema = z.strictObject({
   q: z.string().trim().max(100).optional(),
   sownFrom: z.iso.date().optional(),
   sownTo: z.iso.date().optional(),
-  sort: z.enum(PLANTING_SORTS, { error: 'Sort by sown, crop, variety, bed or status.' }).default('sown'),
+  sort: z.enum(PLANTING_SORTS, { error: 'Sort by sown, crop, variety, bed, status, progress, ready or risk.' }).default('sown'),
   order: sortOrderSchema,
   ...pageQueryShape,
 });
@@ -181,7 +182,7 @@ export const photoFieldsSchema = z.strictObject({
 
 export interface NextEventDto {
   label: string;
-  /** Calendar estimate from the packet figures; the thermal projection replaces it with the progress issue. */
+  /** From the degree-day projection where there is one, else from the planting's own dates. */
   on: string | null;
   basis: string;
 }
@@ -208,6 +209,8 @@ export interface PlantingDto {
   season: string | null;
   nextEvent: NextEventDto | null;
   logCount: number;
+  /** Progress in heat (list and detail answers); null when it cannot be computed (no location, no dates). */
+  progress?: ProgressSummaryDto | null;
 }
 
 export type PlantingPage = Page<PlantingDto>;

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { testApp } from '../helpers/test-app';
+import { testApp, testDb, testWeather } from '../helpers/test-app';
+import { giveGardenWeather, steadyDays } from '../helpers/garden-weather';
 import { gardenWithClients, makeBed, makeLot, makePlanting, makeVariety } from '../helpers/garden-records';
 import { createGarden } from '../helpers/factories';
 import { Planting } from '../../server/db/models';
@@ -28,7 +29,8 @@ function plantingBody(ids: { bedId: number; varietyId: number; seedLotId?: numbe
 
 describe('plantings', () => {
   it('when a grower sows a planting, then it is presented with bed, crop, season and next event', async () => {
-    const { clients, base, garden } = await gardenWithClients(app);
+    const { clients, base, garden } = await gardenWithClients(testApp({}, testWeather({}, () => new Date('2025-04-05T17:00:00Z'))));
+    await giveGardenWeather(testDb().sequelize, garden, steadyDays('2020-01-01', '2025-04-04', 20, 20));
     const bed = await makeBed(garden.id, 'North 1');
     const variety = await makeVariety(garden.id, { dtmDays: 50, dtmFrom: 'sowing', emergenceDaysMax: 8 });
     const lot = await makeLot(garden.id, variety.id);
@@ -44,7 +46,8 @@ describe('plantings', () => {
     });
     const id = res.body.planting.id;
     const edited = await clients.grower.patch(`${base}/plantings/${id}`).send({ emergedOn: '2025-04-09' });
-    expect(edited.body.planting.nextEvent).toMatchObject({ label: 'Harvest from', on: '2025-05-22' });
+    // Constant weather: the degree-day projection lands on the packet's 50 days from sowing.
+    expect(edited.body.planting.nextEvent).toMatchObject({ label: 'Likely ready from', on: '2025-05-22' });
     expect((await clients.viewer.get(`${base}/plantings/${id}`)).body.planting.emergedOn).toBe('2025-04-09');
     expect((await clients.grower.delete(`${base}/plantings/${id}`)).status).toBe(204);
   });

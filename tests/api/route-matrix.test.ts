@@ -53,6 +53,8 @@ const EXPECTED: Record<string, RouteTableEntry['access']> = {
   'get /api/gardens/:gardenId/plantings/:plantingId/log': 'viewer',
   'post /api/gardens/:gardenId/plantings/:plantingId/log': 'grower',
   'delete /api/gardens/:gardenId/plantings/:plantingId/log/:entryId': 'grower',
+  'get /api/gardens/:gardenId/plantings/:plantingId/progress': 'viewer',
+  'get /api/gardens/:gardenId/today': 'viewer',
   'get /api/gardens/:gardenId/plantings/:plantingId/photos': 'viewer',
   'post /api/gardens/:gardenId/plantings/:plantingId/photos': 'grower',
   'get /api/gardens/:gardenId/plantings/:plantingId/photos/:photoId': 'viewer',

@@ -8,7 +8,7 @@
  * a garden that has none yet, so seeding on a later day never stacks a second, shifted history.
  */
 import type { Transaction } from 'sequelize';
-import { addDays, seasonOf } from '#shared/thermal/index';
+import { addDays, dayLengthHours, seasonOf } from '#shared/thermal/index';
 import type { PlantingMethod, PlantingStatus } from '#shared/schemas/plantings';
 import type { VarietyCreateInput } from '#shared/schemas/varieties';
 import { Bed, GerminationTest, Planting, PlantingLog, SeedLot, Variety } from '../models';
@@ -41,6 +41,8 @@ export const DEMO_VARIETIES: VarietySeed[] = [
   v('spinach', 'Tealshield', 40, 'sowing', [6, 12], 4, 3, ['f1-hybrid', 'treated'], 1.5, 8, { notes: 'Fungicide-treated seed, pink coating.' }),
   v('arugula', 'Peppertooth', 35, 'sowing', [4, 8], 2, 2, ['open-pollinated', 'organic'], 0.5, 10, { containerFriendly: true }),
   v('cilantro', 'Slowhand', 50, 'sowing', [7, 14], 4, 2, ['open-pollinated'], 1, 15),
+  v('cilantro', 'Brightstem', 45, 'sowing', [7, 14], 1, 1, ['open-pollinated'], 1, 15, { notes: 'Quick to leaf, quick to bolt.' }),
+  v('lettuce', 'Summerhold Batavian', 55, 'emergence', [4, 8], 5, 5, ['open-pollinated'], 0.5, 30, { thinSpacingCm: 30 }),
   v('radish', 'Emberglobe', 26, 'sowing', [3, 7], 3, 3, ['open-pollinated'], 1.2, 4, { containerFriendly: true }),
   v('radish', 'Snowtip Breakfast', 24, 'sowing', [3, 7], 2, 2, ['heirloom', 'open-pollinated'], 1.2, 4),
   v('pea', 'Brookside Shelling', 64, 'sowing', [7, 14], null, 2, ['open-pollinated'], 2.5, 5),
@@ -88,6 +90,24 @@ const TEMPLATES: Template[] = [
   { variety: 'Copperleaf Butterhead', bed: 6, method: 'direct-sow', day: 225, emerge: 6, thin: 21, harvest: [52, 64], quantity: [18, 'plants'] },
   { variety: 'Longwinter Savoy', bed: 1, method: 'direct-sow', day: 240, emerge: 10, harvest: [48, 70], quantity: [3, 'row-m'] },
 ];
+
+/**
+ * Plantings placed back from the seeding day in the garden that is in season then, so Today has
+ * something true in every section whatever the date: with the season's long days a quick-bolting
+ * cilantro near maturity is at high bolt risk, a slow-bolting one elevated, a young very
+ * slow-bolting lettuce low, and a pea past its packet days has its harvest window open.
+ */
+const IN_SEASON: Array<{ variety: string; bed: number; daysAgo: number; emerge: number; quantity: [number, 'plants' | 'row-m'] }> = [
+  { variety: 'Brightstem', bed: 5, daysAgo: 40, emerge: 9, quantity: [2, 'row-m'] },
+  { variety: 'Slowhand', bed: 12, daysAgo: 44, emerge: 10, quantity: [12, 'plants'] },
+  { variety: 'Summerhold Batavian', bed: 6, daysAgo: 14, emerge: 6, quantity: [18, 'plants'] },
+  { variety: 'Lanternpod Snap', bed: 11, daysAgo: 64, emerge: 10, quantity: [4, 'row-m'] },
+];
+
+/** The hemisphere whose days are the longer today is the one in its growing season. */
+export function inSeason(latitude: number, today: string): boolean {
+  return dayLengthHours(latitude, today) >= dayLengthHours(-latitude, today);
+}
 
 const BED_NAMES = {
   N: ['North 1', 'North 2', 'North 3', 'North 4', 'South 1', 'South 2', 'South 3', 'South 4', 'Greenhouse bench', 'Fence row', 'Tub A', 'Tub B'],
@@ -195,9 +215,44 @@ function statusAt(events: { harvestFrom?: string; harvestTo?: string; bolt?: str
   return 'growing';
 }
 
+async function seedInSeason(ctx: Ctx, beds: Bed[], varieties: Map<string, Variety>, lots: Map<string, SeedLot>) {
+  const { garden, users, today, transaction } = ctx;
+  if (!inSeason(garden.latitude ?? 0, today)) return;
+  for (const [i, t] of IN_SEASON.entries()) {
+    const sown = addDays(today, -t.daysAgo);
+    const planting = await Planting.create(
+      {
+        gardenId: garden.id,
+        bedId: beds[t.bed - 1].id,
+        varietyId: varieties.get(t.variety)!.id,
+        seedLotId: lots.get(t.variety)!.id,
+        method: 'direct-sow',
+        status: 'growing',
+        quantity: t.quantity[0],
+        quantityUnit: t.quantity[1],
+        sownOn: sown,
+        emergedOn: addDays(sown, t.emerge),
+        thinnedOn: null,
+        transplantedOn: null,
+        firstHarvestOn: null,
+        lastHarvestOn: null,
+        boltedOn: null,
+        notes: '',
+        createdBy: users[i % users.length].id,
+      },
+      { transaction },
+    );
+    await PlantingLog.create(
+      { gardenId: garden.id, plantingId: planting.id, entryOn: addDays(sown, t.emerge), kind: 'observation', amount: null, amountUnit: null, note: 'Up and even along the row.', photoId: null, createdBy: users[(i + 1) % users.length].id },
+      { transaction },
+    );
+  }
+}
+
 async function seedPlantings(ctx: Ctx, beds: Bed[], varieties: Map<string, Variety>, lots: Map<string, SeedLot>) {
   const { garden, users, today, transaction } = ctx;
   if (await Planting.count({ where: { gardenId: garden.id }, transaction })) return;
+  await seedInSeason(ctx, beds, varieties, lots);
   const latitude = garden.latitude ?? 0;
   const current = seasonOf(today, latitude);
   for (let s = 0; s < 4; s++) {

@@ -1,38 +1,35 @@
 import { findCrop } from '#shared/crops/library';
 import type { NextEventDto, PlantingCreateInput, PlantingDto } from '#shared/schemas/plantings';
-import { addDays, seasonOf } from '#shared/thermal/index';
+import type { ProgressSummaryDto } from '#shared/schemas/progress';
+import { dayMonth, dayRange } from '#shared/format/day-words';
+import { addDays } from '#shared/thermal/index';
+import { packetEmergenceDays, plantingSeason } from '#shared/thermal/start-event';
 import type { Planting, Variety } from '../../db/models';
 
-const PACKET = 'Calendar days from the packet; the degree-day projection will refine it.';
-
-/** Where the start of the packet's days-to-maturity count falls, when known. */
-function dtmStart(p: Planting, v: Variety): string | null {
-  if (v.dtmFrom === 'transplant') return p.transplantedOn;
-  if (v.dtmFrom === 'emergence') {
-    const emergence = v.emergenceDaysMax ?? v.emergenceDaysMin;
-    return p.emergedOn ?? (p.sownOn && emergence !== null ? addDays(p.sownOn, emergence) : null);
-  }
-  return p.sownOn;
-}
-
-export function nextEvent(p: Planting, v: Variety): NextEventDto | null {
+/** What comes next for the planting: its own dates first, then the degree-day projection. */
+export function nextEvent(p: Planting, v: Variety, today: string, progress: ProgressSummaryDto | null): NextEventDto | null {
   if (p.status === 'planned') {
-    return p.method === 'transplant'
-      ? { label: 'Transplant', on: p.transplantedOn, basis: 'Planned date.' }
-      : { label: 'Sow', on: p.sownOn, basis: 'Planned date.' };
+    return p.method === 'direct-sow'
+      ? { label: 'Sow', on: p.sownOn, basis: 'Planned date.' }
+      : { label: 'Transplant', on: p.transplantedOn, basis: 'Planned date.' };
   }
   if (p.status !== 'growing') return null;
   if (p.firstHarvestOn) return { label: 'Harvesting', on: p.firstHarvestOn, basis: 'First harvest recorded.' };
-  if (p.sownOn && !p.emergedOn && !p.transplantedOn && v.emergenceDaysMax !== null) {
-    return { label: 'Emergence expected', on: addDays(p.sownOn, v.emergenceDaysMax), basis: 'Packet days to emergence from sowing.' };
+  const emergence = packetEmergenceDays(v);
+  // Past its packet days to emergence, an unrecorded emergence is taken as done.
+  if (p.sownOn && !p.emergedOn && !p.transplantedOn && emergence !== null && addDays(p.sownOn, emergence) >= today) {
+    return { label: 'Emergence expected', on: addDays(p.sownOn, emergence), basis: 'Packet days to emergence from sowing.' };
   }
   if (p.method === 'indoor-start' && !p.transplantedOn) return { label: 'Transplant out', on: null, basis: 'Indoor start not yet transplanted.' };
-  const start = dtmStart(p, v);
-  if (start && v.dtmDays !== null) return { label: 'Harvest from', on: addDays(start, v.dtmDays), basis: PACKET };
-  return null;
+  const m = progress?.maturity;
+  if (!m || !m.p10) return null;
+  if (m.kind === 'observed') return { label: 'Ready to harvest', on: m.p10, basis: 'Its degree-day target is reached in recorded weather.' };
+  if (m.kind === 'forecast') return { label: 'Ready by the forecast', on: m.p10, basis: 'The forecast reaches its degree-day target.' };
+  const window = m.p90 ? dayRange(m.p10, m.p90) : `${dayMonth(m.p10)} or later`;
+  return { label: 'Likely ready from', on: m.p10, basis: `Degree-day projection from this garden’s weather: ${window}.` };
 }
 
-export function presentPlanting(p: Planting, latitude: number): PlantingDto {
+export function presentPlanting(p: Planting, garden: { latitude: number | null; today: string }, progress: ProgressSummaryDto | null = null): PlantingDto {
   const v = p.variety!;
   const crop = findCrop(v.cropKey);
   const lot = p.seedLot ?? null;
@@ -44,9 +41,10 @@ export function presentPlanting(p: Planting, latitude: number): PlantingDto {
     crop: { key: v.cropKey, name: crop?.name ?? v.cropKey, season: crop?.params.season.value ?? 'cool' },
     seedLot: lot ? { id: lot.id, label: seedLotLabel(lot) } : null,
     ...stages,
-    season: p.startOn ? seasonOf(p.startOn, latitude).label : null,
-    nextEvent: nextEvent(p, v),
+    season: plantingSeason(p, v, garden.latitude ?? 0)?.label ?? null,
+    nextEvent: nextEvent(p, v, garden.today, progress),
     logCount: Number(p.get('logCount') ?? 0),
+    progress,
   };
 }
 

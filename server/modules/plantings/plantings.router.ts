@@ -16,15 +16,24 @@ import { addLogEntry, deleteLogEntry, getLogEntry, listLog } from './planting-lo
 import { exportPlantingsCsv, importPlantingsCsv } from './planting-csv';
 import { presentPlanting } from './plantings.presenter';
 import { presentLogEntry } from './planting-log.presenter';
+import type { Planting } from '../../db/models';
+import type { ProgressService } from '../progress/progress.service';
 
 const CSV_MAX_BYTES = 2 * 1024 * 1024;
 
-async function latitudeOf(gardenId: number) {
-  return (await getGarden(gardenId)).latitude ?? 0;
-}
 
-export function plantingsRouter(config: AppConfig, table: RouteTableEntry[]) {
+export function plantingsRouter(config: AppConfig, table: RouteTableEntry[], progress: ProgressService) {
   const router = Router();
+  /** What presenting a planting needs of its garden: the latitude (seasons) and its today. */
+  const gardenFacts = async (gardenId: number) => {
+    const { garden, today } = await progress.gardenToday(gardenId);
+    return { latitude: garden.latitude, today };
+  };
+  /** One planting with its progress, as every single-planting answer gives it. */
+  const present = async (gardenId: number, planting: Planting) => {
+    const [facts, summaries] = await Promise.all([gardenFacts(gardenId), progress.summaries(gardenId, [planting.id])]);
+    return presentPlanting(planting, facts, summaries.get(planting.id) ?? null);
+  };
   mountRoutes(
     router,
     '/api/gardens/:gardenId/plantings',
@@ -36,8 +45,11 @@ export function plantingsRouter(config: AppConfig, table: RouteTableEntry[]) {
         handler: async (req, res) => {
           const gardenId = req.membership!.gardenId;
           const q = parseQuery(plantingListQuerySchema, req.query);
-          const [{ rows, count }, latitude] = await Promise.all([listPlantings(gardenId, q), latitudeOf(gardenId)]);
-          res.json(pageOf(rows.map((p) => presentPlanting(p, latitude)), count, q));
+          // Rows for today first, so sorting by progress, readiness or risk orders every planting.
+          await progress.refreshGarden(gardenId);
+          const [{ rows, count }, facts] = await Promise.all([listPlantings(gardenId, q), gardenFacts(gardenId)]);
+          const summaries = await progress.summaries(gardenId, rows.map((p) => p.id));
+          res.json(pageOf(rows.map((p) => presentPlanting(p, facts, summaries.get(p.id) ?? null)), count, q));
         },
       },
       {
@@ -48,7 +60,7 @@ export function plantingsRouter(config: AppConfig, table: RouteTableEntry[]) {
           const user = requireSignedIn(req);
           const gardenId = req.membership!.gardenId;
           const planting = await createPlanting(gardenId, user.id, parseBody(plantingCreateSchema, req.body));
-          res.status(201).json({ planting: presentPlanting(planting, await latitudeOf(gardenId)) });
+          res.status(201).json({ planting: await present(gardenId, planting) });
         },
       },
       // Registered before '/:plantingId' so the literal paths are not read as ids.
@@ -86,7 +98,7 @@ export function plantingsRouter(config: AppConfig, table: RouteTableEntry[]) {
         handler: async (req, res) => {
           const gardenId = req.membership!.gardenId;
           const planting = await getPlanting(gardenId, recordId(req.params, 'plantingId'));
-          res.json({ planting: presentPlanting(planting, await latitudeOf(gardenId)) });
+          res.json({ planting: await present(gardenId, planting) });
         },
       },
       {
@@ -97,7 +109,7 @@ export function plantingsRouter(config: AppConfig, table: RouteTableEntry[]) {
           const gardenId = req.membership!.gardenId;
           const plantingId = recordId(req.params, 'plantingId');
           const planting = await updatePlanting(gardenId, plantingId, parseBody(plantingUpdateSchema, req.body));
-          res.json({ planting: presentPlanting(planting, await latitudeOf(gardenId)) });
+          res.json({ planting: await present(gardenId, planting) });
         },
       },
       {
@@ -133,7 +145,7 @@ export function plantingsRouter(config: AppConfig, table: RouteTableEntry[]) {
           const planting = await getPlanting(gardenId, plantingId);
           res.status(201).json({
             entry: presentLogEntry(await getLogEntry(gardenId, plantingId, entry.id)),
-            planting: presentPlanting(planting, await latitudeOf(gardenId)),
+            planting: await present(gardenId, planting),
           });
         },
       },

@@ -1,4 +1,4 @@
-import { Op, literal } from 'sequelize';
+import { Op, fn, literal } from 'sequelize';
 import type { Includeable, Order, OrderItem, Transaction, WhereOptions } from 'sequelize';
 import type { z } from 'zod';
 import { plantingCreateSchema } from '#shared/schemas/plantings';
@@ -23,6 +23,8 @@ export const plantingIncludes: Includeable[] = [
 
 const logCount = literal('(SELECT COUNT(*) FROM planting_logs AS l WHERE l.planting_id = `Planting`.`id`)');
 
+const CACHED_SORT = { progress: 'percent', ready: 'ready_on', risk: 'bolt_rank' } as const;
+
 function orderFor(q: PlantingListQuery): Order {
   const dir = q.order === 'desc' ? 'DESC' : 'ASC';
   const byVariety = (field: string): OrderItem => [{ model: Variety, as: 'variety' }, field, dir];
@@ -36,6 +38,14 @@ function orderFor(q: PlantingListQuery): Order {
       return [[{ model: Bed, as: 'bed' }, 'name', dir], ...tail];
     case 'status':
       return [['status', dir], ...tail];
+    // The progress cache holds these as columns (refreshed for today before a list is read);
+    // plantings without the figure come last either way.
+    case 'progress':
+    case 'ready':
+    case 'risk': {
+      const figure = literal(`(SELECT pp.${CACHED_SORT[q.sort]} FROM planting_progress pp WHERE pp.planting_id = \`Planting\`.\`id\`)`);
+      return [[fn('ISNULL', figure), 'ASC'], [figure, dir], ...tail];
+    }
     default:
       // Undated (planned) plantings come last whichever way the dates run.
       return [[literal('`Planting`.`start_on` IS NULL'), 'ASC'], ...tail];

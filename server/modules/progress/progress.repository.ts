@@ -1,0 +1,121 @@
+/**
+ * The progress cache: one row per planting, valid for one calendar day of its garden, removed
+ * whenever something it was computed from changes (progress-invalidation.ts, the weather
+ * processor). Raw SQL: the hot reads are one indexed query each.
+ */
+import { QueryTypes } from 'sequelize';
+import type { Sequelize, Transaction } from 'sequelize';
+import type { ProgressSummaryDto } from '#shared/schemas/progress';
+
+export const BOLT_RANK = { none: 0, low: 1, elevated: 2, high: 3 } as const;
+
+export interface ProgressRow {
+  plantingId: number;
+  gardenId: number;
+  computedFor: string;
+  percent: number | null;
+  readyOn: string | null;
+  boltRank: number;
+  summary: ProgressSummaryDto;
+  /** The whole ProgressDto as JSON, sent as it is. */
+  body: string;
+}
+
+export interface GrowingRow {
+  plantingId: number;
+  status: 'growing';
+  varietyId: number;
+  varietyName: string;
+  cropKey: string;
+  bedId: number;
+  bedName: string;
+  summary: ProgressSummaryDto | null;
+}
+
+type Scope = { plantingId: number } | { gardenId: number; cropKey?: string } | { varietyId: number };
+
+export class ProgressRepository {
+  constructor(private readonly db: Sequelize) {}
+
+  async summaries(gardenId: number, plantingIds: number[], day: string): Promise<Map<number, ProgressSummaryDto>> {
+    if (!plantingIds.length) return new Map();
+    const rows = await this.db.query<{ plantingId: number; summary: string }>(
+      `SELECT planting_id AS plantingId, summary_json AS summary FROM planting_progress
+        WHERE garden_id = ? AND computed_for = ? AND planting_id IN (?)`,
+      { replacements: [gardenId, day, plantingIds], type: QueryTypes.SELECT },
+    );
+    return new Map(rows.map((r) => [r.plantingId, JSON.parse(r.summary) as ProgressSummaryDto]));
+  }
+
+  /** The planting's stored answer for `day`: undefined when the garden has no such planting, null when not stored. */
+  async body(gardenId: number, plantingId: number, day: string): Promise<string | null | undefined> {
+    const [row] = await this.db.query<{ body: string | null }>(
+      `SELECT pp.body_json AS body FROM plantings p
+         LEFT JOIN planting_progress pp ON pp.planting_id = p.id AND pp.computed_for = ?
+        WHERE p.id = ? AND p.garden_id = ?`,
+      { replacements: [day, plantingId, gardenId], type: QueryTypes.SELECT },
+    );
+    return row ? row.body : undefined;
+  }
+
+  /** The garden's growing plantings with what Today shows of them, and their stored summaries for `day` where present. */
+  async growing(gardenId: number, day: string): Promise<GrowingRow[]> {
+    const rows = await this.db.query<Omit<GrowingRow, 'summary'> & { summary: string | null }>(
+      `SELECT p.id AS plantingId, p.status, v.id AS varietyId, v.name AS varietyName, v.crop_key AS cropKey,
+              b.id AS bedId, b.name AS bedName, pp.summary_json AS summary
+         FROM plantings p
+         JOIN varieties v ON v.id = p.variety_id
+         JOIN beds b ON b.id = p.bed_id
+         LEFT JOIN planting_progress pp ON pp.planting_id = p.id AND pp.computed_for = ?
+        WHERE p.garden_id = ? AND p.status = 'growing'
+        ORDER BY p.start_on, p.id`,
+      { replacements: [day, gardenId], type: QueryTypes.SELECT },
+    );
+    return rows.map((r) => ({ ...r, summary: r.summary === null ? null : (JSON.parse(r.summary) as ProgressSummaryDto) }));
+  }
+
+  /** Plantings of the garden with no row for `day` (missing or from an earlier day). */
+  async stale(gardenId: number, day: string, where: { status?: string } = {}): Promise<number[]> {
+    const rows = await this.db.query<{ id: number }>(
+      `SELECT p.id FROM plantings p
+         LEFT JOIN planting_progress pp ON pp.planting_id = p.id AND pp.computed_for = ?
+        WHERE p.garden_id = ? AND pp.planting_id IS NULL ${where.status ? 'AND p.status = ?' : ''}`,
+      { replacements: where.status ? [day, gardenId, where.status] : [day, gardenId], type: QueryTypes.SELECT },
+    );
+    return rows.map((r) => r.id);
+  }
+
+  async save(rows: ProgressRow[]) {
+    if (!rows.length) return;
+    const values = rows.map(() => '(?, ?, ?, ?, ?, ?, ?, ?, UTC_TIMESTAMP(3))').join(', ');
+    await this.db.query(
+      `INSERT INTO planting_progress (planting_id, garden_id, computed_for, percent, ready_on, bolt_rank, summary_json, body_json, computed_at)
+       VALUES ${values}
+       ON DUPLICATE KEY UPDATE computed_for = VALUES(computed_for), percent = VALUES(percent), ready_on = VALUES(ready_on),
+         bolt_rank = VALUES(bolt_rank), summary_json = VALUES(summary_json), body_json = VALUES(body_json), computed_at = VALUES(computed_at)`,
+      {
+        replacements: rows.flatMap((r) => [r.plantingId, r.gardenId, r.computedFor, r.percent, r.readyOn, r.boltRank, JSON.stringify(r.summary), r.body]),
+      },
+    );
+  }
+
+  /** Drops the rows a change makes wrong, in the change's own transaction. */
+  async invalidate(scope: Scope, transaction?: Transaction) {
+    if ('plantingId' in scope) {
+      await this.db.query('DELETE FROM planting_progress WHERE planting_id = ?', { replacements: [scope.plantingId], transaction });
+    } else if ('varietyId' in scope) {
+      await this.db.query('DELETE pp FROM planting_progress pp JOIN plantings p ON p.id = pp.planting_id WHERE p.variety_id = ?', {
+        replacements: [scope.varietyId],
+        transaction,
+      });
+    } else if (scope.cropKey) {
+      await this.db.query(
+        `DELETE pp FROM planting_progress pp JOIN plantings p ON p.id = pp.planting_id JOIN varieties v ON v.id = p.variety_id
+          WHERE pp.garden_id = ? AND v.crop_key = ?`,
+        { replacements: [scope.gardenId, scope.cropKey], transaction },
+      );
+    } else {
+      await this.db.query('DELETE FROM planting_progress WHERE garden_id = ?', { replacements: [scope.gardenId], transaction });
+    }
+  }
+}

@@ -1,0 +1,96 @@
+/**
+ * Progress reads: served from the cache when it holds the garden's today, computed and stored
+ * otherwise (one weather read for every planting missing). The Today page is assembled here too.
+ */
+import type { Sequelize } from 'sequelize';
+import type { ProgressSummaryDto, TodayDto } from '#shared/schemas/progress';
+import { findCrop } from '#shared/crops/library';
+import { addDays } from '#shared/thermal/dates';
+import { tempIn } from '#shared/thermal/units';
+import { Garden } from '../../db/models';
+import { AppError } from '../../errors';
+import { localDate } from '../../lib/local-date';
+import type { WeatherService } from '../weather/weather.service';
+import { computeGardenProgress } from './progress-loader';
+import { presentProgress, progressRow } from './progress.presenter';
+import { ProgressRepository } from './progress.repository';
+import { todayActions } from './today-actions';
+
+function cropOf(key: string) {
+  const crop = findCrop(key);
+  return { key, name: crop?.name ?? key, season: crop?.params.season.value ?? 'cool' };
+}
+
+export class ProgressService {
+  readonly repo: ProgressRepository;
+
+  constructor(
+    sequelize: Sequelize,
+    private readonly weather: WeatherService,
+  ) {
+    this.repo = new ProgressRepository(sequelize);
+  }
+
+  async gardenToday(gardenId: number): Promise<{ garden: Garden; today: string }> {
+    const garden = await Garden.findByPk(gardenId, { attributes: ['id', 'timeZone', 'units', 'latitude', 'weatherCellId', 'name'], raw: true });
+    if (!garden) throw AppError.notFound('That garden');
+    return { garden, today: localDate(garden.timeZone, this.weather.now()) };
+  }
+
+  /** The planting's ProgressDto as JSON text, ready to send. */
+  async plantingProgress(gardenId: number, plantingId: number): Promise<string> {
+    const { today } = await this.gardenToday(gardenId);
+    const cached = await this.repo.body(gardenId, plantingId, today);
+    if (cached === undefined) throw AppError.notFound('That planting');
+    if (cached) return cached;
+    const { results } = await computeGardenProgress(this.weather, gardenId, [plantingId]);
+    const rows = results.map(progressRow);
+    await this.repo.save(rows);
+    return rows[0]?.body ?? JSON.stringify(results.map(presentProgress)[0]);
+  }
+
+  /** Computes and stores every planting of the garden without a row for its today (all, when `all`). */
+  async refreshGarden(gardenId: number, opts: { all?: boolean; status?: string } = {}): Promise<number> {
+    const { today } = await this.gardenToday(gardenId);
+    const ids = opts.all ? undefined : await this.repo.stale(gardenId, today, { status: opts.status });
+    if (ids && !ids.length) return 0;
+    const { results } = await computeGardenProgress(this.weather, gardenId, ids);
+    await this.repo.save(results.map(progressRow));
+    return results.length;
+  }
+
+  /** Summaries for these plantings of the garden, computing the missing ones first. */
+  async summaries(gardenId: number, plantingIds: number[]): Promise<Map<number, ProgressSummaryDto>> {
+    const { today } = await this.gardenToday(gardenId);
+    const have = await this.repo.summaries(gardenId, plantingIds, today);
+    const missing = plantingIds.filter((id) => !have.has(id));
+    if (missing.length) {
+      const { results } = await computeGardenProgress(this.weather, gardenId, missing);
+      const rows = results.map(progressRow);
+      await this.repo.save(rows);
+      for (const r of rows) have.set(r.plantingId, r.summary);
+    }
+    return have;
+  }
+
+  async today(gardenId: number): Promise<TodayDto> {
+    const { garden, today } = await this.gardenToday(gardenId);
+    const [rows, weather] = await Promise.all([this.repo.growing(gardenId, today), this.weather.gardenSeries(garden, addDays(today, -7), addDays(today, 7))]);
+    const missing = rows.filter((r) => !r.summary).map((r) => r.plantingId);
+    const computed = missing.length ? await this.summaries(gardenId, missing) : new Map<number, ProgressSummaryDto>();
+    const plantings = rows.flatMap((r) => {
+      const progress = r.summary ?? computed.get(r.plantingId);
+      if (!progress) return [];
+      return [{ plantingId: r.plantingId, crop: cropOf(r.cropKey), variety: { id: r.varietyId, name: r.varietyName }, bed: { id: r.bedId, name: r.bedName }, status: r.status, progress }];
+    });
+    const unit = garden.units;
+    const toUnit = (c: number) => Math.round(tempIn(c, unit) * 100) / 100;
+    return {
+      today,
+      unit,
+      actions: todayActions(plantings, today, unit),
+      plantings,
+      weather: weather.map((d) => ({ date: d.date, tmax: toUnit(d.tmax), tmin: toUnit(d.tmin), source: d.source })),
+    };
+  }
+}
