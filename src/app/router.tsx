@@ -5,9 +5,9 @@ import { RequireAuth } from '@/features/auth/components/require-auth';
 import { RegisterPage } from '@/app/routes/auth/register';
 import { SignInPage } from '@/app/routes/auth/sign-in';
 import { FirstGardenPage } from '@/app/routes/gardens/first-garden';
-import { GardenHomePage } from '@/app/routes/gardens/garden-home';
 import { GardenLayout } from '@/app/routes/gardens/garden-layout';
 import { GardenSettingsPage } from '@/app/routes/gardens/garden-settings';
+import { TodayPage } from '@/app/routes/gardens/today';
 import { NotFoundPage } from '@/app/routes/misc/not-found';
 import { WeatherPage } from '@/app/routes/weather/weather';
 import { PlantingsPage } from '@/app/routes/plantings/plantings';
@@ -28,7 +28,7 @@ export const routes: RouteObject[] = [
         path: '/g/:gardenId',
         element: <GardenLayout />,
         children: [
-          { index: true, element: <GardenHomePage /> },
+          { index: true, element: <TodayPage /> },
           { path: 'plantings', element: <PlantingsPage /> },
           { path: 'plantings/:plantingId', element: <PlantingDetailPage /> },
           { path: 'varieties', element: <VarietiesPage /> },

@@ -1,4 +1,7 @@
 import type { DisplayUnit, GardenDto, Role } from '#shared/schemas/gardens';
+import type { BoltLevelOrNone, MaturityBasisKind } from '#shared/schemas/progress';
+import type { WeatherDayDto } from '#shared/schemas/weather';
+import { parseIsoDate } from '#shared/thermal/dates';
 
 export const ROLE_WORDS: Record<Role, string> = {
   owner: 'Owner',
@@ -24,6 +27,7 @@ export const HEMISPHERE_SENTENCES: Record<GardenDto['hemisphere'], string> = {
 
 const coordinate = new Intl.NumberFormat('en', { minimumFractionDigits: 0, maximumFractionDigits: 4 });
 const whole = new Intl.NumberFormat('en', { maximumFractionDigits: 0 });
+const tenth = new Intl.NumberFormat('en', { minimumFractionDigits: 1, maximumFractionDigits: 1 });
 
 export function formatLatitude(latitude: number): string {
   return `${coordinate.format(Math.abs(latitude))}° ${latitude < 0 ? 'S' : 'N'}`;
@@ -51,3 +55,96 @@ export function formatWait(seconds: number): string {
   const minutes = Math.ceil(seconds / 60);
   return `${minutes} ${minutes === 1 ? 'minute' : 'minutes'}`;
 }
+
+/** "−3.5 °C": a true minus sign, one decimal, and the unit on every figure. */
+export function formatTemp(value: number, unit: DisplayUnit): string {
+  return `${tenth.format(value).replace('-', '−')} °${unit}`;
+}
+
+/** "°F-days" or "°C-days": the one unit of a garden's degree days, never mixed. */
+export function degreeDayUnit(unit: DisplayUnit): string {
+  return `°${unit}-days`;
+}
+
+/** "1,204 °F-days"; `digits` 1 for a single day's figure ("12.4 °C-days"). */
+export function formatDegreeDays(value: number, unit: DisplayUnit, digits: 0 | 1 = 0): string {
+  return `${(digits ? tenth : whole).format(value).replace('-', '−')} ${degreeDayUnit(unit)}`;
+}
+
+export function formatPercent(percent: number): string {
+  return `${whole.format(percent)} %`;
+}
+
+/** "412 of 950 °F-days (43 %)", or "412 °F-days" when there is no target. */
+export function formatHeat(accumulated: number, target: number | null, percent: number | null, unit: DisplayUnit): string {
+  if (target === null) return formatDegreeDays(accumulated, unit);
+  const share = percent === null ? '' : ` (${formatPercent(percent)})`;
+  return `${whole.format(accumulated)} of ${formatDegreeDays(target, unit)}${share}`;
+}
+
+// A calendar date is formatted from its own parts at UTC, so no browser time zone can shift it.
+function civilUtc(date: string): Date {
+  const { year, month, day } = parseIsoDate(date);
+  return new Date(Date.UTC(year, month - 1, day));
+}
+
+const formatters = new Map<string, Intl.DateTimeFormat>();
+
+/** One formatter per option set and browser language list, made on first use. */
+function browserFormat(options: Intl.DateTimeFormatOptions): Intl.DateTimeFormat {
+  const languages = typeof navigator === 'undefined' ? [] : [...navigator.languages];
+  const key = `${languages.join(',')}|${JSON.stringify(options)}`;
+  let format = formatters.get(key);
+  if (!format) {
+    format = new Intl.DateTimeFormat(languages.length ? languages : undefined, { ...options, timeZone: 'UTC' });
+    formatters.set(key, format);
+  }
+  return format;
+}
+
+const DAY_MONTH: Intl.DateTimeFormatOptions = { day: 'numeric', month: 'short' };
+
+/** "14 Jun" (or "Jun 14"): the short day-month form in the browser's language. */
+export function formatDayMonth(date: string): string {
+  return browserFormat(DAY_MONTH).format(civilUtc(date));
+}
+
+/** "Tue 14 Jun" in the browser's language, for day-by-day strips. */
+export function formatWeekdayDayMonth(date: string): string {
+  return browserFormat({ weekday: 'short', ...DAY_MONTH }).format(civilUtc(date));
+}
+
+/**
+ * "14–22 Jun", "28 May – 3 Jun" (or "Jun 14–22"): the range in the browser's language, with the
+ * dash closed up when only the day numbers differ.
+ */
+export function formatDayWindow(from: string, to: string): string {
+  if (from === to) return formatDayMonth(from);
+  return browserFormat(DAY_MONTH)
+    .formatRange(civilUtc(from), civilUtc(to))
+    .replace(/(\d)\s*[–-]\s*(\d)/u, '$1–$2');
+}
+
+export const BOLT_WORDS: Record<BoltLevelOrNone, string> = {
+  none: 'None',
+  low: 'Low',
+  elevated: 'Elevated',
+  high: 'High',
+};
+
+/** "Likely ready 14–22 Jun", from a maturity window of any source. */
+export function formatReady(maturity: { p10: string | null; p50: string | null; p90: string | null; kind: MaturityBasisKind }): string {
+  const { p10, p50, p90, kind } = maturity;
+  if (kind === 'recorded' && p50) return `Harvested ${formatDayMonth(p50)}`;
+  if (kind === 'none' || !p50) return 'No maturity window yet';
+  if (kind === 'observed') return `Target reached ${formatDayMonth(p50)}`;
+  return `Likely ready ${formatDayWindow(p10 ?? p50, p90 ?? p50)}`;
+}
+
+/** Where a day's temperatures come from, in words (shown with an icon, never by colour alone). */
+export const SOURCE_WORDS: Record<WeatherDayDto['source'], string> = {
+  observed: 'Observed',
+  forecast: 'Forecast',
+  imported: 'Your station',
+  filled: 'Estimated (filled)',
+};

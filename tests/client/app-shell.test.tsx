@@ -4,7 +4,7 @@ import { screen, within } from '@testing-library/react';
 import { http, HttpResponse } from 'msw';
 import { seen, server, setupClientTests } from './helpers/msw-server';
 import { aGarden, grower } from './helpers/data';
-import { memberOf, renderApp, signedInAs } from './helpers/render-app';
+import { memberOf, quietToday, renderApp, signedInAs } from './helpers/render-app';
 
 setupClientTests();
 
@@ -22,14 +22,16 @@ const south = aGarden({
 });
 
 describe('app shell', () => {
-  it('when a signed-in grower opens /, then they land on their first garden', async () => {
-    server.use(signedInAs(grower), ...memberOf([north, south]));
+  it('when a signed-in grower opens / for the first time, then they land on Today of their first garden', async () => {
+    server.use(signedInAs(grower), ...memberOf([north, south]), quietToday);
     const { router } = renderApp('/');
 
-    expect(await screen.findByRole('heading', { name: 'Hollowbrook Teaching Garden' })).toBeTruthy();
+    expect(await screen.findByRole('heading', { name: 'Today', level: 1 })).toBeTruthy();
     expect(router.state.location.pathname).toBe('/g/1');
+    expect(screen.getAllByText('Hollowbrook Teaching Garden').length).toBeGreaterThan(0);
     expect(screen.getByText('Mara Quill')).toBeTruthy();
-    expect(screen.getByRole('link', { name: 'Overview' }).getAttribute('aria-current')).toBe('page');
+    expect(screen.getByRole('link', { name: 'Today' }).getAttribute('aria-current')).toBe('page');
+    expect(screen.getByRole('heading', { name: 'About this garden' })).toBeTruthy();
     expect(screen.getByRole('link', { name: 'Change garden settings' })).toBeTruthy();
     expect(screen.getByText('Northern hemisphere: seasons run January–December.')).toBeTruthy();
   });
@@ -47,7 +49,7 @@ describe('app shell', () => {
   });
 
   it('when a southern garden is shown, then its season and figures carry words and units', async () => {
-    server.use(signedInAs(grower), ...memberOf([north, south]));
+    server.use(signedInAs(grower), ...memberOf([north, south]), quietToday);
     renderApp('/g/2');
 
     expect(await screen.findByText('Southern hemisphere: seasons run July–June.')).toBeTruthy();
@@ -56,6 +58,44 @@ describe('app shell', () => {
     expect(screen.getByText('°C (Celsius)')).toBeTruthy();
     expect(screen.getByText('Viewer')).toBeTruthy();
     expect(screen.queryByRole('link', { name: 'Change garden settings' })).toBeNull();
+  });
+
+  it('when the grower last opened another garden, then / opens that one again', async () => {
+    server.use(signedInAs(grower), ...memberOf([north, south]), quietToday);
+    const first = renderApp('/g/2');
+    await screen.findByText('Southern hemisphere: seasons run July–June.');
+    first.unmount();
+
+    const { router } = renderApp('/');
+
+    await screen.findByText('Southern hemisphere: seasons run July–June.');
+    expect(router.state.location.pathname).toBe('/g/2');
+  });
+
+  it('when the last-opened garden is no longer one of mine, then / opens the first garden', async () => {
+    server.use(signedInAs(grower), ...memberOf([north, south]), quietToday);
+    const first = renderApp('/g/2');
+    await screen.findByText('Southern hemisphere: seasons run July–June.');
+    first.unmount();
+    server.use(...memberOf([north]));
+
+    const { router } = renderApp('/');
+
+    await screen.findByText('Northern hemisphere: seasons run January–December.');
+    expect(router.state.location.pathname).toBe('/g/1');
+  });
+
+  it('when another person signs in on the same browser, then their own first garden opens, not the last one of someone else', async () => {
+    server.use(signedInAs(grower), ...memberOf([north, south]), quietToday);
+    const first = renderApp('/g/2');
+    await screen.findByText('Southern hemisphere: seasons run July–June.');
+    first.unmount();
+    server.use(signedInAs({ id: 8, email: 'ivo@example.org', name: 'Ivo Marsh' }));
+
+    const { router } = renderApp('/');
+
+    await screen.findByText('Northern hemisphere: seasons run January–December.');
+    expect(router.state.location.pathname).toBe('/g/1');
   });
 
   it('when the garden is not one of mine, then a not-found page says so inside the shell', async () => {
@@ -77,6 +117,7 @@ describe('app shell', () => {
     server.use(
       signedInAs(grower),
       ...memberOf([north]),
+      quietToday,
       http.post('/api/auth/logout', () => new HttpResponse(null, { status: 204 })),
     );
     const { user, router } = renderApp('/g/1');

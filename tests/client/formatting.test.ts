@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { parseRetryAfter } from '@/lib/api-client';
-import { formatElevation, formatLocation, formatWait } from '@/lib/format';
+import { formatDayMonth, formatDayWindow, formatDegreeDays, formatElevation, formatHeat, formatLocation, formatReady, formatTemp, formatWait } from '@/lib/format';
 import { parseId } from '@/lib/ids';
 import { safeNextPath, signInPathFor } from '@/lib/safe-redirect';
 
@@ -36,6 +36,30 @@ describe('wording and units', () => {
   it('when elevation is known, then it carries metres', () => {
     expect(formatElevation(1520)).toBe('1,520 m');
     expect(formatElevation(null)).toBeNull();
+  });
+});
+
+describe('heat and dates', () => {
+  it('when degree days are shown, then they carry their one unit and whole numbers, or tenths for a single day', () => {
+    expect(formatDegreeDays(1204.4, 'F')).toBe('1,204 °F-days');
+    expect(formatDegreeDays(12.44, 'C', 1)).toBe('12.4 °C-days');
+    expect(formatHeat(412.2, 950, 43.4, 'F')).toBe('412 of 950 °F-days (43 %)');
+    expect(formatHeat(233.5, null, null, 'C')).toBe('234 °C-days');
+    expect(formatTemp(-1.5, 'C')).toBe('−1.5 °C');
+  });
+
+  it('when a date is written, then it is the calendar day of the string, in the browser language (en-US here)', () => {
+    expect(formatDayMonth('2025-06-14')).toBe('Jun 14');
+    expect(formatDayMonth('2025-01-01')).toBe('Jan 1');
+    expect(formatDayWindow('2025-06-14', '2025-06-22')).toBe('Jun 14–22');
+    expect(formatDayWindow('2025-05-28', '2025-06-03')).toBe('May 28\u2009–\u2009Jun 3');
+    expect(formatDayWindow('2025-06-18', '2025-06-18')).toBe('Jun 18');
+  });
+
+  it('when a maturity window has a source, then it reads in words by that source', () => {
+    expect(formatReady({ p10: '2025-06-14', p50: '2025-06-18', p90: '2025-06-22', kind: 'analog' })).toBe('Likely ready Jun 14–22');
+    expect(formatReady({ p10: '2025-05-31', p50: '2025-05-31', p90: '2025-05-31', kind: 'observed' })).toBe('Target reached May 31');
+    expect(formatReady({ p10: null, p50: null, p90: null, kind: 'none' })).toBe('No maturity window yet');
   });
 });
 

@@ -8,7 +8,7 @@ import type { Role } from '#shared/schemas/gardens';
 import { PlantingForm } from '@/features/plantings/components/planting-form';
 import type { PlantingChoices } from '@/features/plantings/components/planting-form';
 import { seen, server, setupClientTests } from './helpers/msw-server';
-import { aBed, aGarden, aPlanting, grower } from './helpers/data';
+import { aBed, aGarden, aPlanting, aProgress, grower } from './helpers/data';
 import { memberOf, renderApp, signedInAs } from './helpers/render-app';
 
 setupClientTests();
@@ -38,6 +38,7 @@ function plantingPage(role: Role) {
     signedInAs(grower),
     ...memberOf([aGarden({ role })]),
     http.get('/api/gardens/1/plantings/5', () => HttpResponse.json({ planting: aPlanting() })),
+    http.get('/api/gardens/1/plantings/5/progress', () => HttpResponse.json(aProgress())),
     http.get('/api/gardens/1/plantings/5/log', () => HttpResponse.json(page(0, []))),
     http.get('/api/gardens/1/plantings/5/photos', () =>
       HttpResponse.json({ photos: [{ id: 2, plantingId: 5, takenOn: '2025-04-12', caption: 'Rows up', width: 4, height: 3, bytes: 900, url: '/api/gardens/1/plantings/5/photos/2', by: 'Mara Quill' }] }),

@@ -4,7 +4,7 @@ import { screen } from '@testing-library/react';
 import { http, HttpResponse } from 'msw';
 import { seen, server, setupClientTests } from './helpers/msw-server';
 import { aGarden, grower } from './helpers/data';
-import { memberOf, renderApp, signedOut } from './helpers/render-app';
+import { memberOf, quietToday, renderApp, signedOut } from './helpers/render-app';
 
 setupClientTests();
 
@@ -92,13 +92,14 @@ describe('register form', () => {
       signedOut,
       http.post('/api/auth/register', () => HttpResponse.json({ user: grower, garden }, { status: 201 })),
       ...memberOf([garden]),
+      quietToday,
     );
     const { user, router } = renderApp('/register');
     await screen.findByRole('heading', { name: 'Create an account' });
 
     await fillAndSubmit(user);
 
-    expect(await screen.findByRole('heading', { name: 'Hollowbrook Teaching Garden' })).toBeTruthy();
+    expect(await screen.findByRole('heading', { name: 'Today', level: 1 })).toBeTruthy();
     expect(router.state.location.pathname).toBe('/g/12');
     expect(screen.getByText(/Add the garden’s latitude and longitude/)).toBeTruthy();
   });

@@ -3,8 +3,9 @@ import { describe, expect, it } from 'vitest';
 import { screen } from '@testing-library/react';
 import { http, HttpResponse } from 'msw';
 import { seen, server, setupClientTests } from './helpers/msw-server';
+import { rememberGarden } from '@/lib/last-garden';
 import { aGarden, grower } from './helpers/data';
-import { memberOf, renderApp, signedOut } from './helpers/render-app';
+import { memberOf, quietToday, renderApp, signedOut } from './helpers/render-app';
 
 setupClientTests();
 
@@ -118,6 +119,7 @@ describe('sign-in form', () => {
       signedOut,
       http.post('/api/auth/login', () => HttpResponse.json({ user: grower })),
       ...memberOf([aGarden()]),
+      quietToday,
     );
     const { user, router } = await openSignIn('/sign-in?next=//evil.example/steal');
     server.use(http.get('/api/auth/me', () => HttpResponse.json({ user: grower })));
@@ -126,7 +128,26 @@ describe('sign-in form', () => {
     await user.type(screen.getByLabelText('Password'), 'correct horse battery');
     await user.click(screen.getByRole('button', { name: 'Sign in' }));
 
-    await screen.findByRole('heading', { name: 'Hollowbrook Teaching Garden' });
+    await screen.findByRole('heading', { name: 'Today', level: 1 });
     expect(router.state.location.pathname).toBe('/g/1');
+  });
+
+  it('when a grower signs in, then the garden they last opened in this browser opens', async () => {
+    server.use(
+      signedOut,
+      http.post('/api/auth/login', () => HttpResponse.json({ user: grower })),
+      ...memberOf([aGarden(), aGarden({ id: 2, name: 'Wattle Creek School Garden', units: 'C', hemisphere: 'S' })]),
+      quietToday,
+    );
+    rememberGarden(grower.id, 2);
+    const { user, router } = await openSignIn();
+    server.use(http.get('/api/auth/me', () => HttpResponse.json({ user: grower })));
+
+    await user.type(screen.getByLabelText('E-mail'), 'mara@example.org');
+    await user.type(screen.getByLabelText('Password'), 'correct horse battery');
+    await user.click(screen.getByRole('button', { name: 'Sign in' }));
+
+    await screen.findByRole('heading', { name: 'Today', level: 1 });
+    expect(router.state.location.pathname).toBe('/g/2');
   });
 });

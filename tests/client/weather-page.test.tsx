@@ -1,5 +1,5 @@
 // @vitest-environment jsdom
-import { beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { screen, within } from '@testing-library/react';
 import { File as NodeFile } from 'node:buffer';
 import { http, HttpResponse } from 'msw';
@@ -10,15 +10,6 @@ import { aGarden, grower } from './helpers/data';
 import { memberOf, renderApp, signedInAs } from './helpers/render-app';
 
 setupClientTests();
-
-beforeAll(() => {
-  // Recharts sizes its chart with ResizeObserver, which jsdom lacks.
-  globalThis.ResizeObserver ??= class {
-    observe() {}
-    unobserve() {}
-    disconnect() {}
-  };
-});
 
 function aWeather(overrides: Partial<WeatherResponse> = {}): WeatherResponse {
   return {

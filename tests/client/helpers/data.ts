@@ -3,6 +3,7 @@ import type { GardenDto } from '#shared/schemas/gardens';
 import type { BedDto } from '#shared/schemas/beds';
 import type { CropDto, CropParamDto } from '#shared/schemas/crops';
 import type { PlantingDto } from '#shared/schemas/plantings';
+import type { BoltLevel, ProgressDto, ProgressProjectionDay, ProgressSeriesDay, ProgressSummaryDto, TodayDto } from '#shared/schemas/progress';
 
 // Invented test people and places, in the spirit of the demo scenario.
 export const grower: UserDto = { id: 7, email: 'mara@example.org', name: 'Mara Quill' };
@@ -78,6 +79,231 @@ export function aParam(overrides: Partial<CropParamDto> = {}): CropParamDto {
     origin: 'library',
     libraryDefault: null,
     updatedAt: null,
+    ...overrides,
+  };
+}
+
+/** Consecutive 'YYYY-MM-DD' days from `from`, `count` of them (UTC calendar arithmetic). */
+function daysFrom(from: string, count: number): string[] {
+  const start = Date.parse(`${from}T00:00:00Z`);
+  return Array.from({ length: count }, (_, k) => new Date(start + k * 86_400_000).toISOString().slice(0, 10));
+}
+
+/**
+ * A butterhead lettuce sown 1 May 2025 in a °F garden, on 2 June: 32 observed days adding up to
+ * 412 °F-days (28 days of 13 and 4 of 12), 11 forecast days of 16, then the analog projection.
+ */
+export function aProgress(overrides: Partial<ProgressDto> = {}): ProgressDto {
+  let cumulative = 0;
+  const series: ProgressSeriesDay[] = daysFrom('2025-05-01', 43).map((date, k) => {
+    const forecast = k >= 32;
+    const dd = forecast ? 16 : k < 28 ? 13 : 12;
+    cumulative += dd;
+    return { date, tmax: 62 + (k % 5) * 2 + (forecast ? 6 : 0), tmin: 44 + (k % 3), dd, cumulative, source: forecast ? 'forecast' : 'observed' };
+  });
+  const projection: ProgressProjectionDay[] = daysFrom('2025-06-13', 18).map((date, k) => ({
+    date,
+    p10: 590 + k * 14,
+    p50: 590 + k * 19,
+    p90: 590 + k * 25,
+  }));
+  const boltDays = daysFrom('2025-05-01', 43).map((date, k) => ({
+    date,
+    level: (k < 25 ? 'low' : k < 39 ? 'elevated' : 'high') as BoltLevel,
+    forecast: k >= 32,
+  }));
+  return {
+    plantingId: 5,
+    status: 'growing',
+    unit: 'F',
+    method: 'direct-sow',
+    base: 40,
+    upper: 80,
+    cutoff: 'horizontal',
+    target: 950,
+    targetBasis: 'packet',
+    targetNote: 'From the packet’s 55 days to maturity over this garden’s past seasons.',
+    accumulated: 412,
+    percent: 43,
+    startEvent: { kind: 'sowing', on: '2025-05-01' },
+    packetDate: '2025-06-12',
+    maturity: {
+      p10: '2025-06-14',
+      p50: '2025-06-18',
+      p90: '2025-06-22',
+      basis: {
+        kind: 'analog',
+        observedDays: 32,
+        forecastDays: 11,
+        analogYears: 10,
+        neverMatureShare: 0,
+        note: '32 recorded days and 11 forecast days, then 10 past seasons of this garden.',
+      },
+    },
+    boltRisk: {
+      level: 'elevated',
+      reasons: [
+        { trigger: 'heat', message: '4 days above 80.0 °F in a row are forecast.', forecast: true },
+        { trigger: 'day-length', message: 'Days are longer than 14 h 30 min.', forecast: false },
+      ],
+      highFrom: '2025-06-09',
+      days: boltDays,
+    },
+    stress: [
+      {
+        kind: 'blossom-drop',
+        severity: 'watch',
+        start: '2025-06-10',
+        end: '2025-06-11',
+        days: 2,
+        forecast: true,
+        lowestMin: null,
+        highestMax: 91.4,
+        threshold: 90,
+        message: 'Heat above 90.0 °F is forecast.',
+      },
+    ],
+    series,
+    projection,
+    today: '2025-06-02',
+    missingDates: [],
+    recorded: { firstHarvestOn: null, boltedOn: null },
+    summary: '412 of 950 °F-days (43 %); likely ready 14–22 June; bolt risk high from 9 June.',
+    ...overrides,
+  };
+}
+
+/** Spinach in the southern °C garden, sown 20 July 2025, seen on 1 September. */
+export function aCelsiusProgress(overrides: Partial<ProgressDto> = {}): ProgressDto {
+  const series: ProgressSeriesDay[] = daysFrom('2025-08-30', 3).map((date, k) => ({
+    date,
+    tmax: 14.5 + k,
+    tmin: -1.5 + k,
+    dd: 5.5,
+    cumulative: 222.5 + 5.5 * (k + 1),
+    source: k === 2 ? 'forecast' : 'observed',
+  }));
+  return aProgress({
+    plantingId: 8,
+    unit: 'C',
+    base: 2,
+    upper: 24,
+    target: 520,
+    targetNote: 'Calibrated from 3 harvests of this variety in this garden.',
+    targetBasis: 'calibrated',
+    accumulated: 233.5,
+    percent: 45,
+    startEvent: { kind: 'sowing', on: '2025-07-20' },
+    packetDate: '2025-10-05',
+    maturity: {
+      p10: '2025-10-03',
+      p50: '2025-10-07',
+      p90: '2025-10-11',
+      basis: { kind: 'analog', observedDays: 42, forecastDays: 1, analogYears: 9, neverMatureShare: 0.1, note: '42 recorded days, 1 forecast day, then 9 past seasons.' },
+    },
+    boltRisk: {
+      level: 'low',
+      reasons: [{ trigger: 'day-length', message: 'Days are still shorter than 14 h.', forecast: false }],
+      highFrom: null,
+      days: series.map((d) => ({ date: d.date, level: 'low', forecast: d.source === 'forecast' })),
+    },
+    stress: [
+      {
+        kind: 'frost',
+        severity: 'light',
+        start: '2025-09-01',
+        end: '2025-09-01',
+        days: 1,
+        forecast: true,
+        lowestMin: -1.5,
+        highestMax: null,
+        threshold: 0,
+        message: 'A light frost is forecast.',
+      },
+    ],
+    series,
+    projection: daysFrom('2025-09-02', 3).map((date, k) => ({ date, p10: 236 + k * 4, p50: 238 + k * 5, p90: 240 + k * 6 })),
+    today: '2025-09-01',
+    missingDates: ['2025-08-12'],
+    summary: '234 of 520 °C-days (45 %); likely ready 3–11 October.',
+    ...overrides,
+  });
+}
+
+export function aProgressSummary(overrides: Partial<ProgressSummaryDto> = {}): ProgressSummaryDto {
+  return {
+    plantingId: 5,
+    unit: 'F',
+    accumulated: 412,
+    target: 950,
+    percent: 43,
+    maturity: { p10: '2025-06-14', p50: '2025-06-18', p90: '2025-06-22', kind: 'analog' },
+    boltLevel: 'elevated',
+    boltHighFrom: '2025-06-09',
+    boltReason: '4 days above 80.0 °F in a row are forecast.',
+    stress: [],
+    summary: '412 of 950 °F-days (43 %); likely ready 14–22 June.',
+    ...overrides,
+  };
+}
+
+export function aToday(overrides: Partial<TodayDto> = {}): TodayDto {
+  return {
+    today: '2025-06-02',
+    unit: 'F',
+    actions: [
+      {
+        kind: 'window-open',
+        plantingId: 9,
+        plantingIds: [9],
+        title: 'Radish: Ember Globe is ready to pull',
+        advice: 'Harvest in the cool of the morning.',
+        detail: '402 of 390 °F-days (103 %)',
+        date: '2025-06-02',
+      },
+      {
+        kind: 'bolt-high',
+        plantingId: 5,
+        plantingIds: [5],
+        title: 'Lettuce: Copperleaf Butterhead may bolt',
+        advice: 'Harvest early or shade the bed; keep it watered.',
+        detail: 'Highs of 84–88 °F for 4 days from 9 Jun',
+        date: '2025-06-09',
+      },
+    ],
+    plantings: [
+      {
+        plantingId: 5,
+        crop: { key: 'lettuce', name: 'Lettuce', season: 'cool' },
+        variety: { id: 7, name: 'Copperleaf Butterhead' },
+        bed: { id: 3, name: 'North 1' },
+        status: 'growing',
+        progress: aProgressSummary(),
+      },
+      {
+        plantingId: 9,
+        crop: { key: 'radish', name: 'Radish', season: 'cool' },
+        variety: { id: 12, name: 'Ember Globe' },
+        bed: { id: 4, name: 'North 2' },
+        status: 'growing',
+        progress: aProgressSummary({
+          plantingId: 9,
+          accumulated: 402,
+          target: 390,
+          percent: 103,
+          maturity: { p10: '2025-05-31', p50: '2025-05-31', p90: '2025-05-31', kind: 'observed' },
+          boltLevel: 'low',
+          boltHighFrom: null,
+          boltReason: null,
+        }),
+      },
+    ],
+    weather: daysFrom('2025-05-26', 14).map((date, k) => ({
+      date,
+      tmax: 70 + k,
+      tmin: 48 + (k % 4),
+      source: k < 7 ? 'observed' : 'forecast',
+    })),
     ...overrides,
   };
 }

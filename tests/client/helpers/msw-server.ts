@@ -1,4 +1,4 @@
-import { afterAll, afterEach, beforeAll, vi } from 'vitest';
+import { afterAll, afterEach, beforeAll, beforeEach, vi } from 'vitest';
 import { cleanup } from '@testing-library/react';
 import { setupServer } from 'msw/node';
 
@@ -7,6 +7,8 @@ export const server = setupServer();
 export interface SeenRequest {
   method: string;
   path: string;
+  /** The query string's parameters, e.g. `query.get('sort')`. */
+  query: URLSearchParams;
   headers: Headers;
   /** Parsed JSON, the FormData of a multipart upload, or the raw text of anything else. */
   body: unknown;
@@ -25,7 +27,8 @@ async function readBody(request: Request): Promise<unknown> {
 
 server.events.on('request:start', async ({ request }) => {
   const body = await readBody(request);
-  seen.push({ method: request.method, path: new URL(request.url).pathname, headers: request.headers, body });
+  const url = new URL(request.url);
+  seen.push({ method: request.method, path: url.pathname, query: url.searchParams, headers: request.headers, body });
 });
 
 /**
@@ -37,15 +40,37 @@ export async function useNodeFormData() {
   vi.stubGlobal('FormData', nodeForm.constructor);
 }
 
+/**
+ * Dates are written in the browser's language; a test that reads them picks one, e.g. ['en-GB']
+ * for "14–22 Jun". Without this, jsdom's en-US gives "Jun 14–22".
+ */
+export function useBrowserLanguages(languages: string[]) {
+  let spy: { mockRestore: () => void } | undefined;
+  beforeEach(() => {
+    spy = vi.spyOn(Navigator.prototype, 'languages', 'get').mockReturnValue(languages);
+  });
+  afterEach(() => spy?.mockRestore());
+}
+
 /** Call once at the top of a test file: a mock API per file, a clean page per test. */
 export function setupClientTests() {
-  beforeAll(() => server.listen({ onUnhandledRequest: 'error' }));
+  beforeAll(() => {
+    server.listen({ onUnhandledRequest: 'error' });
+    // Recharts sizes its charts with ResizeObserver, which jsdom lacks.
+    globalThis.ResizeObserver ??= class {
+      observe() {}
+      unobserve() {}
+      disconnect() {}
+    };
+  });
   afterEach(() => {
     // Vitest runs without globals here, so Testing Library cannot register this by itself.
     cleanup();
     server.resetHandlers();
     seen.length = 0;
     vi.unstubAllGlobals();
+    // The last-opened garden is remembered in localStorage; each test starts without one.
+    if (typeof localStorage !== 'undefined') localStorage.clear();
   });
   afterAll(() => server.close());
 }

@@ -7,6 +7,7 @@ import type { UserDto } from '#shared/schemas/auth';
 import type { GardenDto } from '#shared/schemas/gardens';
 import { AppProviders } from '@/app/providers';
 import { routes } from '@/app/router';
+import { aToday } from './data';
 
 /** Renders the whole app at `path` with a fresh client that never retries. */
 export function renderApp(path: string) {
@@ -42,3 +43,6 @@ export function memberOf(gardens: GardenDto[]) {
     }),
   ];
 }
+
+/** Today with nothing to show, for tests that land on a garden's home page but look elsewhere. */
+export const quietToday = http.get('/api/gardens/:gardenId/today', () => HttpResponse.json(aToday({ actions: [], plantings: [], weather: [] })));

@@ -3,15 +3,22 @@ import { Button } from '@/components/ui/button';
 import { Loading } from '@/components/ui/loading';
 import { Notice } from '@/components/ui/notice';
 import { Wordmark } from '@/components/ui/wordmark';
+import { lastGarden } from '@/lib/last-garden';
+import { useMe } from '@/features/auth/api/get-me';
 import { SignOutButton } from '@/features/auth/components/sign-out-button';
 import { useGardens } from '@/features/gardens/api/get-gardens';
 
-/** `/` has no page of its own: it opens the first of the grower's gardens. */
+/** `/` has no page of its own: it opens the garden last opened here, if still a member, else the first. */
 export function FirstGardenPage() {
   const gardens = useGardens();
+  const me = useMe();
 
   if (gardens.isPending) return <Loading label="Loading your gardens…" />;
-  if (gardens.isSuccess && gardens.data.length > 0) return <Navigate to={`/g/${gardens.data[0].id}`} replace />;
+  if (gardens.isSuccess && gardens.data.length > 0) {
+    const last = me.data ? lastGarden(me.data.id) : null;
+    const garden = gardens.data.find((g) => g.id === last) ?? gardens.data[0];
+    return <Navigate to={`/g/${garden.id}`} replace />;
+  }
 
   return (
     <div className="mx-auto flex max-w-xl flex-col items-start gap-4 px-4 py-6">

@@ -1,7 +1,9 @@
+import { useEffect } from 'react';
 import { NavLink, Outlet, useOutletContext, useParams } from 'react-router-dom';
 import type { GardenDto } from '#shared/schemas/gardens';
 import { isApiError } from '@/lib/api-client';
 import { parseId } from '@/lib/ids';
+import { rememberGarden } from '@/lib/last-garden';
 import { Button } from '@/components/ui/button';
 import { Loading } from '@/components/ui/loading';
 import { NotFoundMessage } from '@/components/ui/not-found-message';
@@ -22,6 +24,12 @@ export function useCurrentGarden(): GardenDto {
 
 function GardenContent({ gardenId }: { gardenId: number }) {
   const garden = useGarden(gardenId);
+  const me = useMe();
+  const userId = me.data?.id;
+  const opened = garden.isSuccess;
+  useEffect(() => {
+    if (opened && userId !== undefined) rememberGarden(userId, gardenId);
+  }, [opened, userId, gardenId]);
   if (garden.isPending) return <Loading label="Loading the garden…" />;
   if (garden.isError) {
     if (isApiError(garden.error, 404)) return <NotFoundMessage what="garden" />;
@@ -71,7 +79,7 @@ export function GardenLayout() {
             <ul className="flex flex-wrap gap-x-6">
               <li>
                 <NavLink end to={`/g/${gardenId}`} className={NAV_LINK}>
-                  Overview
+                  Today
                 </NavLink>
               </li>
               <li>

@@ -20,6 +20,7 @@ import { PlantingLog } from '@/features/plantings/components/planting-log';
 import { PlantingPhotos } from '@/features/plantings/components/planting-photos';
 import { QuickLog } from '@/features/plantings/components/quick-log';
 import { todayIn } from '@/features/plantings/components/today';
+import { PlantingProgress } from '@/features/progress/components/planting-progress';
 
 const count = (n: number, one: string, many: string) => `${n} ${n === 1 ? one : many}`;
 
@@ -96,6 +97,10 @@ function Detail({ plantingId }: { plantingId: number }) {
         </div>
       )}
       {editing && <EditPlanting planting={p} today={today} onDone={() => setEditing(false)} />}
+      <section aria-labelledby="progress" className="flex min-w-0 flex-col gap-2">
+        <h2 id="progress" className="text-lg font-bold">Progress</h2>
+        <PlantingProgress gardenId={garden.id} plantingId={p.id} />
+      </section>
       <div className="grid gap-5 lg:grid-cols-2">
         <div className="flex flex-col gap-5">
           {canEdit && <QuickLog gardenId={garden.id} plantingId={p.id} today={today} />}

@@ -8,14 +8,22 @@ export async function updateGarden(gardenId: number, changes: GardenUpdateInput)
   return garden;
 }
 
+const GARDEN_WIDE: (keyof GardenUpdateInput)[] = ['units', 'latitude', 'longitude', 'timeZone'];
+
 export function useUpdateGarden(gardenId: number) {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: (changes: GardenUpdateInput) => updateGarden(gardenId, changes),
-    onSuccess: (garden) => {
+    onSuccess: (garden, changes) => {
       queryClient.setQueryData(gardenKeys.detail(gardenId), garden);
-      // The switcher lists names, so the list must learn about a rename.
-      return queryClient.invalidateQueries({ queryKey: gardenKeys.list() });
+      // Units, place and time zone change every figure shown for the garden (weather, progress,
+      // plantings' rows): every garden-scoped query, keyed [feature, gardenId, …], is stale.
+      const refigured = GARDEN_WIDE.some((field) => field in changes);
+      return Promise.all([
+        // The switcher lists names, so the list must learn about a rename.
+        queryClient.invalidateQueries({ queryKey: gardenKeys.list() }),
+        refigured && queryClient.invalidateQueries({ predicate: ({ queryKey }) => queryKey[0] !== gardenKeys.all[0] && queryKey[1] === gardenId }),
+      ]);
     },
     onError: (error) => {
       // A 403 means our idea of the grower's role is stale; fetch the truth.

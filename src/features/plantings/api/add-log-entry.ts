@@ -2,6 +2,7 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { LogEntryCreateInput, LogEntryDto, PlantingDto } from '#shared/schemas/plantings';
 import { api } from '@/lib/api-client';
 import { plantingKeys } from '@/features/plantings/api/planting-keys';
+import { invalidatePlantings } from '@/features/plantings/api/invalidate-plantings';
 
 export function addLogEntry(gardenId: number, plantingId: number, input: LogEntryCreateInput) {
   return api.post<{ entry: LogEntryDto; planting: PlantingDto }>(`/api/gardens/${gardenId}/plantings/${plantingId}/log`, input);
@@ -14,7 +15,7 @@ export function useAddLogEntry(gardenId: number, plantingId: number) {
     onSuccess: ({ planting }) => {
       // A harvest or bolting entry moves the planting's dates and status too.
       queryClient.setQueryData(plantingKeys.detail(gardenId, plantingId), planting);
-      return queryClient.invalidateQueries({ queryKey: plantingKeys.all(gardenId) });
+      return invalidatePlantings(queryClient, gardenId);
     },
   });
 }

@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { api } from '@/lib/api-client';
-import { plantingKeys } from '@/features/plantings/api/planting-keys';
+import { invalidatePlantings } from '@/features/plantings/api/invalidate-plantings';
 
 /** A photo's own entry is refused with 409: deleting the photo removes it. */
 export function deleteLogEntry(gardenId: number, plantingId: number, entryId: number): Promise<void> {
@@ -12,6 +12,6 @@ export function useDeleteLogEntry(gardenId: number, plantingId: number, entryId:
   return useMutation({
     mutationFn: () => deleteLogEntry(gardenId, plantingId, entryId),
     // The planting's entry count and list row change as well as its log.
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: plantingKeys.all(gardenId) }),
+    onSuccess: () => invalidatePlantings(queryClient, gardenId),
   });
 }

@@ -1,6 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { api } from '@/lib/api-client';
 import { plantingKeys } from '@/features/plantings/api/planting-keys';
+import { invalidatePlantings } from '@/features/plantings/api/invalidate-plantings';
 
 /** Takes the planting's log and photos with it. */
 export function deletePlanting(gardenId: number, plantingId: number): Promise<void> {
@@ -14,7 +15,7 @@ export function useDeletePlanting(gardenId: number, plantingId: number) {
     onSuccess: () => {
       // Dropped rather than refetched: the detail would only answer 404 now.
       queryClient.removeQueries({ queryKey: plantingKeys.detail(gardenId, plantingId) });
-      return queryClient.invalidateQueries({ queryKey: plantingKeys.all(gardenId) });
+      return invalidatePlantings(queryClient, gardenId);
     },
   });
 }

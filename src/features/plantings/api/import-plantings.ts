@@ -2,7 +2,7 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { ImportReport } from '#shared/schemas/plantings';
 import { api } from '@/lib/api-client';
 import type { ApiError } from '@/lib/api-client';
-import { plantingKeys } from '@/features/plantings/api/planting-keys';
+import { invalidatePlantings } from '@/features/plantings/api/invalidate-plantings';
 
 /** All or nothing: a 422 answer means no row was written. */
 export async function importPlantings(gardenId: number, file: File): Promise<ImportReport> {
@@ -15,6 +15,6 @@ export function useImportPlantings(gardenId: number) {
   const queryClient = useQueryClient();
   return useMutation<ImportReport, ApiError, File>({
     mutationFn: (file) => importPlantings(gardenId, file),
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: plantingKeys.all(gardenId) }),
+    onSuccess: () => invalidatePlantings(queryClient, gardenId),
   });
 }

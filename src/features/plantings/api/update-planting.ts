@@ -2,6 +2,7 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { PlantingDto, PlantingUpdateInput } from '#shared/schemas/plantings';
 import { api } from '@/lib/api-client';
 import { plantingKeys } from '@/features/plantings/api/planting-keys';
+import { invalidatePlantings } from '@/features/plantings/api/invalidate-plantings';
 
 /** A partial change; the server re-checks the whole planting with the change applied. */
 export async function updatePlanting(gardenId: number, plantingId: number, input: PlantingUpdateInput): Promise<PlantingDto> {
@@ -14,7 +15,7 @@ export function useUpdatePlanting(gardenId: number, plantingId: number) {
     mutationFn: (input: PlantingUpdateInput) => updatePlanting(gardenId, plantingId, input),
     onSuccess: (planting) => {
       queryClient.setQueryData(plantingKeys.detail(gardenId, plantingId), planting);
-      return queryClient.invalidateQueries({ queryKey: plantingKeys.all(gardenId) });
+      return invalidatePlantings(queryClient, gardenId);
     },
   });
 }

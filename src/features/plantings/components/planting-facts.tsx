@@ -15,7 +15,7 @@ export function PlantingFacts({ planting: p }: { planting: PlantingDto }) {
     ['Days to maturity', p.variety.dtmDays === null ? '—' : `${p.variety.dtmDays} days ${DTM_FROM_WORDS[p.variety.dtmFrom as DtmFrom]}`],
     ['Season', p.season ?? '—'],
     ...STAGE_FIELDS.filter((f) => p[f]).map((f): [string, React.ReactNode] => [STAGE_WORDS[f], formatDay(p[f]!)]),
-    ['Next', p.nextEvent ? `${p.nextEvent.label}${p.nextEvent.on ? ` ${formatDay(p.nextEvent.on)}` : ''} (${p.nextEvent.basis})` : '—'],
+    ['Next', p.nextEvent ? `${p.nextEvent.label}${p.nextEvent.on ? ` ${formatDay(p.nextEvent.on)}` : ''}` : '—'],
   ];
   return (
     <dl className="grid grid-cols-[auto_1fr] gap-x-4 gap-y-2 rounded-lg border border-line bg-paper-raised p-4">

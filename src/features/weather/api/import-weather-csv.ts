@@ -3,6 +3,7 @@ import type { WeatherImportResult } from '#shared/schemas/weather';
 import type { DisplayUnit } from '#shared/schemas/gardens';
 import { api } from '@/lib/api-client';
 import type { ApiError } from '@/lib/api-client';
+import { progressRootKey } from '@/lib/progress-root-key';
 import { weatherKeys } from '@/features/weather/api/weather-keys';
 
 export interface WeatherImportInput {
@@ -22,6 +23,11 @@ export function useImportWeatherCsv(gardenId: number) {
   const queryClient = useQueryClient();
   return useMutation<WeatherImportResult, ApiError, WeatherImportInput>({
     mutationFn: (input) => importWeatherCsv(gardenId, input),
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: weatherKeys.garden(gardenId) }),
+    // The station's days replace the service's for this garden, so its plantings' progress moves.
+    onSuccess: () =>
+      Promise.all([
+        queryClient.invalidateQueries({ queryKey: weatherKeys.garden(gardenId) }),
+        queryClient.invalidateQueries({ queryKey: progressRootKey(gardenId) }),
+      ]),
   });
 }

@@ -1,5 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { api, isApiError } from '@/lib/api-client';
+import { progressRootKey } from '@/lib/progress-root-key';
 import { weatherKeys } from '@/features/weather/api/weather-keys';
 
 export interface RefreshRun {
@@ -22,8 +23,13 @@ export function useRefreshWeather(gardenId: number) {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: () => refreshWeather(gardenId),
-    // The refresh also restarts the history backfill, so the days, progress and job list all move.
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: weatherKeys.garden(gardenId) }),
+    // The refresh also restarts the history backfill, so the days, progress and job list all move,
+    // and so does every planting's progress.
+    onSuccess: () =>
+      Promise.all([
+        queryClient.invalidateQueries({ queryKey: weatherKeys.garden(gardenId) }),
+        queryClient.invalidateQueries({ queryKey: progressRootKey(gardenId) }),
+      ]),
     onError: (error) => {
       // 409 no_location: the location was removed meanwhile; the page should say so.
       if (isApiError(error, 409)) return queryClient.invalidateQueries({ queryKey: weatherKeys.garden(gardenId) });

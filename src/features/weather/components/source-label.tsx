@@ -1,14 +1,8 @@
 import { CloudSun, RadioTower, Spline, Thermometer } from 'lucide-react';
 import type { WeatherDayDto } from '#shared/schemas/weather';
+import { SOURCE_WORDS } from '@/lib/format';
 
 type Source = WeatherDayDto['source'];
-
-export const SOURCE_WORDS: Record<Source, string> = {
-  observed: 'Observed',
-  forecast: 'Forecast',
-  imported: 'Your station',
-  filled: 'Estimated (filled)',
-};
 
 export const SOURCE_ICONS = { observed: Thermometer, forecast: CloudSun, imported: RadioTower, filled: Spline } as const;
 

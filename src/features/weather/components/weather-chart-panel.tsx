@@ -2,8 +2,9 @@ import { lazy, Suspense } from 'react';
 import type { ReactNode } from 'react';
 import type { WeatherResponse } from '#shared/schemas/weather';
 import { Loading } from '@/components/ui/loading';
+import { formatTemp } from '@/lib/format';
 import { numberThresholds } from '@/features/weather/utils/chart-series';
-import { formatCount, formatDayRange, formatTemp } from '@/features/weather/utils/format-weather';
+import { formatCount, formatDayRange } from '@/features/weather/utils/format-weather';
 
 // Recharts is large: it loads with this component, in its own chunk, only when a chart is shown.
 const WeatherChart = lazy(() =>

@@ -2,15 +2,17 @@
  * The Recharts drawing of a garden's highs and lows. Loaded lazily (see weather-chart-panel) so
  * Recharts stays in its own chunk and only pages with a chart pay for it.
  */
-import { useSyncExternalStore } from 'react';
 import { CartesianGrid, ComposedChart, Line, ReferenceArea, ReferenceLine, Tooltip, XAxis, YAxis } from 'recharts';
 import type { DotItemDotProps } from 'recharts';
 import type { WeatherResponse, WeatherThresholdDto } from '#shared/schemas/weather';
 import { fromDayNumber, toDayNumber } from '#shared/thermal/dates';
-import { SOURCE_WORDS } from '@/features/weather/components/source-label';
-import { buildChartPoints, dayTicks, numberThresholds, placeThresholdLabels, temperatureDomain } from '@/features/weather/utils/chart-series';
+import { dayTicks, placeThresholdLabels, temperatureDomain } from '@/lib/chart-axes';
+import { formatTemp, SOURCE_WORDS } from '@/lib/format';
+import { useWideChart } from '@/lib/use-wide-chart';
+import { ChartLineLabel } from '@/components/ui/chart-line-label';
+import { buildChartPoints, numberThresholds } from '@/features/weather/utils/chart-series';
 import type { ChartPoint } from '@/features/weather/utils/chart-series';
-import { formatDay, formatShortDay, formatTemp } from '@/features/weather/utils/format-weather';
+import { formatDay, formatShortDay } from '@/features/weather/utils/format-weather';
 
 export const CHART_COLOURS = {
   high: 'var(--color-ember)',
@@ -28,49 +30,6 @@ export const THRESHOLD_COLOURS: Record<WeatherThresholdDto['kind'], string> = {
 };
 
 /** Filled days get a hollow ring and station days a small square, on top of the line's colour. */
-const WIDE = '(min-width: 40rem)';
-
-function subscribeToWidth(onChange: () => void) {
-  if (typeof window.matchMedia !== 'function') return () => {};
-  const query = window.matchMedia(WIDE);
-  query.addEventListener('change', onChange);
-  return () => query.removeEventListener('change', onChange);
-}
-
-/** On a phone, weekly date ticks collide; every second week fits. */
-function useWideChart(): boolean {
-  return useSyncExternalStore(subscribeToWidth, () => typeof window.matchMedia !== 'function' || window.matchMedia(WIDE).matches);
-}
-
-interface ThresholdLabelProps {
-  viewBox?: { x?: number; y?: number; width?: number };
-  text: string;
-  colour: string;
-  side: 'left' | 'right';
-  below: boolean;
-}
-
-/** The line's own words, with a paper-coloured halo so they stay readable across the data. */
-function ThresholdLabel({ viewBox, text, colour, side, below }: ThresholdLabelProps) {
-  if (viewBox?.x == null || viewBox.y == null || viewBox.width == null) return null;
-  return (
-    <text
-      x={side === 'left' ? viewBox.x + 6 : viewBox.x + viewBox.width - 6}
-      y={below ? viewBox.y + 14 : viewBox.y - 5}
-      textAnchor={side === 'left' ? 'start' : 'end'}
-      fill={colour}
-      fontSize={12}
-      fontWeight={600}
-      stroke="var(--color-paper-raised)"
-      strokeWidth={4}
-      strokeLinejoin="round"
-      paintOrder="stroke"
-    >
-      {text}
-    </text>
-  );
-}
-
 function SourceDot({ cx, cy, stroke, payload }: DotItemDotProps) {
   const point = payload as ChartPoint;
   if (cx == null || cy == null) return null;
@@ -167,7 +126,7 @@ export function WeatherChart({ weather }: { weather: WeatherResponse }) {
           strokeDasharray="1 5"
           strokeWidth={2}
           label={
-            <ThresholdLabel
+            <ChartLineLabel
               // A phone has no room for the words; the number leads to them in the list below.
               text={wide ? `${t.label}: ${formatTemp(t.value, unit)}` : `${t.key}: ${formatTemp(t.value, unit)}`}
               colour={THRESHOLD_COLOURS[t.kind]}

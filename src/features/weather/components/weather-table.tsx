@@ -1,7 +1,8 @@
 import { useEffect, useRef } from 'react';
 import type { WeatherResponse } from '#shared/schemas/weather';
 import { SourceLabel } from '@/features/weather/components/source-label';
-import { formatDay, formatTemp } from '@/features/weather/utils/format-weather';
+import { formatTemp } from '@/lib/format';
+import { formatDay } from '@/features/weather/utils/format-weather';
 
 const CELL = 'px-1.5 py-2 text-left align-top sm:px-3';
 const HEAD = `${CELL} sticky top-0 z-10 border-b border-line bg-paper-raised`;

@@ -1,13 +1,6 @@
-import type { DisplayUnit } from '#shared/schemas/gardens';
 import { parseIsoDate } from '#shared/thermal/dates';
 
-const tenth = new Intl.NumberFormat('en', { minimumFractionDigits: 1, maximumFractionDigits: 1 });
 const whole = new Intl.NumberFormat('en', { maximumFractionDigits: 0 });
-
-/** "−3.5 °C": a true minus sign, one decimal, and the unit on every figure. */
-export function formatTemp(value: number, unit: DisplayUnit): string {
-  return `${tenth.format(value).replace('-', '−')} °${unit}`;
-}
 
 export function formatCount(n: number, one: string, many: string): string {
   return `${whole.format(n)} ${n === 1 ? one : many}`;

@@ -1,0 +1,38 @@
+import { RotateCw } from 'lucide-react';
+import type { ProgressDto } from '#shared/schemas/progress';
+import { degreeDayUnit } from '@/lib/format';
+import { Button } from '@/components/ui/button';
+import { Loading } from '@/components/ui/loading';
+import { Notice } from '@/components/ui/notice';
+import { useProgress } from '@/features/progress/api/get-progress';
+import { ProgressChartPanel } from '@/features/progress/components/progress-chart-panel';
+import { ProgressSummary } from '@/features/progress/components/progress-summary';
+
+const chartTitle = (p: ProgressDto) =>
+  p.status === 'planned'
+    ? `Projected degree days from the planned start, in ${degreeDayUnit(p.unit)}`
+    : `Degree days since the start, in ${degreeDayUnit(p.unit)}, with the projection`;
+
+/** A planting's progress in heat: the chart, its strip and table, and the same in words. */
+export function PlantingProgress({ gardenId, plantingId }: { gardenId: number; plantingId: number }) {
+  const progress = useProgress(gardenId, plantingId);
+  if (progress.isPending) return <Loading label="Loading progress…" />;
+  if (progress.isError) {
+    return (
+      <div className="flex flex-col items-start gap-3">
+        <Notice tone="error" title="Progress could not be loaded — try again" live="alert">
+          {progress.error.message}
+        </Notice>
+        <Button variant="quiet" onClick={() => progress.refetch()} disabled={progress.isFetching}>
+          <RotateCw className="size-5" aria-hidden="true" /> Try again
+        </Button>
+      </div>
+    );
+  }
+  return (
+    <div className="flex flex-col gap-4">
+      <ProgressChartPanel progress={progress.data} title={chartTitle(progress.data)} />
+      <ProgressSummary progress={progress.data} />
+    </div>
+  );
+}
