@@ -126,7 +126,7 @@ export function formatDayWindow(from: string, to: string): string {
 }
 
 export const BOLT_WORDS: Record<BoltLevelOrNone, string> = {
-  none: 'None',
+  none: 'Not assessed',
   low: 'Low',
   elevated: 'Elevated',
   high: 'High',

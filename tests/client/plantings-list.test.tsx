@@ -42,7 +42,7 @@ describe('plantings list', () => {
     expect(within(first).getByText('First harvest 18 Jun 2025')).toBeTruthy();
     expect(within(second).getByText('300 °F-days so far · no target')).toBeTruthy();
     expect(within(second).getByText('No maturity window yet')).toBeTruthy();
-    expect(within(second).getByText('None')).toBeTruthy();
+    expect(within(second).getByText('Not assessed')).toBeTruthy();
     expect(within(third).getAllByText('—')).toHaveLength(5);
   });
 

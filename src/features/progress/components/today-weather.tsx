@@ -1,13 +1,24 @@
+import { useEffect, useRef } from 'react';
 import { CloudSun, Thermometer } from 'lucide-react';
 import type { TodayDto } from '#shared/schemas/progress';
 import { formatTemp, formatWeekdayDayMonth, SOURCE_WORDS } from '@/lib/format';
 
-/** The last 7 and next 7 days, one card each; forecast days say so in words, today is marked. */
+/**
+ * The last 7 and next 7 days, one card each; forecast days say so in words, today is marked.
+ * Wide screens show the fortnight in two rows; a phone scrolls sideways and opens on yesterday.
+ */
 export function TodayWeather({ today }: { today: TodayDto }) {
+  const strip = useRef<HTMLDivElement>(null);
+  useEffect(() => {
+    const el = strip.current;
+    const current = el?.querySelector<HTMLElement>('[aria-current="date"]');
+    const before = current?.previousElementSibling as HTMLElement | null | undefined;
+    if (el && before) el.scrollLeft = before.offsetLeft - el.offsetLeft;
+  }, [today]);
   if (!today.weather.length) return <p>No weather for these days yet.</p>;
   return (
-    <div className="overflow-x-auto" tabIndex={0} role="region" aria-label="Highs and lows, last 7 and next 7 days">
-      <ol className="flex gap-2 pb-2">
+    <div ref={strip} className="overflow-x-auto" tabIndex={0} role="region" aria-label="Highs and lows, last 7 and next 7 days">
+      <ol className="flex gap-2 pb-2 lg:grid lg:grid-cols-8">
         {today.weather.map((d) => {
           const isToday = d.date === today.today;
           const Icon = d.source === 'forecast' ? CloudSun : Thermometer;
