@@ -9,6 +9,10 @@ import { migrate } from '../server/db/migrate';
 import { databaseIsEmpty, demoAlreadySeeded, seedDemo } from '../server/db/seeders/demo';
 import { createLogger } from '../server/lib/logger';
 import { createWeatherService } from '../server/app';
+import { ProgressService } from '../server/modules/progress/progress.service';
+import { AlertService } from '../server/modules/alerts/alerts.service';
+import { enqueueAlertMail } from '../server/modules/notifications/alert-mail';
+import { enqueueDigests } from '../server/modules/notifications/digests';
 
 const config = loadConfig();
 const sequelize = createSequelize(config.db);
@@ -32,6 +36,12 @@ try {
     await weather.backfillPending();
     fake?.close();
     console.log(`[db] demo weather ready (${config.weather.mode})`);
+    // Alerts from that weather, and today's digest for each demo member: the server sends them on start.
+    const alerts = new AlertService(sequelize, weather, new ProgressService(sequelize, weather));
+    alerts.mail = { enqueue: enqueueAlertMail, afterCommit: () => undefined };
+    for (const garden of gardens) await alerts.evaluate(garden.id);
+    const digests = await enqueueDigests(sequelize, new Date(), { onlyGardens: gardens.map((g) => g.id), anyHour: true });
+    console.log(`[db] demo alerts evaluated; ${digests} digest${digests === 1 ? '' : 's'} queued for the local mailbox`);
   }
 } finally {
   await sequelize.close();

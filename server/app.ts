@@ -28,8 +28,18 @@ import { ProgressService } from './modules/progress/progress.service';
 import { progressRouter } from './modules/progress/progress.router';
 import { registerProgressInvalidation } from './modules/progress/progress-invalidation';
 import { plantingProgressProcessor } from './jobs/processors/planting-progress';
+import { AlertService } from './modules/alerts/alerts.service';
+import { alertsRouter } from './modules/alerts/alerts.router';
+import { alertsProcessor } from './jobs/processors/alerts';
 import { createWorker } from './jobs/worker';
 import type { Worker } from './jobs/worker';
+import { createMailTransport } from './integrations/mail/transport';
+import type { MailTransport } from './integrations/mail/transport';
+import { configureMail } from './modules/notifications/mail-settings';
+import { createMailSender, mailQueued } from './modules/notifications/mail-sender';
+import { enqueueAlertMail } from './modules/notifications/alert-mail';
+import { notificationsRouter } from './modules/notifications/notifications.router';
+import { unsubscribeRouter } from './modules/notifications/unsubscribe.router';
 
 export interface AppDeps {
   config: AppConfig;
@@ -41,6 +51,8 @@ export interface AppDeps {
   weather?: WeatherService;
   /** Runs the garden event processors; one is made (not started) when none is given. */
   worker?: Worker;
+  /** Where the mail outbox sends; built from config (the local fake or SMTP_URL) otherwise. */
+  mailTransport?: MailTransport;
 }
 
 export function createWeatherService(config: AppConfig, sequelize: Sequelize, logger: Logger, now?: () => Date) {
@@ -59,7 +71,7 @@ export function createWeatherService(config: AppConfig, sequelize: Sequelize, lo
   });
 }
 
-export function createApp({ config, sequelize, logger = createLogger(config.logLevel), clientDir, weather, worker }: AppDeps) {
+export function createApp({ config, sequelize, logger = createLogger(config.logLevel), clientDir, weather, worker, mailTransport }: AppDeps) {
   const app = express();
   const weatherService = weather ?? createWeatherService(config, sequelize, logger);
   const eventWorker = worker ?? createWorker({ sequelize, logger });
@@ -68,8 +80,16 @@ export function createApp({ config, sequelize, logger = createLogger(config.logL
   const progress = new ProgressService(sequelize, weatherService);
   app.locals.progress = progress;
   registerProgressInvalidation(progress.repo);
-  eventWorker.register(plantingProgressProcessor(progress));
+  const alerts = new AlertService(sequelize, weatherService, progress);
+  app.locals.alerts = alerts;
+  eventWorker.register(plantingProgressProcessor(progress, alerts));
+  eventWorker.register(alertsProcessor(alerts));
   app.locals.worker = eventWorker;
+  configureMail(config);
+  // Not started here: server/index.ts starts it on every instance, tests call drain().
+  app.locals.mailSender = createMailSender({ sequelize, transport: mailTransport ?? createMailTransport(config.mail), logger });
+  // New and worsened alerts are written to the mail outbox in the evaluation's own transaction.
+  alerts.mail = { enqueue: enqueueAlertMail, afterCommit: mailQueued };
   const routes: RouteTableEntry[] = [];
   app.locals.routes = routes;
   app.disable('x-powered-by');
@@ -106,6 +126,7 @@ export function createApp({ config, sequelize, logger = createLogger(config.logL
   // Health and readiness must answer even when sessions (in MariaDB) cannot load.
   api.use(healthRouter(sequelize, routes));
   api.use(express.json({ limit: '100kb', strict: true, type: 'application/json' }));
+  api.use(unsubscribeRouter({ sequelize, table: routes }));
   api.use(csrfGuard);
   api.use(sessionMiddleware(sequelize, config));
   api.use(absoluteTimeout(config));
@@ -114,14 +135,16 @@ export function createApp({ config, sequelize, logger = createLogger(config.logL
   api.use(passport.session());
   api.use(authRouter({ sequelize, config, passport, table: routes }));
   api.use(gardensRouter({ table: routes, weather: weatherService }));
-  api.use(weatherRouter({ sequelize, weather: weatherService, table: routes }));
+  api.use(weatherRouter({ sequelize, weather: weatherService, table: routes, evaluate: (gardenId) => alerts.evaluate(gardenId) }));
   api.use(bedsRouter(routes));
   api.use(cropsRouter(routes));
   api.use(varietiesRouter(routes, weatherService));
   api.use(seedLotsRouter(routes));
-  api.use(progressRouter(progress, routes));
+  api.use(progressRouter(progress, alerts, routes));
+  api.use(alertsRouter(alerts, routes));
   api.use(plantingsRouter(config, routes, progress));
   api.use(photosRouter(config, routes));
+  api.use(notificationsRouter({ sequelize, table: routes, mailIsLocalFake: config.mail.mode === 'fake' }));
   api.use('/api', () => {
     throw new AppError(404, 'not_found', 'No such API route.');
   });

@@ -36,6 +36,15 @@ const envSchema = z.object({
   WEATHER_HISTORY_YEARS: z.coerce.number().int().min(1).max(40).default(11),
   WEATHER_CONCURRENCY: z.coerce.number().int().min(1).max(64).default(8),
   SCHEDULER: z.enum(['on', 'off']).default('on'),
+  MAIL_MODE: z.enum(['fake', 'smtp']).optional(),
+  SMTP_URL: z
+    .string()
+    .url()
+    .refine((u) => /^smtps?:\/\//.test(u), 'must start with smtp:// or smtps://')
+    .optional(),
+  MAIL_FROM: z.string().min(3).default('Heatclock <alerts@heatclock.localhost>'),
+  MAIL_FAKE_PORT: z.coerce.number().int().min(0).max(65535).default(0),
+  APP_URL: z.string().url().optional(),
 });
 
 export interface DbConfig {
@@ -75,6 +84,18 @@ export interface AppConfig {
     concurrency: number;
   };
   scheduler: boolean;
+  mail: MailConfig;
+}
+
+export interface MailConfig {
+  /** 'fake' sends to the in-process capture server (fixtures/mail), 'smtp' to SMTP_URL. */
+  mode: 'fake' | 'smtp';
+  smtpUrl: string | null;
+  /** Port of the local fake; 0 lets the system pick (server/index.ts fills in the real one). */
+  fakePort: number;
+  from: string;
+  /** Links in messages (unsubscribe, open the garden) start here. */
+  appUrl: string;
 }
 
 /** Values written by scripts/db.sh for the project's own MariaDB; real environment variables win. */
@@ -112,6 +133,21 @@ function dbFromUrl(url: string, poolMax: number): DbConfig {
     password: decodeURIComponent(u.password),
     database: u.pathname.replace(/^\//, ''),
     poolMax,
+  };
+}
+
+function mailConfig(e: z.infer<typeof envSchema>): MailConfig {
+  const mode = e.MAIL_MODE ?? (e.SMTP_URL ? 'smtp' : 'fake');
+  // Either setting alone is clear; together they must agree, or messages would go somewhere unexpected.
+  if (mode === 'smtp' && !e.SMTP_URL) throw new Error('Invalid configuration: MAIL_MODE=smtp needs SMTP_URL');
+  if (mode === 'fake' && e.SMTP_URL) throw new Error('Invalid configuration: MAIL_MODE=fake cannot be used with SMTP_URL');
+  const host = e.HOST.includes(':') ? `[${e.HOST}]` : e.HOST;
+  return {
+    mode,
+    smtpUrl: mode === 'smtp' ? e.SMTP_URL! : null,
+    fakePort: e.MAIL_FAKE_PORT,
+    from: e.MAIL_FROM,
+    appUrl: (e.APP_URL ?? `http://${host}:${e.PORT}`).replace(/\/+$/, ''),
   };
 }
 
@@ -164,5 +200,6 @@ export function loadConfig(source: NodeJS.ProcessEnv = process.env): AppConfig {
       concurrency: e.WEATHER_CONCURRENCY,
     },
     scheduler: e.SCHEDULER === 'on' && e.NODE_ENV !== 'test',
+    mail: mailConfig(e),
   };
 }

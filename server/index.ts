@@ -6,6 +6,8 @@ import { createLogger } from './lib/logger';
 import { scheduleWeatherJob } from './jobs/weather-job';
 import type { WeatherService } from './modules/weather/weather.service';
 import type { Worker } from './jobs/worker';
+import type { MailSender } from './modules/notifications/mail-sender';
+import { scheduleDigests } from './modules/notifications/digest-job';
 
 const config = loadConfig();
 const logger = createLogger(config.logLevel);
@@ -18,11 +20,24 @@ if (config.weather.mode === 'fake') {
   logger.info('weather service: local fake (fixtures); set WEATHER_MODE=live for Open-Meteo');
 }
 
-const app = createApp({ config, sequelize, logger });
+let mailConfig = config.mail;
+// Like the fake weather: messages go to a local capture server, shown on the Mailbox page.
+const fakeSmtp =
+  config.mail.mode === 'fake' ? await (await import('../fixtures/mail/smtp-fake')).startFakeSmtp({ sequelize, port: config.mail.fakePort }) : null;
+if (fakeSmtp) {
+  mailConfig = { ...config.mail, fakePort: fakeSmtp.port };
+  logger.info('mail: local fake SMTP (captured in the mailbox page)', { port: fakeSmtp.port });
+}
+
+const app = createApp({ config: { ...config, mail: mailConfig }, sequelize, logger });
 const weather = app.locals.weather as WeatherService;
 // Every instance runs the event worker: claims are per row, so instances share the work.
 const worker = app.locals.worker as Worker;
 worker.start();
+// Every instance sends: each outbox row is claimed by one sender through its lease.
+const mailSender = app.locals.mailSender as MailSender;
+mailSender.start();
+const digestTask = config.scheduler ? scheduleDigests(sequelize, logger) : null;
 const task = config.scheduler
   ? scheduleWeatherJob(weather, { cron: config.weather.cron, timeZone: config.weather.cronTimeZone, logger })
   : null;
@@ -43,12 +58,15 @@ async function shutdown(signal: string) {
   stopping = true;
   logger.info('shutting down', { signal });
   await task?.stop();
+  await digestTask?.stop();
   // Requests in flight finish before the database closes under them (at most 10 s).
   const drained = new Promise((resolve) => server.close(resolve));
   server.closeIdleConnections();
   await Promise.race([drained, new Promise((resolve) => setTimeout(resolve, 10_000).unref())]);
   await weather.idle();
   await worker.stop();
+  await mailSender.stop();
+  await fakeSmtp?.close();
   await sequelize.close().catch(() => undefined);
   process.exit(0);
 }

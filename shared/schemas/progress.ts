@@ -54,6 +54,8 @@ export interface BoltReasonDto {
 
 export interface BoltRiskDto {
   level: BoltLevelOrNone;
+  /** Why there is no level ('none'), or what is left out of it; null when nothing needs saying. */
+  note: string | null;
   reasons: BoltReasonDto[];
   /** The first day (today or later, forecast included) whose level is high; null if none. */
   highFrom: string | null;
@@ -141,18 +143,26 @@ export interface ProgressSummaryDto {
   boltHighFrom: string | null;
   /** The first reason's words, for a one-line row. */
   boltReason: string | null;
-  stress: { kind: StressDto['kind']; severity: StressDto['severity']; start: string; message: string }[];
+  /** First day of the current (or next) spell of elevated-or-high risk; its reasons, worst day first. */
+  boltRiskFrom: string | null;
+  boltReasons: string[];
+  stress: { kind: StressDto['kind']; severity: StressDto['severity']; start: string; end: string; message: string }[];
   summary: string;
 }
 
-export type TodayActionKind = 'bolt-high' | 'stress' | 'window-open';
+export type TodayActionKind = 'bolt-high' | 'bolt-elevated' | 'stress' | 'window-open' | 'data-gap';
 
+/** An open alert as Today lists it (alerts are the one source of "needs attention"). */
 export interface TodayActionDto {
   kind: TodayActionKind;
+  alertId: number;
+  /** Plain words for a careful worker where the job can hurt (heat, frost heaters); null otherwise. */
+  caution: string | null;
   /** Which stress, for 'stress' actions. */
-  stressKind?: StressDto['kind'];
-  plantingId: number;
-  /** Every planting the action concerns (a forecast frost touches several); plantingId is the first. */
+  stressKind?: 'frost' | 'heat' | 'chilling';
+  /** null for a garden-wide action. */
+  plantingId: number | null;
+  /** Every planting the action concerns; empty for a garden-wide one (a weather data gap). */
   plantingIds: number[];
   title: string;
   /** What the grower could do, in plain words (with the usual caution where it applies). */

@@ -165,7 +165,7 @@ export function scoreBoltDay(
     if (s.heatRun >= streakDays) {
       add('heat', scoring.heatStreak, fc, () => `${s.heatRun} days in a row with highs above ${formatTemp(triggers.heatThresholdC!, unit)}${note}`);
     } else {
-      add('heat', scoring.heatDay, fc, () => `${s.heatRun} of ${streakDays} days in a row with highs above ${formatTemp(triggers.heatThresholdC!, unit)} so far${note} (today ${formatTemp(s.tmax, unit)})`);
+      add('heat', scoring.heatDay, fc, () => `${s.heatRun} of ${streakDays} days in a row with highs above ${formatTemp(triggers.heatThresholdC!, unit)} so far${note} (a high of ${formatTemp(s.tmax, unit)} that day)`);
     }
   }
   if (triggers.criticalPhotoperiodH !== undefined) {

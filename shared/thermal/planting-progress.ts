@@ -70,6 +70,11 @@ export interface PlantingProgress {
     highFrom: string | null;
     /** The reasons on the first high day, when it lies ahead. */
     highReasons: BoltReason[];
+    /**
+     * The first day of the spell of elevated-or-high risk that today is in, or else the next such
+     * day in the forecast; null when none. A worsening spell keeps this date, so it names one alert.
+     */
+    riskFrom: string | null;
     days: { date: string; level: BoltRiskLevel; forecast: boolean }[];
   };
   stress: StressEvent[];
@@ -86,11 +91,33 @@ function countEnd(input: PlantingProgressInput): string | null {
   return null;
 }
 
+/**
+ * The day the count starts from: the start event; for a plan whose date has passed unsown, today
+ * (it is projected as if sown now, never credited with heat it was not in the ground for).
+ */
+function countStart(input: PlantingProgressInput): string {
+  return input.status === 'planned' && input.event.on < input.today ? input.today : input.event.on;
+}
+
+/**
+ * The days that count: recorded days before today and forecast days from today on. A forecast
+ * left behind for a past day (its observation never came) is a gap, not recorded heat.
+ */
+function countedDays(input: PlantingProgressInput, first: string, end: string | null): DailyTemp[] {
+  const planned = input.status === 'planned';
+  return input.weather.filter((d) => {
+    if (d.date < first || (end !== null && d.date > end)) return false;
+    if (d.source === 'forecast') return d.date >= input.today;
+    return !planned && d.date < input.today;
+  });
+}
+
 export function plantingProgress(input: PlantingProgressInput): PlantingProgress {
-  const { event, today, target, method, unit } = input;
+  const { today, target, method, unit } = input;
+  const event = { ...input.event, on: countStart(input) };
   const first = firstCountedDay(event.on);
   const end = countEnd(input);
-  const days = input.weather.filter((d) => d.date >= first && (end === null || d.date <= end));
+  const days = countedDays(input, first, end);
   const lastDay = end ?? days.at(-1)?.date ?? addDays(today, -1);
   const acc = daysBetween(first, lastDay) >= 0 ? accumulateDegreeDays(days, method, { start: first, end: lastDay }) : null;
   const series = acc?.days ?? [];
@@ -133,6 +160,7 @@ export function plantingProgress(input: PlantingProgressInput): PlantingProgress
       note: `${knownRecorded} recorded days and ${forecast.length} forecast days, then continued through ${p.scenarios.length} past seasons of this garden’s weather${skipped}.${never}`,
     };
   })();
+  if (event.on !== input.event.on) maturity.note = `The planned date has passed without a sowing; projected as if started today. ${maturity.note}`;
   return { ...base, band: p.band, maturity, bolt: assessBolt(input, days), stress: stressAhead(input, days) };
 }
 
@@ -146,13 +174,13 @@ function recordedMaturity(input: PlantingProgressInput, accumulated: number): Pl
 }
 
 function noBolt(): PlantingProgress['bolt'] {
-  return { level: 'none', reasons: [], highFrom: null, highReasons: [], days: [] };
+  return { level: 'none', reasons: [], highFrom: null, highReasons: [], riskFrom: null, days: [] };
 }
 
 function assessBolt(input: PlantingProgressInput, days: readonly DailyTemp[]): PlantingProgress['bolt'] {
   if (!input.boltTriggers || input.status !== 'growing' || !days.length) return noBolt();
   const a = assessBoltRisk({
-    start: days[0].date,
+    start: firstCountedDay(input.event.on),
     days,
     latitude: input.latitude,
     triggers: input.boltTriggers,
@@ -164,7 +192,12 @@ function assessBolt(input: PlantingProgressInput, days: readonly DailyTemp[]): P
   const upToToday = a.days.filter((d) => d.date <= input.today);
   const now = upToToday.at(-1) ?? a.days[0];
   const high = a.days.find((d) => d.date >= input.today && d.level === 'high');
+  const risky = (d: { level: BoltRiskLevel }) => d.level !== 'low';
+  let k = now && risky(now) ? a.days.indexOf(now) : -1;
+  while (k > 0 && risky(a.days[k - 1])) k--;
+  const riskFrom = k >= 0 ? a.days[k].date : (a.days.find((d) => d.date > input.today && risky(d))?.date ?? null);
   return {
+    riskFrom,
     level: now?.level ?? 'low',
     reasons: now?.reasons ?? [],
     highFrom: high?.date ?? null,

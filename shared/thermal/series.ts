@@ -25,8 +25,22 @@ function checkDay(d: DailyTemp): number {
   return n;
 }
 
+/**
+ * One garden's history feeds every planting's projection and target in a batch: the same array is
+ * laid out once. Callers never mutate a series they have handed over.
+ */
+const laidOut = new WeakMap<readonly DailyTemp[], DenseSeries>();
+
 /** Throws a RangeError on an invalid day or a date given twice. */
 export function toDenseSeries(days: readonly DailyTemp[]): DenseSeries {
+  const cached = laidOut.get(days);
+  if (cached) return cached;
+  const s = layOut(days);
+  laidOut.set(days, s);
+  return s;
+}
+
+function layOut(days: readonly DailyTemp[]): DenseSeries {
   if (days.length === 0) {
     return { first: 0, length: 0, tmax: new Float64Array(0), tmin: new Float64Array(0), present: new Uint8Array(0), source: [] };
   }

@@ -118,9 +118,10 @@ export function startEvent(p: StartEventPlanting, v: StartEventVariety): StartEv
 /**
  * The growing season a planting belongs to: the season of its start event, so an indoor start
  * sown in June south of the equator and set out in September belongs to the season it grows in.
- * Without a start event yet, its earliest date stands in.
+ * Without a start event yet (an indoor start still under lights) it has no season: its sowing
+ * date could fall in the season that is ending.
  */
 export function plantingSeason(p: StartEventPlanting, v: StartEventVariety, latitude: number): Season | null {
-  const on = startEvent(p, v).event?.on ?? p.transplantedOn ?? p.sownOn;
+  const on = startEvent(p, v).event?.on;
   return on ? seasonOf(on, latitude) : null;
 }

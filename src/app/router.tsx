@@ -16,14 +16,20 @@ import { VarietiesPage } from '@/app/routes/varieties/varieties';
 import { SeedLotsPage } from '@/app/routes/seed-lots/seed-lots';
 import { BedsPage } from '@/app/routes/beds/beds';
 import { CropsPage } from '@/app/routes/crops/crops';
+import { MailboxPage } from '@/app/routes/mailbox/mailbox';
+import { UnsubscribePage } from '@/app/routes/unsubscribe/unsubscribe';
+import { AlertsPage } from '@/app/routes/alerts/alerts';
 
 export const routes: RouteObject[] = [
   { path: '/sign-in', element: <SignInPage /> },
   { path: '/register', element: <RegisterPage /> },
+  // Opened from an e-mail, often on a device that is not signed in.
+  { path: '/unsubscribe/:token', element: <UnsubscribePage /> },
   {
     element: <RequireAuth />,
     children: [
       { path: '/', element: <FirstGardenPage /> },
+      { path: '/mailbox', element: <MailboxPage /> },
       {
         path: '/g/:gardenId',
         element: <GardenLayout />,
@@ -36,6 +42,7 @@ export const routes: RouteObject[] = [
           { path: 'beds', element: <BedsPage /> },
           { path: 'crops', element: <CropsPage /> },
           { path: 'weather', element: <WeatherPage /> },
+          { path: 'alerts', element: <AlertsPage /> },
           { path: 'settings', element: <GardenSettingsPage /> },
           // Inside a garden, an unknown page keeps the header so the grower can find their way.
           { path: '*', element: <NotFoundMessage /> },

@@ -55,10 +55,19 @@ const EXPECTED: Record<string, RouteTableEntry['access']> = {
   'delete /api/gardens/:gardenId/plantings/:plantingId/log/:entryId': 'grower',
   'get /api/gardens/:gardenId/plantings/:plantingId/progress': 'viewer',
   'get /api/gardens/:gardenId/today': 'viewer',
+  'get /api/gardens/:gardenId/alerts': 'viewer',
+  'get /api/gardens/:gardenId/alerts/counts': 'viewer',
+  'post /api/gardens/:gardenId/alerts/:alertId/acknowledge': 'grower',
   'get /api/gardens/:gardenId/plantings/:plantingId/photos': 'viewer',
   'post /api/gardens/:gardenId/plantings/:plantingId/photos': 'grower',
   'get /api/gardens/:gardenId/plantings/:plantingId/photos/:photoId': 'viewer',
   'delete /api/gardens/:gardenId/plantings/:plantingId/photos/:photoId': 'grower',
+  'get /api/unsubscribe/:token': 'public',
+  'post /api/unsubscribe/:token': 'public',
+  'get /api/me/notification-preferences': 'signed-in',
+  'put /api/me/notification-preferences': 'signed-in',
+  'get /api/gardens/:gardenId/mail/failed': 'owner',
+  'get /api/dev/mail': 'signed-in',
 };
 
 const app = testApp();

@@ -44,7 +44,7 @@ describe('planting progress', () => {
     expect(fact('Packet date').textContent).toBe('12 Jun');
     expect(within(fact('Bolt risk')).getByText(/Elevated, high from 9 Jun/)).toBeTruthy();
     expect(within(fact('Bolt risk')).getAllByRole('listitem').map((li) => li.textContent)).toEqual([
-      '4 days above 80.0 °F in a row are forecast. (forecast)',
+      '4 days above 80.0 °F in a row are forecast.',
       'Days are longer than 14 h 30 min.',
     ]);
     expect(fact('Stress in the forecast').textContent).toBe('Blossom drop, watch 10–11 Jun (forecast): Heat above 90.0 °F is forecast. (high 91.4 °F; threshold 90.0 °F)');

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { projectMaturity } from '#shared/thermal/index';
+import { plantingProgress } from '#shared/thermal/planting-progress';
 import { addDays } from '#shared/thermal/dates';
 import type { DailyTemp } from '#shared/thermal/types';
 
@@ -36,5 +37,36 @@ describe('maturity projection at its edges', () => {
     expect(p.band.map((b) => b.date)).toEqual(['2026-05-02', '2026-05-03', '2026-05-04', '2026-05-05']);
     expect(p.band[0]).toEqual({ date: '2026-05-02', p10: 5, p50: 5, p90: 15 });
     expect(p.band[3]).toMatchObject({ p10: 20, p90: 60 });
+  });
+});
+
+describe('planting progress at its edges', () => {
+  const base = {
+    today: '2026-06-10',
+    latitude: 45,
+    recorded: { firstHarvestOn: null, boltedOn: null },
+    target: 500,
+    method,
+    history: steady('2024-01-01', 800, 15),
+    boltTriggers: null,
+    stressProfile: null,
+    unit: 'C' as const,
+  };
+  const event = (on: string) => ({ kind: 'sowing' as const, on, planned: false, packetDays: 50, packetDate: null, explanation: '' });
+
+  it('when a planned date has passed unsown, then no heat is credited and the window is projected from today', () => {
+    const weather = steady('2026-05-02', 39, 20);
+    const p = plantingProgress({ ...base, status: 'planned', event: { ...event('2026-05-01'), planned: true }, weather });
+    expect(p.accumulated).toBe(0);
+    expect(p.maturity.kind).toBe('analog');
+    expect(p.maturity.p50! > '2026-06-10').toBe(true);
+    expect(p.maturity.note).toMatch(/planned date has passed/);
+  });
+
+  it('when a past day kept only its forecast, then it is a gap, not recorded heat', () => {
+    const weather = [...steady('2026-05-02', 30, 20), ...steady('2026-06-01', 2, 25, 'forecast'), ...steady('2026-06-03', 7, 20)];
+    const p = plantingProgress({ ...base, status: 'growing', event: event('2026-05-01'), weather });
+    expect(p.accumulated).toBeCloseTo(37 * 10, 6);
+    expect(p.missingDates).toEqual(['2026-06-01', '2026-06-02']);
   });
 });

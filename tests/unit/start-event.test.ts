@@ -43,8 +43,8 @@ describe('the start event: one rule for where a planting’s degree days start',
     expect(plantingSeason(p, variety({ dtmFrom: 'transplant' }), -35)?.label).toBe('2026–27');
     // North of the equator the calendar year is the season either way.
     expect(plantingSeason(p, variety({ dtmFrom: 'transplant' }), 45)?.label).toBe('2026');
-    // Not yet set out: the sowing date stands in.
-    expect(plantingSeason(planting({ method: 'indoor-start', sownOn: '2026-06-20' }), variety({}), -35)?.label).toBe('2025–26');
+    // Not yet set out: no season until it goes into the garden.
+    expect(plantingSeason(planting({ method: 'indoor-start', sownOn: '2026-06-20' }), variety({}), -35)).toBeNull();
   });
 
   it('when a southern direct sowing falls in late June, then it belongs to the season that is ending', () => {

@@ -111,5 +111,6 @@ function computeOne(garden: Garden, p: Planting, crop: CropWithOverrides, target
     stressProfile: cropStressProfile(variety.cropKey, effective),
     unit,
   });
-  return { ...base, event: start.event, progress, boltNotes: bolt?.notes ?? [] };
+  const boltNotes = !bolt ? [`${crop.crop.name} does not bolt within its garden season.`] : (bolt.notes.length ? bolt.notes : p.status === 'growing' ? [] : ['Bolt risk is judged while a planting is growing.']);
+  return { ...base, event: start.event, progress, boltNotes };
 }

@@ -111,6 +111,14 @@ function boltWords(c: Computed): string[] {
   return out;
 }
 
+/** The reasons behind the risk that matters: the coming high day's when it lies ahead, else today's; tolerance last. */
+function boltReasonWords(p: PlantingProgress | null): string[] {
+  if (!p || p.bolt.level === 'none') return [];
+  const reasons = p.bolt.highReasons.length ? p.bolt.highReasons : p.bolt.reasons;
+  // The engine's words already say which days are forecast.
+  return [...reasons.filter((r) => r.trigger !== 'tolerance'), ...reasons.filter((r) => r.trigger === 'tolerance')].map((r) => r.message);
+}
+
 export function summaryOf(c: Computed): ProgressSummaryDto {
   const p = c.progress;
   const m = p?.maturity;
@@ -124,7 +132,9 @@ export function summaryOf(c: Computed): ProgressSummaryDto {
     boltLevel: (p?.bolt.level ?? 'none') as BoltLevelOrNone,
     boltHighFrom: p?.bolt.highFrom ?? null,
     boltReason: p?.bolt.reasons.find((r) => r.trigger !== 'tolerance')?.message ?? null,
-    stress: (p?.stress ?? []).map((s) => ({ kind: s.kind, severity: s.severity, start: s.start, message: s.message })),
+    boltRiskFrom: p?.bolt.riskFrom ?? null,
+    boltReasons: boltReasonWords(p),
+    stress: (p?.stress ?? []).map((s) => ({ kind: s.kind, severity: s.severity, start: s.start, end: s.end, message: s.message })),
     summary: summarySentence(c),
   };
 }
@@ -157,7 +167,8 @@ export function presentProgress(c: Computed): ProgressDto {
     },
     boltRisk: {
       level: p?.bolt.level ?? 'none',
-      reasons: [...(p?.bolt.reasons ?? []).map((r) => ({ trigger: r.trigger, message: r.message, forecast: r.forecast })), ...c.boltNotes.map((message) => ({ trigger: 'tolerance' as const, message, forecast: false }))],
+      note: c.boltNotes.join(' ') || (p?.bolt.level === 'none' ? 'No weather since the start event yet to judge it by.' : null),
+      reasons: (p?.bolt.reasons ?? []).map((r) => ({ trigger: r.trigger, message: r.message, forecast: r.forecast })),
       highFrom: p?.bolt.highFrom ?? null,
       days: p?.bolt.days ?? [],
     },

@@ -9,6 +9,9 @@ import type { ProgressSummaryDto } from '#shared/schemas/progress';
 
 export const BOLT_RANK = { none: 0, low: 1, elevated: 2, high: 3 } as const;
 
+/** Bump when the stored ProgressDto or summary changes shape: older rows then count as missing. */
+export const PROGRESS_FORMAT = 3;
+
 export interface ProgressRow {
   plantingId: number;
   gardenId: number;
@@ -32,7 +35,7 @@ export interface GrowingRow {
   summary: ProgressSummaryDto | null;
 }
 
-type Scope = { plantingId: number } | { gardenId: number; cropKey?: string } | { varietyId: number };
+type Scope = { gardenId: number } & ({ plantingId: number } | { varietyId: number } | { cropKey?: string });
 
 export class ProgressRepository {
   constructor(private readonly db: Sequelize) {}
@@ -41,21 +44,26 @@ export class ProgressRepository {
     if (!plantingIds.length) return new Map();
     const rows = await this.db.query<{ plantingId: number; summary: string }>(
       `SELECT planting_id AS plantingId, summary_json AS summary FROM planting_progress
-        WHERE garden_id = ? AND computed_for = ? AND planting_id IN (?)`,
-      { replacements: [gardenId, day, plantingIds], type: QueryTypes.SELECT },
+        WHERE garden_id = ? AND computed_for = ? AND format = ? AND planting_id IN (?)`,
+      { replacements: [gardenId, day, PROGRESS_FORMAT, plantingIds], type: QueryTypes.SELECT },
     );
     return new Map(rows.map((r) => [r.plantingId, JSON.parse(r.summary) as ProgressSummaryDto]));
   }
 
-  /** The planting's stored answer for `day`: undefined when the garden has no such planting, null when not stored. */
-  async body(gardenId: number, plantingId: number, day: string): Promise<string | null | undefined> {
-    const [row] = await this.db.query<{ body: string | null }>(
-      `SELECT pp.body_json AS body FROM plantings p
-         LEFT JOIN planting_progress pp ON pp.planting_id = p.id AND pp.computed_for = ?
+  /**
+   * The planting's stored answer with the day it was made for and its garden's time zone, in one
+   * query (the hot read); undefined when the garden has no such planting.
+   */
+  async body(gardenId: number, plantingId: number): Promise<{ timeZone: string; computedFor: string | null; body: string | null } | undefined> {
+    const [row] = await this.db.query<{ timeZone: string; computedFor: string | null; body: string | null }>(
+      `SELECT g.time_zone AS timeZone, pp.computed_for AS computedFor, pp.body_json AS body
+         FROM plantings p
+         JOIN gardens g ON g.id = p.garden_id
+         LEFT JOIN planting_progress pp ON pp.planting_id = p.id AND pp.format = ?
         WHERE p.id = ? AND p.garden_id = ?`,
-      { replacements: [day, plantingId, gardenId], type: QueryTypes.SELECT },
+      { replacements: [PROGRESS_FORMAT, plantingId, gardenId], type: QueryTypes.SELECT },
     );
-    return row ? row.body : undefined;
+    return row;
   }
 
   /** The garden's growing plantings with what Today shows of them, and their stored summaries for `day` where present. */
@@ -66,10 +74,10 @@ export class ProgressRepository {
          FROM plantings p
          JOIN varieties v ON v.id = p.variety_id
          JOIN beds b ON b.id = p.bed_id
-         LEFT JOIN planting_progress pp ON pp.planting_id = p.id AND pp.computed_for = ?
+         LEFT JOIN planting_progress pp ON pp.planting_id = p.id AND pp.computed_for = ? AND pp.format = ?
         WHERE p.garden_id = ? AND p.status = 'growing'
         ORDER BY p.start_on, p.id`,
-      { replacements: [day, gardenId], type: QueryTypes.SELECT },
+      { replacements: [day, PROGRESS_FORMAT, gardenId], type: QueryTypes.SELECT },
     );
     return rows.map((r) => ({ ...r, summary: r.summary === null ? null : (JSON.parse(r.summary) as ProgressSummaryDto) }));
   }
@@ -78,29 +86,50 @@ export class ProgressRepository {
   async stale(gardenId: number, day: string, where: { status?: string } = {}): Promise<number[]> {
     const rows = await this.db.query<{ id: number }>(
       `SELECT p.id FROM plantings p
-         LEFT JOIN planting_progress pp ON pp.planting_id = p.id AND pp.computed_for = ?
+         LEFT JOIN planting_progress pp ON pp.planting_id = p.id AND pp.computed_for = ? AND pp.format = ?
         WHERE p.garden_id = ? AND pp.planting_id IS NULL ${where.status ? 'AND p.status = ?' : ''}`,
-      { replacements: where.status ? [day, gardenId, where.status] : [day, gardenId], type: QueryTypes.SELECT },
+      { replacements: where.status ? [day, PROGRESS_FORMAT, gardenId, where.status] : [day, PROGRESS_FORMAT, gardenId], type: QueryTypes.SELECT },
     );
     return rows.map((r) => r.id);
   }
 
-  async save(rows: ProgressRow[]) {
-    if (!rows.length) return;
-    const values = rows.map(() => '(?, ?, ?, ?, ?, ?, ?, ?, UTC_TIMESTAMP(3))').join(', ');
-    await this.db.query(
-      `INSERT INTO planting_progress (planting_id, garden_id, computed_for, percent, ready_on, bolt_rank, summary_json, body_json, computed_at)
-       VALUES ${values}
-       ON DUPLICATE KEY UPDATE computed_for = VALUES(computed_for), percent = VALUES(percent), ready_on = VALUES(ready_on),
-         bolt_rank = VALUES(bolt_rank), summary_json = VALUES(summary_json), body_json = VALUES(body_json), computed_at = VALUES(computed_at)`,
-      {
-        replacements: rows.flatMap((r) => [r.plantingId, r.gardenId, r.computedFor, r.percent, r.readyOn, r.boltRank, JSON.stringify(r.summary), r.body]),
-      },
-    );
+  /** The garden's invalidation counter, noted before a computation reads anything. */
+  async epoch(gardenId: number): Promise<number> {
+    const [row] = await this.db.query<{ epoch: number }>('SELECT epoch FROM progress_epochs WHERE garden_id = ?', { replacements: [gardenId], type: QueryTypes.SELECT });
+    return row?.epoch ?? 0;
   }
 
-  /** Drops the rows a change makes wrong, in the change's own transaction. */
+  /** Stores the answers unless the garden changed since `epoch` was noted; false when they were stale. */
+  async save(gardenId: number, epoch: number, rows: ProgressRow[]): Promise<boolean> {
+    if (!rows.length) return true;
+    return this.db.transaction(async (transaction) => {
+      const [row] = await this.db.query<{ epoch: number }>('SELECT epoch FROM progress_epochs WHERE garden_id = ? FOR UPDATE', {
+        replacements: [gardenId],
+        type: QueryTypes.SELECT,
+        transaction,
+      });
+      if ((row?.epoch ?? 0) !== epoch) return false;
+      const values = rows.map(() => `(?, ?, ?, ?, ?, ?, ?, ?, UTC_TIMESTAMP(3), ${PROGRESS_FORMAT})`).join(', ');
+      await this.db.query(
+        `INSERT INTO planting_progress (planting_id, garden_id, computed_for, percent, ready_on, bolt_rank, summary_json, body_json, computed_at, format)
+         VALUES ${values}
+         ON DUPLICATE KEY UPDATE format = VALUES(format), computed_for = VALUES(computed_for), percent = VALUES(percent), ready_on = VALUES(ready_on),
+           bolt_rank = VALUES(bolt_rank), summary_json = VALUES(summary_json), body_json = VALUES(body_json), computed_at = VALUES(computed_at)`,
+        {
+          replacements: rows.flatMap((r) => [r.plantingId, r.gardenId, r.computedFor, r.percent, r.readyOn, r.boltRank, JSON.stringify(r.summary), r.body]),
+          transaction,
+        },
+      );
+      return true;
+    });
+  }
+
+  /** Drops the rows a change makes wrong and moves the garden's counter, in the change's own transaction. */
   async invalidate(scope: Scope, transaction?: Transaction) {
+    await this.db.query('INSERT INTO progress_epochs (garden_id, epoch) VALUES (?, 1) ON DUPLICATE KEY UPDATE epoch = epoch + 1', {
+      replacements: [scope.gardenId],
+      transaction,
+    });
     if ('plantingId' in scope) {
       await this.db.query('DELETE FROM planting_progress WHERE planting_id = ?', { replacements: [scope.plantingId], transaction });
     } else if ('varietyId' in scope) {

@@ -3,8 +3,10 @@ import { mountRoutes } from '../../lib/routes';
 import type { RouteTableEntry } from '../../lib/routes';
 import { recordId } from '../records/params';
 import type { ProgressService } from './progress.service';
+import { asTodayAction } from '../alerts/alerts.service';
+import type { AlertService } from '../alerts/alerts.service';
 
-export function progressRouter(progress: ProgressService, table: RouteTableEntry[]) {
+export function progressRouter(progress: ProgressService, alerts: AlertService, table: RouteTableEntry[]) {
   const router = Router();
   mountRoutes(
     router,
@@ -24,7 +26,10 @@ export function progressRouter(progress: ProgressService, table: RouteTableEntry
         path: '/today',
         access: 'viewer',
         handler: async (req, res) => {
-          res.json(await progress.today(req.membership!.gardenId));
+          const gardenId = req.membership!.gardenId;
+          await alerts.ensureEvaluated(gardenId);
+          const [today, open] = await Promise.all([progress.today(gardenId), alerts.list(gardenId, { status: 'open' })]);
+          res.json({ ...today, actions: open.map(asTodayAction) });
         },
       },
     ],

@@ -12,9 +12,8 @@ import { AppError } from '../../errors';
 import { localDate } from '../../lib/local-date';
 import type { WeatherService } from '../weather/weather.service';
 import { computeGardenProgress } from './progress-loader';
-import { presentProgress, progressRow } from './progress.presenter';
+import { progressRow } from './progress.presenter';
 import { ProgressRepository } from './progress.repository';
-import { todayActions } from './today-actions';
 
 function cropOf(key: string) {
   const crop = findCrop(key);
@@ -37,16 +36,25 @@ export class ProgressService {
     return { garden, today: localDate(garden.timeZone, this.weather.now()) };
   }
 
+  /**
+   * Computes and stores; the garden's counter is noted first, so an answer computed while a change
+   * landed is returned to this caller but not stored over the change.
+   */
+  private async computeAndStore(gardenId: number, plantingIds?: number[]) {
+    const epoch = await this.repo.epoch(gardenId);
+    const rows = (await computeGardenProgress(this.weather, gardenId, plantingIds)).results.map(progressRow);
+    await this.repo.save(gardenId, epoch, rows);
+    return rows;
+  }
+
   /** The planting's ProgressDto as JSON text, ready to send. */
   async plantingProgress(gardenId: number, plantingId: number): Promise<string> {
-    const { today } = await this.gardenToday(gardenId);
-    const cached = await this.repo.body(gardenId, plantingId, today);
-    if (cached === undefined) throw AppError.notFound('That planting');
-    if (cached) return cached;
-    const { results } = await computeGardenProgress(this.weather, gardenId, [plantingId]);
-    const rows = results.map(progressRow);
-    await this.repo.save(rows);
-    return rows[0]?.body ?? JSON.stringify(results.map(presentProgress)[0]);
+    const stored = await this.repo.body(gardenId, plantingId);
+    if (!stored) throw AppError.notFound('That planting');
+    if (stored.body && stored.computedFor === localDate(stored.timeZone, this.weather.now())) return stored.body;
+    const [row] = await this.computeAndStore(gardenId, [plantingId]);
+    if (!row) throw AppError.notFound('That planting’s crop');
+    return row.body;
   }
 
   /** Computes and stores every planting of the garden without a row for its today (all, when `all`). */
@@ -54,9 +62,7 @@ export class ProgressService {
     const { today } = await this.gardenToday(gardenId);
     const ids = opts.all ? undefined : await this.repo.stale(gardenId, today, { status: opts.status });
     if (ids && !ids.length) return 0;
-    const { results } = await computeGardenProgress(this.weather, gardenId, ids);
-    await this.repo.save(results.map(progressRow));
-    return results.length;
+    return (await this.computeAndStore(gardenId, ids)).length;
   }
 
   /** Summaries for these plantings of the garden, computing the missing ones first. */
@@ -64,15 +70,11 @@ export class ProgressService {
     const { today } = await this.gardenToday(gardenId);
     const have = await this.repo.summaries(gardenId, plantingIds, today);
     const missing = plantingIds.filter((id) => !have.has(id));
-    if (missing.length) {
-      const { results } = await computeGardenProgress(this.weather, gardenId, missing);
-      const rows = results.map(progressRow);
-      await this.repo.save(rows);
-      for (const r of rows) have.set(r.plantingId, r.summary);
-    }
+    if (missing.length) for (const r of await this.computeAndStore(gardenId, missing)) have.set(r.plantingId, r.summary);
     return have;
   }
 
+  /** Today's plantings and weather; `actions` are the garden's open alerts, filled in by the alerts module. */
   async today(gardenId: number): Promise<TodayDto> {
     const { garden, today } = await this.gardenToday(gardenId);
     const [rows, weather] = await Promise.all([this.repo.growing(gardenId, today), this.weather.gardenSeries(garden, addDays(today, -7), addDays(today, 7))]);
@@ -88,7 +90,7 @@ export class ProgressService {
     return {
       today,
       unit,
-      actions: todayActions(plantings, today, unit),
+      actions: [],
       plantings,
       weather: weather.map((d) => ({ date: d.date, tmax: toUnit(d.tmax), tmin: toUnit(d.tmin), source: d.source })),
     };

@@ -7,7 +7,8 @@ import { basisOfValues, basisWords, sameBasis } from '#shared/crops/basis';
 import { formatDegreeDays } from '#shared/thermal/units';
 import type { CropParamValues } from '#shared/crops/params';
 import { dayOfYear, degreeDayTargetFromDtm, isSouthern } from '#shared/thermal/index';
-import { startEvent } from '#shared/thermal/start-event';
+import { packetEmergenceDays, startEvent } from '#shared/thermal/start-event';
+import { dayMonth } from '#shared/format/day-words';
 import type { DailyTemp } from '#shared/thermal/index';
 import type { GddTargetDto } from '#shared/schemas/varieties';
 import { Planting } from '../../db/models';
@@ -107,7 +108,7 @@ async function packetTarget(garden: Garden, variety: Variety, crop: CropParamVal
   const hemisphere = isSouthern(garden.latitude ?? 0) ? 'S' : 'N';
   const own = await ownWindow(variety);
   const window = own ?? DEFAULT_WINDOWS[crop.season][hemisphere];
-  const emergence = variety.emergenceDaysMax ?? variety.emergenceDaysMin ?? undefined;
+  const emergence = packetEmergenceDays(variety) ?? undefined;
   try {
     const t = degreeDayTargetFromDtm({
       ...(forPlanting
@@ -122,7 +123,7 @@ async function packetTarget(garden: Garden, variety: Variety, crop: CropParamVal
       valueC: t.target,
       basis: 'derived',
       countsFrom: t.countsFrom,
-      explanation: `${t.days} days from ${t.countsFrom === 'transplant' ? 'transplanting' : 'sowing'}, measured in this garden’s past weather over ${from} (${window.from} to ${window.to}, ${t.samples} samples).`,
+      explanation: `${t.days} days from ${t.countsFrom === 'transplant' ? 'transplanting' : 'sowing'}, measured in this garden’s past weather over ${from} (${dayMonth(`2001-${window.from}`)} to ${dayMonth(`2001-${window.to}`)}, ${t.samples} samples).`,
       p10C: t.p10,
       p90C: t.p90,
       stale: false,

@@ -7,7 +7,7 @@
 import { QueryTypes } from 'sequelize';
 import type { Sequelize, Transaction } from 'sequelize';
 
-/** Every step that re-evaluates a garden when its weather changes. */
+/** Every step that re-evaluates a garden when its weather changes; the progress step evaluates alerts after it. */
 export const GARDEN_EVENT_CONSUMERS = ['planting-progress'] as const;
 
 export type WeatherChangeTarget = { cellId: number } | { gardenId: number };

@@ -31,8 +31,9 @@ const receiveCsv: RequestHandler = async (req, res, next) => {
   next();
 };
 
-export function weatherRouter(deps: { sequelize: Sequelize; weather: WeatherService; table: RouteTableEntry[] }) {
-  const { sequelize, weather, table } = deps;
+/** `evaluate`: the garden's alerts, run at once after a "refresh now" so the grower sees them on return. */
+export function weatherRouter(deps: { sequelize: Sequelize; weather: WeatherService; table: RouteTableEntry[]; evaluate?: (gardenId: number) => Promise<unknown> }) {
+  const { sequelize, weather, table, evaluate } = deps;
   const router = Router();
   mountRoutes(
     router,
@@ -79,6 +80,7 @@ export function weatherRouter(deps: { sequelize: Sequelize; weather: WeatherServ
             throw new AppError(409, 'no_location', 'Set the garden location in Garden settings before fetching weather.');
           }
           const run = await weather.runRefresh({ kind: 'manual', gardenId: garden.id, cellId: garden.weatherCellId });
+          await evaluate?.(garden.id);
           void weather.backfill(garden.weatherCellId);
           res.json({ run });
         },

@@ -1,3 +1,4 @@
+import type { AlertDto } from '#shared/schemas/alerts';
 import type { UserDto } from '#shared/schemas/auth';
 import type { GardenDto } from '#shared/schemas/gardens';
 import type { BedDto } from '#shared/schemas/beds';
@@ -141,6 +142,7 @@ export function aProgress(overrides: Partial<ProgressDto> = {}): ProgressDto {
       },
     },
     boltRisk: {
+      note: null,
       level: 'elevated',
       reasons: [
         { trigger: 'heat', message: '4 days above 80.0 °F in a row are forecast.', forecast: true },
@@ -202,6 +204,7 @@ export function aCelsiusProgress(overrides: Partial<ProgressDto> = {}): Progress
       basis: { kind: 'analog', observedDays: 42, forecastDays: 1, analogYears: 9, neverMatureShare: 0.1, note: '42 recorded days, 1 forecast day, then 9 past seasons.' },
     },
     boltRisk: {
+      note: null,
       level: 'low',
       reasons: [{ trigger: 'day-length', message: 'Days are still shorter than 14 h.', forecast: false }],
       highFrom: null,
@@ -241,6 +244,8 @@ export function aProgressSummary(overrides: Partial<ProgressSummaryDto> = {}): P
     boltLevel: 'elevated',
     boltHighFrom: '2025-06-09',
     boltReason: '4 days above 80.0 °F in a row are forecast.',
+    boltRiskFrom: '2025-06-07',
+    boltReasons: ['4 days above 80.0 °F in a row are forecast.'],
     stress: [],
     summary: '412 of 950 °F-days (43 %); likely ready 14–22 June.',
     ...overrides,
@@ -254,6 +259,8 @@ export function aToday(overrides: Partial<TodayDto> = {}): TodayDto {
     actions: [
       {
         kind: 'window-open',
+        alertId: 41,
+        caution: null,
         plantingId: 9,
         plantingIds: [9],
         title: 'Radish: Ember Globe is ready to pull',
@@ -263,6 +270,8 @@ export function aToday(overrides: Partial<TodayDto> = {}): TodayDto {
       },
       {
         kind: 'bolt-high',
+        alertId: 42,
+        caution: 'When you work outdoors in the heat, drink water often, rest in the shade and follow local heat-safety advice.',
         plantingId: 5,
         plantingIds: [5],
         title: 'Lettuce: Copperleaf Butterhead may bolt',
@@ -304,6 +313,31 @@ export function aToday(overrides: Partial<TodayDto> = {}): TodayDto {
       tmin: 48 + (k % 4),
       source: k < 7 ? 'observed' : 'forecast',
     })),
+    ...overrides,
+  };
+}
+
+/** An open bolt-risk alert for the butterhead lettuce in North 1 (planting 5), raised on 2 June 2025. */
+export function anAlert(overrides: Partial<AlertDto> = {}): AlertDto {
+  return {
+    id: 42,
+    gardenId: 1,
+    type: 'bolt-risk',
+    severity: 'warning',
+    status: 'open',
+    plantingId: 5,
+    subject: 'Lettuce: Copperleaf Butterhead (North 1)',
+    title: 'Bolt risk high from 9 Jun',
+    startsOn: '2025-06-09',
+    endsOn: '2025-06-12',
+    reasons: ['4 days ≥ 80 °F forecast 9–12 Jun', 'Day length 15.1 h'],
+    action: 'Harvest early or shade the bed, and keep it watered.',
+    caution: 'Working outdoors in the heat: drink water often and rest in the shade.',
+    createdAt: '2025-06-02T11:00:00.000Z',
+    updatedAt: '2025-06-02T11:00:00.000Z',
+    acknowledgedAt: null,
+    acknowledgedBy: null,
+    resolvedAt: null,
     ...overrides,
   };
 }

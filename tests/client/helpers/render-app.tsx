@@ -41,8 +41,19 @@ export function memberOf(gardens: GardenDto[]) {
         ? HttpResponse.json({ garden })
         : HttpResponse.json({ error: { code: 'not_found', message: 'Garden not found.' } }, { status: 404 });
     }),
+    ...quietAlerts,
+    quietPreferences,
   ];
 }
+
+/** No e-mail preferences saved: the settings page asks for them for every role. */
+export const quietPreferences = http.get('/api/me/notification-preferences', () => HttpResponse.json({ items: [] }));
+
+/** No alerts: the navigation's count and Today's open alerts, asked for on every garden page. */
+export const quietAlerts = [
+  http.get('/api/gardens/:gardenId/alerts/counts', () => HttpResponse.json({ open: 0, byType: {} })),
+  http.get('/api/gardens/:gardenId/alerts', () => HttpResponse.json({ items: [] })),
+];
 
 /** Today with nothing to show, for tests that land on a garden's home page but look elsewhere. */
 export const quietToday = http.get('/api/gardens/:gardenId/today', () => HttpResponse.json(aToday({ actions: [], plantings: [], weather: [] })));

@@ -11,8 +11,10 @@ import { Notice } from '@/components/ui/notice';
 import { Wordmark } from '@/components/ui/wordmark';
 import { useMe } from '@/features/auth/api/get-me';
 import { SignOutButton } from '@/features/auth/components/sign-out-button';
+import { MailboxLink } from '@/features/notifications/components/mailbox-link';
 import { useGarden } from '@/features/gardens/api/get-garden';
 import { GardenSwitcher } from '@/features/gardens/components/garden-switcher';
+import { AlertsNavLink } from '@/features/alerts/components/alerts-nav-link';
 
 const NAV_LINK =
   'inline-flex min-h-11 items-center border-b-4 border-transparent px-1 font-semibold hover:border-line aria-[current=page]:border-leaf';
@@ -71,6 +73,7 @@ export function GardenLayout() {
               <span className="sr-only">Signed in as </span>
               {me.data?.name}
             </span>
+            <MailboxLink />
             <SignOutButton />
           </div>
         </div>
@@ -81,6 +84,9 @@ export function GardenLayout() {
                 <NavLink end to={`/g/${gardenId}`} className={NAV_LINK}>
                   Today
                 </NavLink>
+              </li>
+              <li>
+                <AlertsNavLink gardenId={gardenId} className={NAV_LINK} />
               </li>
               <li>
                 <NavLink to={`/g/${gardenId}/plantings`} className={NAV_LINK}>

@@ -2,6 +2,7 @@ import { Notice } from '@/components/ui/notice';
 import { GardenFacts } from '@/features/gardens/components/garden-facts';
 import { GardenSettingsForm } from '@/features/gardens/components/garden-settings-form';
 import { useCurrentGarden } from '@/app/routes/gardens/garden-layout';
+import { NotificationPreferencesSection } from '@/features/notifications/components/notification-preferences-section';
 
 export function GardenSettingsPage() {
   const garden = useCurrentGarden();
@@ -24,6 +25,7 @@ export function GardenSettingsPage() {
           </section>
         </>
       )}
+      <NotificationPreferencesSection gardenId={garden.id} />
     </div>
   );
 }

@@ -1,9 +1,16 @@
 import type { ReactNode } from 'react';
+import { Link } from 'react-router-dom';
+import type { UseQueryResult } from '@tanstack/react-query';
+import type { AlertDto } from '#shared/schemas/alerts';
+import type { GardenDto } from '#shared/schemas/gardens';
+import type { TodayDto } from '#shared/schemas/progress';
 import { Button } from '@/components/ui/button';
 import { Loading } from '@/components/ui/loading';
 import { Notice } from '@/components/ui/notice';
 import { formatWeekdayDayMonth } from '@/lib/format';
 import { useCurrentGarden } from '@/app/routes/gardens/garden-layout';
+import { useAlerts } from '@/features/alerts/api/get-alerts';
+import { AlertCards } from '@/features/alerts/components/alert-cards';
 import { GardenAbout, hasLocation, NoLocationNotice } from '@/features/gardens/components/garden-about';
 import { useToday } from '@/features/progress/api/get-today';
 import { GrowingNow } from '@/features/progress/components/growing-now';
@@ -21,29 +28,55 @@ function Section({ id, title, children }: { id: string; title: string; children:
   );
 }
 
-function TodaySections({ gardenId }: { gardenId: number }) {
-  const today = useToday(gardenId);
-  if (today.isPending) return <Loading label="Loading today’s figures…" />;
+function LoadFailed({ title, message, retrying, onRetry }: { title: string; message: string; retrying: boolean; onRetry: () => void }) {
+  return (
+    <div className="flex flex-col items-start gap-3">
+      <Notice tone="error" title={title} live="alert">
+        {message}
+      </Notice>
+      <Button variant="quiet" onClick={onRetry} disabled={retrying}>
+        Try again
+      </Button>
+    </div>
+  );
+}
+
+/**
+ * The open alerts in full first; Today's actions are made from them, so only those not shown
+ * above are listed after (all of them when the alerts cannot be loaded).
+ */
+function Attention({ garden, today, open }: { garden: GardenDto; today: TodayDto; open: UseQueryResult<{ items: AlertDto[] }> }) {
+  const alerts = open.data?.items ?? [];
+  return (
+    <>
+      {open.isError && (
+        <LoadFailed title="Alerts could not be loaded — try again" message={open.error.message} retrying={open.isFetching} onRetry={() => open.refetch()} />
+      )}
+      {alerts.length > 0 && <AlertCards alerts={alerts} gardenId={garden.id} timeZone={garden.timeZone} canAcknowledge={garden.role !== 'viewer'} />}
+      <NeedsAttention gardenId={garden.id} today={today} shownAlertIds={alerts.map((a) => a.id)} />
+      <Link to={`/g/${garden.id}/alerts`} className="inline-flex min-h-11 items-center self-start font-semibold text-frost underline">
+        All alerts and their history
+      </Link>
+    </>
+  );
+}
+
+function TodaySections({ garden }: { garden: GardenDto }) {
+  const today = useToday(garden.id);
+  const open = useAlerts(garden.id, { status: 'open' });
+  // One wait for both, so the actions never show before the alerts that replace them.
+  if (today.isPending || open.isPending) return <Loading label="Loading today’s figures…" />;
   if (today.isError) {
-    return (
-      <div className="flex flex-col items-start gap-3">
-        <Notice tone="error" title="Today could not be loaded — try again" live="alert">
-          {today.error.message}
-        </Notice>
-        <Button variant="quiet" onClick={() => today.refetch()} disabled={today.isFetching}>
-          Try again
-        </Button>
-      </div>
-    );
+    return <LoadFailed title="Today could not be loaded — try again" message={today.error.message} retrying={today.isFetching} onRetry={() => today.refetch()} />;
   }
   return (
     <>
       <p className="text-loam-soft">As of {formatWeekdayDayMonth(today.data.today)}, the garden’s own date.</p>
       <Section id="needs-attention" title="Needs attention">
-        <NeedsAttention gardenId={gardenId} today={today.data} />
+        <Attention garden={garden} today={today.data} open={open} />
       </Section>
       <Section id="growing-now" title="Growing now">
-        <GrowingNow gardenId={gardenId} today={today.data} />
+        <GrowingNow gardenId={garden.id} today={today.data} />
       </Section>
       <Section id="weather-days" title="Weather">
         <TodayWeather today={today.data} />
@@ -63,7 +96,7 @@ export function TodayPage() {
         <p className="font-semibold break-words">{garden.name}</p>
       </div>
       {!hasLocation(garden) && <NoLocationNotice garden={garden} />}
-      <TodaySections gardenId={garden.id} />
+      <TodaySections garden={garden} />
       <GardenAbout garden={garden} />
     </div>
   );

@@ -69,13 +69,12 @@ export function ProgressSummary({ progress: p }: { progress: ProgressDto }) {
         {p.recorded.boltedOn && <Fact term="Bolted">{formatDayMonth(p.recorded.boltedOn)}</Fact>}
         <Fact term="Bolt risk">
           <BoltRiskLabel level={p.boltRisk.level} highFrom={p.boltRisk.highFrom} />
-          {p.boltRisk.level === 'none' && <p className="text-loam-soft">This crop does not bolt in its season.</p>}
+          {p.boltRisk.note && <p className="text-loam-soft">{p.boltRisk.note}</p>}
           {p.boltRisk.reasons.length > 0 && (
             <ul className="mt-1 list-disc pl-5">
               {p.boltRisk.reasons.map((r) => (
                 <li key={`${r.trigger}-${r.message}`}>
                   {r.message}
-                  {r.forecast ? ' (forecast)' : ''}
                 </li>
               ))}
             </ul>

@@ -1,4 +1,4 @@
-import { OctagonAlert, Scissors, Snowflake, Sun, Thermometer, ThermometerSnowflake, ThermometerSun } from 'lucide-react';
+import { CloudOff, OctagonAlert, Scissors, Snowflake, Sun, Thermometer, ThermometerSnowflake, ThermometerSun, TriangleAlert } from 'lucide-react';
 import type { StartEventKind, StressDto, TodayActionKind } from '#shared/schemas/progress';
 
 export const START_WORDS: Record<StartEventKind, string> = {
@@ -27,10 +27,12 @@ export const SEVERITY_WORDS: Record<StressDto['severity'], string> = {
 
 export const ACTION_LOOK: Record<TodayActionKind, { words: string; icon: typeof Sun; className: string }> = {
   'bolt-high': { words: 'Bolt risk high', icon: OctagonAlert, className: 'border-ember bg-ember-tint text-ember' },
+  'bolt-elevated': { words: 'Bolt risk elevated', icon: TriangleAlert, className: 'border-ember bg-paper-raised text-ember' },
   // Stress may be heat or frost, so it takes neither the ember nor the frost colour.
   stress: { words: 'Weather stress', icon: Thermometer, className: 'border-loam-soft bg-paper-sunk text-loam' },
   'window-open': { words: 'Harvest window open', icon: Scissors, className: 'border-leaf bg-leaf-tint text-leaf' },
+  'data-gap': { words: 'Weather missing', icon: CloudOff, className: 'border-loam-soft bg-paper-sunk text-loam' },
 };
 
 /** Bolt-high first, then stress, then open harvest windows; the server's order within a kind. */
-export const ACTION_ORDER: TodayActionKind[] = ['bolt-high', 'stress', 'window-open'];
+export const ACTION_ORDER: TodayActionKind[] = ['bolt-high', 'stress', 'bolt-elevated', 'window-open', 'data-gap'];

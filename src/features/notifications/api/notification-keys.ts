@@ -1,0 +1,6 @@
+export const notificationKeys = {
+  all: ['notifications'] as const,
+  preferences: () => ['notifications', 'preferences'] as const,
+  unsubscribe: (token: string) => ['notifications', 'unsubscribe', token] as const,
+  mailbox: () => ['notifications', 'mailbox'] as const,
+};
