@@ -43,6 +43,7 @@ export function memberOf(gardens: GardenDto[]) {
     }),
     ...quietAlerts,
     quietPreferences,
+    http.get('/api/gardens/:gardenId/mail/failed', () => HttpResponse.json({ items: [] })),
   ];
 }
 

@@ -3,6 +3,7 @@ import { GardenFacts } from '@/features/gardens/components/garden-facts';
 import { GardenSettingsForm } from '@/features/gardens/components/garden-settings-form';
 import { useCurrentGarden } from '@/app/routes/gardens/garden-layout';
 import { NotificationPreferencesSection } from '@/features/notifications/components/notification-preferences-section';
+import { FailedMailSection } from '@/features/notifications/components/failed-mail-section';
 
 export function GardenSettingsPage() {
   const garden = useCurrentGarden();
@@ -26,6 +27,7 @@ export function GardenSettingsPage() {
         </>
       )}
       <NotificationPreferencesSection gardenId={garden.id} />
+      {isOwner && <FailedMailSection gardenId={garden.id} />}
     </div>
   );
 }

@@ -3,4 +3,5 @@ export const notificationKeys = {
   preferences: () => ['notifications', 'preferences'] as const,
   unsubscribe: (token: string) => ['notifications', 'unsubscribe', token] as const,
   mailbox: () => ['notifications', 'mailbox'] as const,
+  failed: (gardenId: number) => ['notifications', 'failed', gardenId] as const,
 };

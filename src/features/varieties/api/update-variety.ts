@@ -2,7 +2,7 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { VarietyDto, VarietyUpdateInput } from '#shared/schemas/varieties';
 import { api } from '@/lib/api-client';
 import { varietyKeys } from '@/features/varieties/api/variety-keys';
-import { progressRootKey } from '@/lib/progress-root-key';
+import { invalidateGardenFigures } from '@/lib/progress-root-key';
 
 export async function updateVariety(gardenId: number, varietyId: number, input: VarietyUpdateInput): Promise<VarietyDto> {
   return (await api.patch<{ variety: VarietyDto }>(`/api/gardens/${gardenId}/varieties/${varietyId}`, input)).variety;
@@ -14,6 +14,6 @@ export function useUpdateVariety(gardenId: number, varietyId: number) {
     mutationFn: (input: VarietyUpdateInput) => updateVariety(gardenId, varietyId, input),
     // The degree-day target follows from days to maturity, so the detail and every planting's progress are stale too.
     onSuccess: () =>
-      Promise.all([queryClient.invalidateQueries({ queryKey: varietyKeys.all(gardenId) }), queryClient.invalidateQueries({ queryKey: progressRootKey(gardenId) })]),
+      Promise.all([queryClient.invalidateQueries({ queryKey: varietyKeys.all(gardenId) }), invalidateGardenFigures(queryClient, gardenId)]),
   });
 }

@@ -3,7 +3,7 @@ import type { WeatherImportResult } from '#shared/schemas/weather';
 import type { DisplayUnit } from '#shared/schemas/gardens';
 import { api } from '@/lib/api-client';
 import type { ApiError } from '@/lib/api-client';
-import { progressRootKey } from '@/lib/progress-root-key';
+import { invalidateGardenFigures } from '@/lib/progress-root-key';
 import { weatherKeys } from '@/features/weather/api/weather-keys';
 
 export interface WeatherImportInput {
@@ -27,7 +27,7 @@ export function useImportWeatherCsv(gardenId: number) {
     onSuccess: () =>
       Promise.all([
         queryClient.invalidateQueries({ queryKey: weatherKeys.garden(gardenId) }),
-        queryClient.invalidateQueries({ queryKey: progressRootKey(gardenId) }),
+        invalidateGardenFigures(queryClient, gardenId),
       ]),
   });
 }

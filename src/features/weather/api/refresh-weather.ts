@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { api, isApiError } from '@/lib/api-client';
-import { progressRootKey } from '@/lib/progress-root-key';
+import { invalidateGardenFigures } from '@/lib/progress-root-key';
 import { weatherKeys } from '@/features/weather/api/weather-keys';
 
 export interface RefreshRun {
@@ -28,7 +28,7 @@ export function useRefreshWeather(gardenId: number) {
     onSuccess: () =>
       Promise.all([
         queryClient.invalidateQueries({ queryKey: weatherKeys.garden(gardenId) }),
-        queryClient.invalidateQueries({ queryKey: progressRootKey(gardenId) }),
+        invalidateGardenFigures(queryClient, gardenId),
       ]),
     onError: (error) => {
       // 409 no_location: the location was removed meanwhile; the page should say so.
