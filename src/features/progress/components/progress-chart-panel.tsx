@@ -1,22 +1,15 @@
 import { lazy, Suspense } from 'react';
-import type { ReactNode } from 'react';
 import type { ProgressDto } from '#shared/schemas/progress';
 import { Loading } from '@/components/ui/loading';
+import { ChartLegend } from '@/components/ui/chart-legend';
+import type { LegendItem } from '@/components/ui/chart-legend';
 import { BoltRiskStrip } from '@/features/progress/components/bolt-risk-strip';
 import { ProgressTable } from '@/features/progress/components/progress-table';
 
 // Recharts is large: it loads with this component, in its own chunk, only when a chart is shown.
 const ProgressChart = lazy(() => import('@/features/progress/components/progress-chart').then((m) => ({ default: m.ProgressChart })));
 
-function Swatch({ children }: { children: ReactNode }) {
-  return (
-    <svg viewBox="0 0 28 12" className="h-3 w-7 shrink-0" aria-hidden="true" focusable="false">
-      {children}
-    </svg>
-  );
-}
-
-const LEGEND: Array<{ swatch: ReactNode; words: string }> = [
+const LEGEND: LegendItem[] = [
   { swatch: <line x1="0" y1="6" x2="28" y2="6" className="stroke-leaf" strokeWidth="3" />, words: 'Degree days so far' },
   { swatch: <line x1="0" y1="6" x2="28" y2="6" className="stroke-leaf" strokeWidth="3" strokeDasharray="3 4" />, words: 'With the forecast' },
   { swatch: <rect x="0" y="1" width="28" height="10" className="fill-leaf-tint" />, words: 'Band: projection, 10th–90th percentile' },
@@ -27,18 +20,6 @@ const LEGEND: Array<{ swatch: ReactNode; words: string }> = [
   { swatch: <line x1="14" y1="0" x2="14" y2="12" className="stroke-loam" strokeWidth="2" />, words: 'Vertical line: today' },
 ];
 
-function ChartLegend() {
-  return (
-    <ul aria-label="How to read the chart" className="grid grid-cols-1 gap-x-4 gap-y-1.5 text-sm min-[25rem]:grid-cols-2 sm:flex sm:flex-wrap sm:gap-x-5">
-      {LEGEND.map(({ swatch, words }) => (
-        <li key={words} className="flex items-center gap-2">
-          <Swatch>{swatch}</Swatch>
-          {words}
-        </li>
-      ))}
-    </ul>
-  );
-}
 
 /** The chart with its legend, the bolt-risk strip and the same figures as a table. */
 export function ProgressChartPanel({ progress, title }: { progress: ProgressDto; title: string }) {
@@ -58,7 +39,7 @@ export function ProgressChartPanel({ progress, title }: { progress: ProgressDto;
       ) : (
         <p className="text-loam-soft">No days to draw yet: the chart starts once the planting has a start date and weather.</p>
       )}
-      {hasDays && <ChartLegend />}
+      {hasDays && <ChartLegend items={LEGEND} className="grid grid-cols-1 gap-x-4 gap-y-1.5 text-sm min-[25rem]:grid-cols-2 sm:flex sm:flex-wrap sm:gap-x-5" />}
       {progress.boltRisk.level !== 'none' && progress.boltRisk.days.length > 0 && <BoltRiskStrip progress={progress} />}
       {hasDays && <ProgressTable progress={progress} />}
     </figure>

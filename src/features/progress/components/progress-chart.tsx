@@ -9,7 +9,7 @@ import { fromDayNumber, toDayNumber } from '#shared/thermal/dates';
 import { dayTicks, placeThresholdLabels, temperatureDomain } from '@/lib/chart-axes';
 import { degreeDayUnit, formatDayMonth, formatDegreeDays, formatTemp } from '@/lib/format';
 import { useWideChart } from '@/lib/use-wide-chart';
-import { ChartLineLabel } from '@/components/ui/chart-line-label';
+import { ChartLineLabel, HaloText } from '@/components/ui/chart-line-label';
 import { HeatTooltip, TemperatureTooltip } from '@/features/progress/components/progress-tooltips';
 import { PLOT_INSET, PROGRESS_COLOURS } from '@/features/progress/utils/chart-look';
 import { buildProgressPoints, heatDomain, progressDomain, weekStep } from '@/features/progress/utils/progress-points';
@@ -29,20 +29,9 @@ function VerticalLabel({ viewBox, text, row, anchor }: VerticalLabelProps) {
   if (viewBox?.x == null || viewBox.y == null) return null;
   const dx = anchor === 'start' ? 4 : anchor === 'end' ? -4 : 0;
   return (
-    <text
-      x={viewBox.x + dx}
-      y={row === 0 ? viewBox.y - 6 : viewBox.y + 14 * row}
-      textAnchor={anchor}
-      fill={PROGRESS_COLOURS.today}
-      fontSize={12}
-      fontWeight={600}
-      stroke="var(--color-paper-raised)"
-      strokeWidth={4}
-      strokeLinejoin="round"
-      paintOrder="stroke"
-    >
+    <HaloText x={viewBox.x + dx} y={row === 0 ? viewBox.y - 6 : viewBox.y + 14 * row} anchor={anchor} colour={PROGRESS_COLOURS.today}>
       {text}
-    </text>
+    </HaloText>
   );
 }
 

@@ -1,7 +1,8 @@
 import { lazy, Suspense } from 'react';
-import type { ReactNode } from 'react';
 import type { WeatherResponse } from '#shared/schemas/weather';
 import { Loading } from '@/components/ui/loading';
+import { ChartLegend } from '@/components/ui/chart-legend';
+import type { LegendItem } from '@/components/ui/chart-legend';
 import { formatTemp } from '@/lib/format';
 import { numberThresholds } from '@/features/weather/utils/chart-series';
 import { formatCount, formatDayRange } from '@/features/weather/utils/format-weather';
@@ -11,15 +12,7 @@ const WeatherChart = lazy(() =>
   import('@/features/weather/components/weather-chart').then((m) => ({ default: m.WeatherChart })),
 );
 
-function Swatch({ children }: { children: ReactNode }) {
-  return (
-    <svg viewBox="0 0 28 12" className="h-3 w-7 shrink-0" aria-hidden="true" focusable="false">
-      {children}
-    </svg>
-  );
-}
-
-const LEGEND: Array<{ swatch: ReactNode; words: string }> = [
+const LEGEND: LegendItem[] = [
   { swatch: <line x1="0" y1="6" x2="28" y2="6" className="stroke-ember" strokeWidth="3" />, words: 'Daily high' },
   { swatch: <line x1="0" y1="6" x2="28" y2="6" className="stroke-frost" strokeWidth="3" />, words: 'Daily low' },
   { swatch: <line x1="0" y1="6" x2="28" y2="6" className="stroke-loam" strokeWidth="2.5" />, words: 'Solid: measured' },
@@ -30,18 +23,6 @@ const LEGEND: Array<{ swatch: ReactNode; words: string }> = [
   { swatch: <line x1="14" y1="0" x2="14" y2="12" className="stroke-loam" strokeWidth="2" />, words: 'Vertical line: today' },
 ];
 
-function ChartLegend() {
-  return (
-    <ul aria-label="How to read the chart" className="grid grid-cols-2 gap-x-4 gap-y-1.5 text-sm sm:flex sm:flex-wrap sm:gap-x-5">
-      {LEGEND.map(({ swatch, words }) => (
-        <li key={words} className="flex items-center gap-2">
-          <Swatch>{swatch}</Swatch>
-          {words}
-        </li>
-      ))}
-    </ul>
-  );
-}
 
 function GapList({ gaps }: { gaps: WeatherResponse['gaps'] }) {
   if (!gaps.length) return <p className="text-sm text-loam-soft">No missing days in this period.</p>;
@@ -99,7 +80,7 @@ export function WeatherChartPanel({ weather }: { weather: WeatherResponse }) {
           <WeatherChart weather={weather} />
         </Suspense>
       </div>
-      <ChartLegend />
+      <ChartLegend items={LEGEND} className="grid grid-cols-2 gap-x-4 gap-y-1.5 text-sm sm:flex sm:flex-wrap sm:gap-x-5" />
       <GapList gaps={weather.gaps} />
       <ThresholdList weather={weather} />
     </figure>
