@@ -15,7 +15,7 @@ export function plantingProgressProcessor(progress: ProgressService, alerts: Ale
     async handle(event) {
       await progress.repo.invalidate({ gardenId: event.gardenId });
       await progress.refreshGarden(event.gardenId, { status: 'growing' });
-      await alerts.evaluate(event.gardenId);
+      await alerts.evaluate(event.gardenId, { progressFresh: true });
     },
   };
 }

@@ -95,9 +95,9 @@ export class AlertService {
     this.repo = new AlertsRepository(sequelize);
   }
 
-  private async candidates(gardenId: number) {
+  private async candidates(gardenId: number, progressFresh: boolean) {
     const { garden, today } = await this.progress.gardenToday(gardenId);
-    await this.progress.refreshGarden(gardenId, { status: 'growing' });
+    if (!progressFresh) await this.progress.refreshGarden(gardenId, { status: 'growing' });
     const rows = await this.progress.repo.growing(gardenId, today);
     const plantings = rows.flatMap((r) =>
       r.summary ? [{ plantingId: r.plantingId, label: `${findCrop(r.cropKey)?.name ?? r.cropKey}: ${r.varietyName} (${r.bedName})`, progress: r.summary }] : [],
@@ -109,9 +109,12 @@ export class AlertService {
     return { today, list: alertCandidates({ today, gardenName: garden.name, plantings, gaps }) };
   }
 
-  /** Safe to run any number of times, concurrently and on several instances: rows are keyed and locked. */
-  async evaluate(gardenId: number): Promise<Evaluation> {
-    const { today, list } = await this.candidates(gardenId);
+  /**
+   * Safe to run any number of times, concurrently and on several instances: rows are keyed and
+   * locked. `progressFresh`: the caller has just recomputed the garden's growing plantings.
+   */
+  async evaluate(gardenId: number, opts: { progressFresh?: boolean } = {}): Promise<Evaluation> {
+    const { today, list } = await this.candidates(gardenId, opts.progressFresh ?? false);
     const result = await inTransaction(this.sequelize, async (transaction) => {
       const existing = new Map((await this.repo.forEvaluation(gardenId, transaction)).map((r) => [naturalKey(r), r]));
       const out: Evaluation = { opened: 0, updated: 0, resolved: 0, notified: [] };
