@@ -9,6 +9,12 @@ function errno(err: unknown): number | undefined {
   return e?.parent?.errno ?? e?.original?.errno;
 }
 
+/** A deadlock or lock-wait timeout: the whole transaction is safe to run again. */
+export function isRetryable(err: unknown): boolean {
+  const code = errno(err);
+  return code !== undefined && RETRYABLE.has(code);
+}
+
 /** Runs `work` in one transaction, retrying a bounded number of times on deadlocks and lock waits. */
 export async function inTransaction<T>(sequelize: Sequelize, work: (transaction: Transaction) => Promise<T>): Promise<T> {
   for (let attempt = 1; ; attempt++) {

@@ -19,6 +19,9 @@ import type { DailyTemp, DegreeDayMethod } from './types';
 import type { TempUnit } from './units';
 import { formatDegreeDays } from './units';
 
+/** How far back a stress spell that reaches today may have begun. */
+const STRESS_LOOKBACK_DAYS = 7;
+
 export type ProgressStatus = 'planned' | 'growing' | 'harvested' | 'bolted' | 'failed';
 export type MaturityKind = 'observed' | 'forecast' | 'analog' | 'recorded' | 'none';
 
@@ -208,5 +211,7 @@ function assessBolt(input: PlantingProgressInput, days: readonly DailyTemp[]): P
 
 function stressAhead(input: PlantingProgressInput, days: readonly DailyTemp[]): StressEvent[] {
   if (!input.stressProfile || input.status !== 'growing') return [];
-  return stressEvents(days.filter((d) => d.date >= input.today), input.stressProfile, undefined, input.unit);
+  // A spell already under way keeps its real first day (and its nights so far count), so it stays one event.
+  const events = stressEvents(days.filter((d) => d.date >= addDays(input.today, -STRESS_LOOKBACK_DAYS)), input.stressProfile, undefined, input.unit);
+  return events.filter((e) => e.end >= input.today);
 }

@@ -104,6 +104,19 @@ describe('alerts', () => {
     expect(await list(clients.viewer, base, '?status=open&type=frost')).toEqual([]);
   });
 
+  it('when a frost spell is seen again two days later, then it is the same alert, not a new one', async () => {
+    const { garden } = await gardenWithClients(app);
+    await giveGardenWeather(sequelize, garden, weatherWith([...steadyDays(TODAY, TODAY, 12, 5, 'forecast'), ...steadyDays(addDays(TODAY, 1), addDays(TODAY, 4), 6, fToC(30), 'forecast')]));
+    const tomato = await makeVariety(garden.id, { cropKey: 'tomato', dtmDays: 70, dtmFrom: 'transplant', boltTolerance: null });
+    await makePlanting(garden.id, { varietyId: tomato.id, method: 'transplant', sownOn: null, transplantedOn: '2026-05-20' });
+    await alertsOf(app).evaluate(garden.id);
+    const later = testApp({}, testWeather({}, () => new Date(`${addDays(TODAY, 2)}T17:00:00Z`)));
+    await alertsOf(later).evaluate(garden.id);
+    const rows = await sequelize.query<{ id: number; status: string; first_on: string }>("SELECT id, status, first_on FROM alerts WHERE garden_id = ? AND type = 'frost'", { replacements: [garden.id], type: QueryTypes.SELECT });
+    expect(rows).toHaveLength(1);
+    expect(rows[0]).toMatchObject({ status: 'open', first_on: addDays(TODAY, 1) });
+  });
+
   it('when a grower acknowledges, then the alert is acknowledged by name; a viewer cannot', async () => {
     const { clients, base, garden } = await gardenWithClients(app);
     await giveGardenWeather(sequelize, garden, weatherWith(steadyDays(TODAY, addDays(TODAY, 6), 31, 18, 'forecast')));

@@ -37,7 +37,17 @@ export const naturalKey = (c: { subjectKey: string; type: string; firstOn: strin
 export class AlertsRepository {
   constructor(private readonly db: Sequelize) {}
 
-  /** The garden's current (not resolved) alerts and any row matching a candidate's key, locked for this evaluation. */
+  /** The garden's evaluation row, locked: one evaluation of a garden at a time, on any instance. */
+  async lockGarden(gardenId: number, transaction: Transaction) {
+    await this.db.query(
+      `INSERT INTO alert_evaluations (garden_id, evaluated_for, evaluated_at) VALUES (?, '1970-01-01', UTC_TIMESTAMP(3))
+       ON DUPLICATE KEY UPDATE garden_id = garden_id`,
+      { replacements: [gardenId], transaction },
+    );
+    await this.db.query('SELECT garden_id FROM alert_evaluations WHERE garden_id = ? FOR UPDATE', { replacements: [gardenId], transaction });
+  }
+
+  /** The garden's alerts, current and past, under the garden's evaluation lock. */
   async forEvaluation(gardenId: number, transaction: Transaction): Promise<AlertRow[]> {
     return this.db.query<AlertRow>(`SELECT ${COLUMNS} FROM alerts a LEFT JOIN users u ON u.id = a.acknowledged_by WHERE a.garden_id = ? FOR UPDATE`, {
       replacements: [gardenId],
@@ -73,6 +83,7 @@ export class AlertsRepository {
   async update(id: number, c: AlertCandidate, transaction: Transaction) {
     await this.db.query(
       `UPDATE alerts SET ends_on = ?, severity = ?, subject = ?, title = ?, reasons_json = ?, action = ?, caution = ?,
+         acknowledged_at = IF(status = 'resolved', NULL, acknowledged_at), acknowledged_by = IF(status = 'resolved', NULL, acknowledged_by),
          resolved_at = NULL, status = IF(status = 'resolved', 'open', status), updated_at = UTC_TIMESTAMP(3)
        WHERE id = ?`,
       { replacements: [c.endsOn, c.severity, c.subject, c.title, JSON.stringify(c.reasons), c.action, c.caution, id], transaction },

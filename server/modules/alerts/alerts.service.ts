@@ -80,6 +80,20 @@ export function asTodayAction(a: AlertDto): TodayActionDto {
   };
 }
 
+/**
+ * The current alert a candidate continues when its first date moved (a spell seen from a later
+ * day, a window whose first likely day passed): same subject and type, overlapping or adjoining
+ * dates for weather spells, any for bolt risk and the harvest window (one of each per planting).
+ */
+function continuing(current: AlertRow[], c: AlertCandidate, taken: ReadonlySet<number>): AlertRow | undefined {
+  const key = subjectKey(c);
+  return current.find((r) => {
+    if (r.status === 'resolved' || taken.has(r.id) || r.subjectKey !== key || r.type !== c.type) return false;
+    if (c.type === 'bolt-risk' || c.type === 'harvest-window' || c.type === 'data-gap') return true;
+    return (r.endsOn ?? r.firstOn) >= addDays(c.firstOn, -1) && r.firstOn <= addDays(c.endsOn ?? c.firstOn, 1);
+  });
+}
+
 const changed = (r: AlertRow, c: AlertCandidate) =>
   r.status === 'resolved' || r.severity !== c.severity || r.endsOn !== c.endsOn || r.title !== c.title || r.reasonsJson !== JSON.stringify(c.reasons) || r.caution !== c.caution;
 
@@ -99,29 +113,41 @@ export class AlertService {
     const { garden, today } = await this.progress.gardenToday(gardenId);
     if (!progressFresh) await this.progress.refreshGarden(gardenId, { status: 'growing' });
     const rows = await this.progress.repo.growing(gardenId, today);
-    const plantings = rows.flatMap((r) =>
-      r.summary ? [{ plantingId: r.plantingId, label: `${findCrop(r.cropKey)?.name ?? r.cropKey}: ${r.varietyName} (${r.bedName})`, progress: r.summary }] : [],
-    );
+    // A summary a concurrent change kept out of the cache is computed for this run all the same.
+    const missing = rows.filter((r) => !r.summary).map((r) => r.plantingId);
+    const computed = missing.length ? await this.progress.summaries(gardenId, missing) : new Map();
+    const plantings = rows.flatMap((r) => {
+      const progress = r.summary ?? computed.get(r.plantingId);
+      return progress ? [{ plantingId: r.plantingId, label: `${findCrop(r.cropKey)?.name ?? r.cropKey}: ${r.varietyName} (${r.bedName})`, progress }] : [];
+    });
     const from = addDays(today, -GAP_LOOKBACK_DAYS);
     const days = garden.weatherCellId ? await this.weather.gardenSeries(garden, from, addDays(today, -1)) : [];
     // A garden with no weather at all is still being set up; its gaps are the backfill's to fill.
     const gaps = days.length ? findGaps(new Set(days.filter((d) => d.source !== 'forecast').map((d) => d.date)), from, addDays(today, -1)) : [];
-    return { today, list: alertCandidates({ today, gardenName: garden.name, plantings, gaps }) };
+    // Alerts of a planting without an answer this run are left as they are, never resolved by omission.
+    const unknown = new Set(rows.filter((r) => !plantings.some((p) => p.plantingId === r.plantingId)).map((r) => `p${r.plantingId}`));
+    return { today, unknown, list: alertCandidates({ today, gardenName: garden.name, plantings, gaps }) };
   }
 
   /**
-   * Safe to run any number of times, concurrently and on several instances: rows are keyed and
-   * locked. `progressFresh`: the caller has just recomputed the garden's growing plantings.
+   * Safe to run any number of times, concurrently and on several instances: each garden's run
+   * takes the garden's evaluation row as a lock first, and a run whose inputs changed while it
+   * computed (the garden's progress counter moved) gives way to the evaluation that change owes.
+   * `progressFresh`: the caller has just recomputed the garden's growing plantings.
    */
   async evaluate(gardenId: number, opts: { progressFresh?: boolean } = {}): Promise<Evaluation> {
-    const { today, list } = await this.candidates(gardenId, opts.progressFresh ?? false);
+    const epoch = await this.progress.repo.epoch(gardenId);
+    const { today, unknown, list } = await this.candidates(gardenId, opts.progressFresh ?? false);
     const result = await inTransaction(this.sequelize, async (transaction) => {
-      const existing = new Map((await this.repo.forEvaluation(gardenId, transaction)).map((r) => [naturalKey(r), r]));
       const out: Evaluation = { opened: 0, updated: 0, resolved: 0, notified: [] };
+      await this.repo.lockGarden(gardenId, transaction);
+      if ((await this.progress.repo.epoch(gardenId, transaction)) !== epoch) return out;
+      const current = await this.repo.forEvaluation(gardenId, transaction);
+      const byKey = new Map(current.map((r) => [naturalKey(r), r]));
       const seen = new Set<number>();
       const fresh: AlertCandidate[] = [];
       for (const c of list) {
-        const row = existing.get(naturalKey({ subjectKey: subjectKey(c), type: c.type, firstOn: c.firstOn }));
+        const row = byKey.get(naturalKey({ subjectKey: subjectKey(c), type: c.type, firstOn: c.firstOn })) ?? continuing(current, c, seen);
         if (!row) {
           fresh.push(c);
           continue;
@@ -135,7 +161,7 @@ export class AlertService {
       const created = await this.repo.insertMany(gardenId, fresh, transaction);
       out.opened = created.length;
       out.notified.push(...created);
-      const passed = [...existing.values()].filter((r) => r.status !== 'resolved' && !seen.has(r.id)).map((r) => r.id);
+      const passed = current.filter((r) => r.status !== 'resolved' && !seen.has(r.id) && !unknown.has(r.subjectKey)).map((r) => r.id);
       await this.repo.resolve(passed, transaction);
       out.resolved = passed.length;
       await this.repo.markEvaluated(gardenId, today, transaction);

@@ -68,13 +68,15 @@ export function notificationsRouter(deps: { sequelize: Sequelize; table: RouteTa
         method: 'get',
         path: '/',
         access: 'signed-in',
-        handler: async (_req, res) => {
+        handler: async (req, res) => {
           // Captured mail exists only while the transport is the local fake; with real SMTP there is no mailbox to show.
           if (!mailIsLocalFake) throw new AppError(404, 'not_found', 'No such API route.');
+          // Only the signed-in member's own messages: they carry personal unsubscribe links.
+          const user = requireSignedIn(req);
           const rows = await sequelize.query<{ toAddr: string; subject: string; textBody: string; htmlBody: string | null; receivedAt: Date }>(
             `SELECT to_addr AS toAddr, subject, text_body AS textBody, html_body AS htmlBody, received_at AS receivedAt
-               FROM captured_mail ORDER BY received_at DESC, id DESC LIMIT 100`,
-            { type: QueryTypes.SELECT },
+               FROM captured_mail WHERE to_addr = ? ORDER BY received_at DESC, id DESC LIMIT 100`,
+            { replacements: [user.email], type: QueryTypes.SELECT },
           );
           const messages: CapturedMailDto[] = rows.map((r) => ({ to: r.toAddr, subject: r.subject, text: r.textBody, html: r.htmlBody, receivedAt: iso(r.receivedAt) }));
           res.json({ messages });

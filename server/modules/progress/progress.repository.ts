@@ -6,11 +6,12 @@
 import { QueryTypes } from 'sequelize';
 import type { Sequelize, Transaction } from 'sequelize';
 import type { ProgressSummaryDto } from '#shared/schemas/progress';
+import { inTransaction, isRetryable } from '../../lib/transaction';
 
 export const BOLT_RANK = { none: 0, low: 1, elevated: 2, high: 3 } as const;
 
 /** Bump when the stored ProgressDto or summary changes shape: older rows then count as missing. */
-export const PROGRESS_FORMAT = 3;
+export const PROGRESS_FORMAT = 4;
 
 export interface ProgressRow {
   plantingId: number;
@@ -94,15 +95,15 @@ export class ProgressRepository {
   }
 
   /** The garden's invalidation counter, noted before a computation reads anything. */
-  async epoch(gardenId: number): Promise<number> {
-    const [row] = await this.db.query<{ epoch: number }>('SELECT epoch FROM progress_epochs WHERE garden_id = ?', { replacements: [gardenId], type: QueryTypes.SELECT });
+  async epoch(gardenId: number, transaction?: Transaction): Promise<number> {
+    const [row] = await this.db.query<{ epoch: number }>('SELECT epoch FROM progress_epochs WHERE garden_id = ?', { replacements: [gardenId], type: QueryTypes.SELECT, transaction });
     return row?.epoch ?? 0;
   }
 
   /** Stores the answers unless the garden changed since `epoch` was noted; false when they were stale. */
   async save(gardenId: number, epoch: number, rows: ProgressRow[]): Promise<boolean> {
     if (!rows.length) return true;
-    return this.db.transaction(async (transaction) => {
+    return inTransaction(this.db, async (transaction) => {
       const [row] = await this.db.query<{ epoch: number }>('SELECT epoch FROM progress_epochs WHERE garden_id = ? FOR UPDATE', {
         replacements: [gardenId],
         type: QueryTypes.SELECT,
@@ -121,6 +122,10 @@ export class ProgressRepository {
         },
       );
       return true;
+    }).catch((err: unknown) => {
+      // A change that kept deadlocking with this write wins: the answer is served, not stored.
+      if (isRetryable(err)) return false;
+      throw err;
     });
   }
 

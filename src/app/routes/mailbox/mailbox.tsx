@@ -17,7 +17,7 @@ export function MailboxPage() {
         <h1 className="text-2xl font-bold sm:text-3xl">Test mailbox</h1>
         <p>
           This is the local test mailbox: while this copy of Heatclock sends e-mail to its built-in test server, every message is caught here
-          instead of reaching anyone. It lists the latest 100 for all accounts, newest first.
+          instead of reaching anyone. It lists the latest 100 sent to you, newest first.
         </p>
         {mailbox.isPending && <Loading label="Loading messages…" />}
         {mailbox.isError &&
