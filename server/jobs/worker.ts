@@ -9,6 +9,7 @@ import { randomUUID } from 'node:crypto';
 import { QueryTypes } from 'sequelize';
 import type { Sequelize } from 'sequelize';
 import type { Logger } from '../lib/logger';
+import { createPollingLoop } from '../lib/polling-loop';
 
 export interface GardenEvent {
   gardenId: number;
@@ -69,11 +70,6 @@ export function createWorker(opts: WorkerOptions): Worker {
   const maxBackoffMs = opts.maxBackoffMs ?? 60 * 60_000;
   const processors = new Map<string, Processor>();
   const instance = `${hostname()}:${process.pid}:${randomUUID().slice(0, 8)}`;
-  let timer: NodeJS.Timeout | null = null;
-  let running: Promise<void> | null = null;
-  let again = false;
-  let started = false;
-  let stopped = false;
 
   const register = (p: Processor) => void processors.set(p.name, p);
   opts.processors?.forEach(register);
@@ -172,50 +168,7 @@ export function createWorker(opts: WorkerOptions): Worker {
     return true;
   }
 
-  /** One loop per worker; a kick during a pass asks for one more pass instead of a second loop. */
-  function run(): Promise<void> {
-    if (running) {
-      again = true;
-      return running;
-    }
-    running = (async () => {
-      do {
-        again = false;
-        // Several loops at once hide the database round trips; claims keep them off each other's rows.
-        await Promise.all(Array.from({ length: concurrency }, async () => {
-          while (!stopped && (await processOne()));
-        }));
-      } while (again && !stopped);
-    })().finally(() => {
-      running = null;
-    });
-    return running;
-  }
-
-  const pass = () => void run().catch((err: Error) => logger.error('garden event worker failed', { error: err.message }));
-
-  return {
-    register,
-    kick() {
-      if (started && !stopped) pass();
-    },
-    start() {
-      started = true;
-      stopped = false;
-      timer ??= setInterval(pass, pollMs);
-      timer.unref();
-      pass();
-    },
-    async stop() {
-      stopped = true;
-      started = false;
-      if (timer) clearInterval(timer);
-      timer = null;
-      await running?.catch(() => undefined);
-    },
-    async drain() {
-      await running?.catch(() => undefined);
-      await run();
-    },
-  };
+  // Several steps at once hide the database round trips; claims keep them off each other's rows.
+  const loop = createPollingLoop({ step: processOne, pollMs, concurrency, logger, name: 'garden event worker' });
+  return { register, ...loop };
 }

@@ -11,6 +11,7 @@ import { randomUUID } from 'node:crypto';
 import { QueryTypes } from 'sequelize';
 import type { Sequelize } from 'sequelize';
 import type { Logger } from '../../lib/logger';
+import { createPollingLoop } from '../../lib/polling-loop';
 import type { MailTransport } from '../../integrations/mail/transport';
 
 export interface MailSender {
@@ -66,10 +67,6 @@ export function createMailSender(opts: MailSenderOptions): MailSender {
   const maxBackoffMs = opts.maxBackoffMs ?? 6 * 3_600_000;
   const maxAttempts = opts.maxAttempts ?? 5;
   const instance = `${hostname()}:${process.pid}:${randomUUID().slice(0, 8)}`;
-  let timer: NodeJS.Timeout | null = null;
-  let running: Promise<void> | null = null;
-  let again = false;
-  let stopped = false;
 
   async function claim(): Promise<Claimed | null> {
     const scope = opts.onlyGardens ? 'AND garden_id IN (?)' : '';
@@ -143,46 +140,16 @@ export function createMailSender(opts: MailSenderOptions): MailSender {
     return true;
   }
 
-  /** One loop per sender; a kick during a pass asks for one more pass instead of a second loop. */
-  function run(): Promise<void> {
-    if (running) {
-      again = true;
-      return running;
-    }
-    running = (async () => {
-      do {
-        again = false;
-        while (!stopped && (await sendOne()));
-      } while (again && !stopped);
-    })().finally(() => {
-      running = null;
-    });
-    return running;
-  }
-
-  const pass = () => void run().catch((err: Error) => logger.error('mail sender failed', { error: err.message }));
-
+  const loop = createPollingLoop({ step: sendOne, pollMs, logger, name: 'mail sender' });
   const sender: MailSender = {
-    kick() {
-      if (started.has(sender)) pass();
-    },
+    ...loop,
     start() {
-      stopped = false;
       started.add(sender);
-      timer ??= setInterval(pass, pollMs);
-      timer.unref();
-      pass();
+      loop.start();
     },
     async stop() {
-      stopped = true;
       started.delete(sender);
-      if (timer) clearInterval(timer);
-      timer = null;
-      await running?.catch(() => undefined);
-    },
-    async drain() {
-      await running?.catch(() => undefined);
-      await run();
+      await loop.stop();
     },
   };
   return sender;
