@@ -1,7 +1,7 @@
 import { DataTypes, Model } from 'sequelize';
 import type { CreationOptional, InferAttributes, InferCreationAttributes, Sequelize } from 'sequelize';
 
-/** Server-side sessions (express-session via connect-session-sequelize), so app processes stay stateless. */
+/** Server-side sessions (express-session with our SqlSessionStore), so app processes stay stateless. */
 export class Session extends Model<InferAttributes<Session>, InferCreationAttributes<Session>> {
   declare sid: string;
   declare userId: number | null;

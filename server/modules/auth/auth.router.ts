@@ -1,6 +1,6 @@
 import { Router } from 'express';
 import type { Request, Response, NextFunction } from 'express';
-import type { PassportStatic } from 'passport';
+import type { configurePassport } from './passport';
 import type { Sequelize } from 'sequelize';
 import { rateLimit, ipKeyGenerator } from 'express-rate-limit';
 import { loginSchema, registerSchema } from '#shared/schemas/auth';
@@ -26,7 +26,7 @@ function signIn(req: Request, user: UserDto): Promise<void> {
   );
 }
 
-export function authRouter(deps: { sequelize: Sequelize; config: AppConfig; passport: PassportStatic; table: RouteTableEntry[] }) {
+export function authRouter(deps: { sequelize: Sequelize; config: AppConfig; passport: ReturnType<typeof configurePassport>; table: RouteTableEntry[] }) {
   const { sequelize, config, passport, table } = deps;
   const router = Router();
 

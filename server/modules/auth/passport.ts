@@ -1,10 +1,12 @@
-import passport from 'passport';
+import type { IncomingMessage } from 'node:http';
+import { Passport } from 'passport';
 import { Strategy as LocalStrategy } from 'passport-local';
 import { loginSchema } from '#shared/schemas/auth';
 import { User } from '../../db/models';
 import { checkCredentials } from './auth.service';
 import { presentUser } from './auth.presenter';
 import type { UserDto } from '#shared/schemas/auth';
+import type { SqlSessionStore } from './session-store';
 
 declare global {
   // eslint-disable-next-line @typescript-eslint/no-namespace
@@ -15,7 +17,9 @@ declare global {
 }
 
 /** The body is validated by the route before passport sees it; this only checks the credentials. */
-export function configurePassport() {
+export function configurePassport(store: SqlSessionStore) {
+  // One authenticator per app, so each uses its own session store (tests and benches build several).
+  const passport = new Passport();
   passport.use(
     new LocalStrategy({ usernameField: 'email', passwordField: 'password', session: true }, (email, password, done) => {
       const input = loginSchema.parse({ email, password });
@@ -26,8 +30,11 @@ export function configurePassport() {
     }),
   );
   passport.serializeUser((user, done) => done(null, user.id));
-  passport.deserializeUser((id: number, done) => {
-    User.findByPk(id).then(
+  // The session read already joined the user; it is looked up again only when that was not handed over.
+  passport.deserializeUser((req: IncomingMessage, id: number, done: (err: unknown, user?: Express.User | false) => void) => {
+    const joined = store.userFor((req as { sessionID?: string }).sessionID ?? '', id);
+    if (joined !== undefined) return done(null, joined ?? false);
+    User.findByPk(id, { attributes: ['id', 'email', 'name'], raw: true }).then(
       (user) => done(null, user ? presentUser(user) : false),
       (err) => done(err),
     );

@@ -1,8 +1,8 @@
 import session from 'express-session';
-import ConnectSessionSequelize from 'connect-session-sequelize';
 import type { RequestHandler } from 'express';
 import type { Sequelize } from 'sequelize';
 import type { AppConfig } from '../../config';
+import { SqlSessionStore } from './session-store';
 
 declare module 'express-session' {
   interface SessionData {
@@ -13,20 +13,12 @@ declare module 'express-session' {
 
 export const SESSION_COOKIE = 'heatclock.sid';
 
+export function createSessionStore(sequelize: Sequelize, config: AppConfig) {
+  return new SqlSessionStore(sequelize, { sweepEveryMs: config.env === 'test' ? 0 : 15 * 60_000 });
+}
+
 /** Sessions live in MariaDB (never in memory) so any app instance can serve any request. */
-export function sessionMiddleware(sequelize: Sequelize, config: AppConfig): RequestHandler {
-  const SequelizeStore = ConnectSessionSequelize(session.Store);
-  const store = new SequelizeStore({
-    db: sequelize,
-    table: 'Session',
-    checkExpirationInterval: config.env === 'test' ? 0 : 15 * 60_000,
-    expiration: config.sessionIdleMs,
-    extendDefaultFields: (defaults: { data: string; expires: Date }, s: { passport?: { user?: number } }) => ({
-      data: defaults.data,
-      expires: defaults.expires,
-      userId: s.passport?.user ?? null,
-    }),
-  });
+export function sessionMiddleware(store: SqlSessionStore, config: AppConfig): RequestHandler {
   return session({
     name: SESSION_COOKIE,
     secret: config.sessionSecret,

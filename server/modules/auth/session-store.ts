@@ -1,0 +1,154 @@
+/**
+ * The session store: rows in MariaDB (never in memory), read with one primary-key query that
+ * also brings the signed-in user, written only when the session changed or its expiry has to move.
+ *
+ * Why our own and not connect-session-sequelize: that store built a model instance per read, did
+ * not check `expires` on read, and rewrote the row on every request (express-session touches with
+ * `rolling`). Here a plain read costs one SELECT; the expiry is pushed forward at most every
+ * TOUCH_EVERY_MS, so a session idle for the whole idle time expires within that margin of the
+ * cookie. Nothing about validity is cached between requests: a session deleted on any instance
+ * (sign-out, revocation) is refused on the very next request everywhere.
+ */
+import session from 'express-session';
+import type { SessionData } from 'express-session';
+import { QueryTypes } from 'sequelize';
+import type { Sequelize } from 'sequelize';
+import type { UserDto } from '#shared/schemas/auth';
+
+/** The expiry is written again only once it would move by more than this. */
+export const TOUCH_EVERY_MS = 5 * 60_000;
+
+interface Loaded {
+  expiresMs: number;
+  user: UserDto | null;
+}
+
+type Callback<T = void> = (err?: unknown, value?: T) => void;
+
+interface Row {
+  data: string | null;
+  expires: Date | string;
+  userId: number | null;
+  email: string | null;
+  name: string | null;
+}
+
+/** Bounds the hand-over from `get` to `touch`/`userFor` when a request never gets that far. */
+const MAX_HANDOVERS = 10_000;
+
+export class SqlSessionStore extends session.Store {
+  /**
+   * What the latest read of each session found: its stored expiry and user, handed to the same
+   * request's touch and deserialisation. Not a cache of validity: every request reads its session
+   * row first, and a session that is gone is refused whatever this map holds.
+   */
+  private readonly loaded = new Map<string, Loaded>();
+  private sweeper: NodeJS.Timeout | null = null;
+
+  constructor(
+    private readonly db: Sequelize,
+    opts: { sweepEveryMs?: number } = {},
+  ) {
+    super();
+    if (opts.sweepEveryMs) {
+      this.sweeper = setInterval(() => void this.sweep().catch(() => undefined), opts.sweepEveryMs);
+      this.sweeper.unref();
+    }
+  }
+
+  override get(sid: string, cb: Callback<SessionData | null>) {
+    this.db
+      .query<Row>(
+        `SELECT s.data, s.expires, u.id AS userId, u.email, u.name
+           FROM sessions s LEFT JOIN users u ON u.id = s.user_id
+          WHERE s.sid = ? AND s.expires > ?`,
+        { replacements: [sid, new Date()], type: QueryTypes.SELECT },
+      )
+      .then(([row]) => {
+        if (!row?.data) {
+          this.loaded.delete(sid);
+          return cb(null, null);
+        }
+        if (this.loaded.size >= MAX_HANDOVERS) this.loaded.clear();
+        const user = row.userId === null ? null : { id: row.userId, email: row.email!, name: row.name! };
+        this.loaded.set(sid, { expiresMs: new Date(row.expires).getTime(), user });
+        cb(null, JSON.parse(row.data) as SessionData);
+      })
+      .catch((err: unknown) => cb(err));
+  }
+
+  override set(sid: string, sess: SessionData, cb?: Callback) {
+    const expires = expiryOf(sess);
+    const now = new Date();
+    this.db
+      .query(
+        `INSERT INTO sessions (sid, user_id, expires, data, created_at, updated_at) VALUES (?, ?, ?, ?, ?, ?)
+         ON DUPLICATE KEY UPDATE user_id = VALUES(user_id), expires = VALUES(expires), data = VALUES(data), updated_at = VALUES(updated_at)`,
+        { replacements: [sid, sess.passport?.user ?? null, expires, JSON.stringify(sess), now, now] },
+      )
+      .then(() => {
+        this.loaded.delete(sid);
+        cb?.();
+      })
+      .catch((err: unknown) => cb?.(err));
+  }
+
+  /** Moves the expiry only when it would move by more than TOUCH_EVERY_MS; never revives a removed row. */
+  override touch(sid: string, sess: SessionData, cb?: Callback) {
+    const expires = expiryOf(sess);
+    const found = this.loaded.get(sid);
+    if (found && expires.getTime() - found.expiresMs < TOUCH_EVERY_MS) return cb?.();
+    this.db
+      .query('UPDATE sessions SET expires = ?, updated_at = ? WHERE sid = ? AND expires < ?', {
+        replacements: [expires, new Date(), sid, new Date(expires.getTime() - TOUCH_EVERY_MS)],
+      })
+      .then(() => {
+        // Concurrent requests of the same session need not write it again.
+        if (found) found.expiresMs = Math.max(found.expiresMs, expires.getTime());
+        cb?.();
+      })
+      .catch((err: unknown) => cb?.(err));
+  }
+
+  override destroy(sid: string, cb?: Callback) {
+    this.loaded.delete(sid);
+    this.db
+      .query('DELETE FROM sessions WHERE sid = ?', { replacements: [sid] })
+      .then(() => cb?.())
+      .catch((err: unknown) => cb?.(err));
+  }
+
+  /**
+   * The user this request's session read found, when it is the one passport asks for; null when
+   * the read was not handed over (a concurrent request of the same session took it), and the
+   * caller looks the user up itself.
+   */
+  userFor(sid: string, userId: number): UserDto | null | undefined {
+    const found = this.loaded.get(sid);
+    if (!found || found.user?.id !== userId) return undefined;
+    return found.user;
+  }
+
+  /** Ends every session of a user (optionally but one), on every instance at once. */
+  async destroyForUser(userId: number, exceptSid?: string): Promise<number> {
+    const [, meta] = await this.db.query(`DELETE FROM sessions WHERE user_id = ?${exceptSid ? ' AND sid <> ?' : ''}`, {
+      replacements: exceptSid ? [userId, exceptSid] : [userId],
+    });
+    return (meta as { affectedRows?: number })?.affectedRows ?? 0;
+  }
+
+  /** Removes expired rows (reads already ignore them). */
+  async sweep(): Promise<void> {
+    await this.db.query('DELETE FROM sessions WHERE expires <= ?', { replacements: [new Date()] });
+  }
+
+  close() {
+    if (this.sweeper) clearInterval(this.sweeper);
+    this.sweeper = null;
+  }
+}
+
+function expiryOf(sess: SessionData): Date {
+  const e = sess.cookie?.expires;
+  return e ? new Date(e) : new Date(Date.now() + (sess.cookie?.originalMaxAge ?? 0));
+}

@@ -1,0 +1,95 @@
+import { describe, expect, it, vi } from 'vitest';
+import request from 'supertest';
+import { testApp, agent } from '../helpers/test-app';
+import { createUser, signIn } from '../helpers/factories';
+import { Session } from '../../server/db/models';
+import { TOUCH_EVERY_MS } from '../../server/modules/auth/session-store';
+
+const app = testApp();
+
+async function rowOf(userId: number) {
+  const s = await Session.findOne({ where: { userId }, raw: true });
+  if (!s) throw new Error('no session row');
+  return s;
+}
+
+/** Counts the statements that write the sessions table while `run` runs (this file's app only). */
+async function sessionWritesDuring(run: () => Promise<void>): Promise<number> {
+  const db = Session.sequelize!;
+  const spy = vi.spyOn(db, 'query');
+  try {
+    await run();
+    return spy.mock.calls.filter(([sql]) => /^\s*(INSERT|UPDATE|DELETE|REPLACE)\b[\s\S]*\bsessions\b/i.test(String(sql))).length;
+  } finally {
+    spy.mockRestore();
+  }
+}
+
+function cookieOf(res: { headers: Record<string, unknown> }) {
+  const cookies = ([] as string[]).concat((res.headers['set-cookie'] as string[] | undefined) ?? []);
+  return cookies.find((c) => c.startsWith('heatclock.sid='))!.split(';')[0];
+}
+
+describe('sessions', () => {
+  it('when a signed-in grower makes plain reads, then the session row is not rewritten', async () => {
+    const user = await createUser();
+    const a = agent(app);
+    await signIn(a, user.email);
+    const before = await rowOf(user.id);
+    const writes = await sessionWritesDuring(async () => {
+      for (let i = 0; i < 15; i++) {
+        const res = await a.get(i % 2 ? '/api/auth/me' : '/api/gardens');
+        expect(res.status).toBe(200);
+      }
+    });
+    expect(writes).toBe(0);
+    const after = await rowOf(user.id);
+    expect(after.updatedAt).toEqual(before.updatedAt);
+    expect(after.expires).toEqual(before.expires);
+    expect(after.data).toBe(before.data);
+  });
+
+  it('when the stored expiry is older than the touch interval, then one read moves it forward once', async () => {
+    const user = await createUser();
+    const a = agent(app);
+    await signIn(a, user.email);
+    const aged = new Date(Date.now() + 60_000);
+    await Session.update({ expires: aged }, { where: { userId: user.id } });
+    const writes = await sessionWritesDuring(async () => {
+      for (let i = 0; i < 5; i++) expect((await a.get('/api/auth/me')).status).toBe(200);
+    });
+    expect(writes).toBe(1);
+    const moved = await rowOf(user.id);
+    expect(moved.expires!.getTime()).toBeGreaterThan(aged.getTime() + TOUCH_EVERY_MS);
+  });
+
+  it('when a session is signed out on another instance, then this instance refuses it on the very next request', async () => {
+    const other = testApp();
+    const user = await createUser();
+    const a = agent(app);
+    const cookie = cookieOf(await signIn(a, user.email));
+    expect((await a.get('/api/auth/me')).status).toBe(200);
+    const out = await request(other).post('/api/auth/logout').set('Cookie', cookie).set('X-Requested-With', 'heatclock');
+    expect(out.status).toBe(204);
+    const next = await a.get('/api/auth/me');
+    expect(next.status).toBe(401);
+    expect(next.body.error.code).toBe('unauthenticated');
+  });
+
+  it('when a session row is revoked directly (all sessions of the user), then the next request is refused', async () => {
+    const user = await createUser();
+    const a = agent(app);
+    await signIn(a, user.email);
+    expect((await a.get('/api/gardens')).status).toBe(200);
+    await app.locals.sessions.destroyForUser(user.id);
+    expect((await a.get('/api/gardens')).status).toBe(401);
+  });
+
+  it('when a session has expired in the store, then it is refused even if the cookie is still sent', async () => {
+    const user = await createUser();
+    const a = agent(app);
+    await signIn(a, user.email);
+    await Session.update({ expires: new Date(Date.now() - 1000) }, { where: { userId: user.id } });
+    expect((await a.get('/api/auth/me')).status).toBe(401);
+  });
+});
