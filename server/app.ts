@@ -2,6 +2,8 @@ import path from 'node:path';
 import { existsSync } from 'node:fs';
 import express from 'express';
 import helmet from 'helmet';
+import compression from 'compression';
+import expressStaticGzip from 'express-static-gzip';
 import type { Sequelize } from 'sequelize';
 import type { AppConfig } from './config';
 import { projectRoot } from './config';
@@ -40,6 +42,8 @@ import { createMailSender, mailQueued } from './modules/notifications/mail-sende
 import { enqueueAlertMail } from './modules/notifications/alert-mail';
 import { notificationsRouter } from './modules/notifications/notifications.router';
 import { unsubscribeRouter } from './modules/notifications/unsubscribe.router';
+
+const IMMUTABLE = 'public, max-age=31536000, immutable';
 
 export interface AppDeps {
   config: AppConfig;
@@ -118,6 +122,10 @@ export function createApp({ config, sequelize, logger = createLogger(config.logL
     }),
   );
 
+  // API answers and the page shell are compressed as they are sent (brotli quality 4 or gzip);
+  // built assets come pre-compressed from the static handler below, so they are skipped here.
+  app.use(compression({ threshold: 1024, filter: (req, res) => !req.path.startsWith('/assets/') && compression.filter(req, res) }));
+
   const api = express.Router();
   // Only /api requests go through sessions, body parsing and CSRF checks: the page shell and its
   // assets load without touching the database, so an outage can still be shown to the grower.
@@ -154,7 +162,21 @@ export function createApp({ config, sequelize, logger = createLogger(config.logL
 
   const dir = clientDir === undefined ? path.join(projectRoot, 'dist', 'client') : clientDir;
   if (dir && existsSync(path.join(dir, 'index.html'))) {
-    app.use(express.static(dir, { index: false, maxAge: '1h', immutable: false }));
+    const assets = path.join(dir, 'assets') + path.sep;
+    // The build writes .br and .gz beside each script and stylesheet; they are sent as they are.
+    app.use(
+      expressStaticGzip(dir, {
+        enableBrotli: true,
+        orderPreference: ['br', 'gzip'],
+        index: false,
+        serveStatic: {
+          index: false,
+          // Files under assets/ carry a content hash in their name: they never change. Anything
+          // else (the page shell, icons) is checked again each time.
+          setHeaders: (res, file) => res.setHeader('Cache-Control', file.startsWith(assets) ? IMMUTABLE : 'no-cache'),
+        },
+      }),
+    );
     app.get('/{*splat}', (_req, res) => {
       res.set('Cache-Control', 'no-cache');
       res.sendFile(path.join(dir, 'index.html'));

@@ -13,6 +13,9 @@ export const BOLT_RANK = { none: 0, low: 1, elevated: 2, high: 3 } as const;
 /** Bump when the stored ProgressDto or summary changes shape: older rows then count as missing. */
 export const PROGRESS_FORMAT = 4;
 
+/** Rows per INSERT when storing answers. */
+const SAVE_SLICE = 250;
+
 export interface ProgressRow {
   plantingId: number;
   gardenId: number;
@@ -110,17 +113,21 @@ export class ProgressRepository {
         transaction,
       });
       if ((row?.epoch ?? 0) !== epoch) return false;
-      const values = rows.map(() => `(?, ?, ?, ?, ?, ?, ?, ?, UTC_TIMESTAMP(3), ${PROGRESS_FORMAT})`).join(', ');
-      await this.db.query(
-        `INSERT INTO planting_progress (planting_id, garden_id, computed_for, percent, ready_on, bolt_rank, summary_json, body_json, computed_at, format)
-         VALUES ${values}
-         ON DUPLICATE KEY UPDATE format = VALUES(format), computed_for = VALUES(computed_for), percent = VALUES(percent), ready_on = VALUES(ready_on),
-           bolt_rank = VALUES(bolt_rank), summary_json = VALUES(summary_json), body_json = VALUES(body_json), computed_at = VALUES(computed_at)`,
-        {
-          replacements: rows.flatMap((r) => [r.plantingId, r.gardenId, r.computedFor, r.percent, r.readyOn, r.boltRank, JSON.stringify(r.summary), r.body]),
-          transaction,
-        },
-      );
+      // In slices: a garden's whole answer (5,000 plantings × ~8 kB) would outgrow one packet.
+      for (let i = 0; i < rows.length; i += SAVE_SLICE) {
+        const slice = rows.slice(i, i + SAVE_SLICE);
+        const values = slice.map(() => `(?, ?, ?, ?, ?, ?, ?, ?, UTC_TIMESTAMP(3), ${PROGRESS_FORMAT})`).join(', ');
+        await this.db.query(
+          `INSERT INTO planting_progress (planting_id, garden_id, computed_for, percent, ready_on, bolt_rank, summary_json, body_json, computed_at, format)
+           VALUES ${values}
+           ON DUPLICATE KEY UPDATE format = VALUES(format), computed_for = VALUES(computed_for), percent = VALUES(percent), ready_on = VALUES(ready_on),
+             bolt_rank = VALUES(bolt_rank), summary_json = VALUES(summary_json), body_json = VALUES(body_json), computed_at = VALUES(computed_at)`,
+          {
+            replacements: slice.flatMap((r) => [r.plantingId, r.gardenId, r.computedFor, r.percent, r.readyOn, r.boltRank, JSON.stringify(r.summary), r.body]),
+            transaction,
+          },
+        );
+      }
       return true;
     }).catch((err: unknown) => {
       // A change that kept deadlocking with this write wins: the answer is served, not stored.
