@@ -1,14 +1,18 @@
 /**
  * npm run bench:api — signed-in reads under load against the production build on loopback.
- * Seeds the invented demo (and a copy of its in-season garden holding 200 growing plantings) into
- * the heatclock_bench database with weather from the local fake, starts the server as `npm start`
- * does (NODE_ENV=production, built client), signs in as the demo grower and runs autocannon at 50
- * connections for BENCH_SECONDS (30) per endpoint, /api/health in the same run for the ratio.
- * Prints a table and appends it to docs/benchmarks.md.
+ * Seeds the invented demo (and a generated copy of its in-season garden holding 5,000 growing
+ * plantings) into the heatclock_bench database with weather from the local fake, starts the server
+ * as `npm start` does (NODE_ENV=production, built client), signs in as the demo grower and runs
+ * autocannon at 50 connections for BENCH_SECONDS (30) per endpoint, BENCH_RUNS (3) times, with
+ * /api/health in every run for the ratio; then 200 connections for 20 s to see the overload shed,
+ * then the client figures in Chromium (scripts/bench-client.ts). Prints the tables and appends
+ * them to docs/benchmarks.md.
  */
 import { spawn } from 'node:child_process';
-import { appendFileSync, existsSync, mkdirSync } from 'node:fs';
+import type { ChildProcess } from 'node:child_process';
+import { appendFileSync, existsSync, mkdirSync, readFileSync } from 'node:fs';
 import { createServer } from 'node:net';
+import os from 'node:os';
 import path from 'node:path';
 import autocannon from 'autocannon';
 import { loadConfig, projectRoot } from '../server/config';
@@ -19,13 +23,15 @@ import { seedDemo, DEMO_GARDENS } from '../server/db/seeders/demo';
 import { inSeason } from '../server/db/seeders/demo-records';
 import { createLogger } from '../server/lib/logger';
 import { localDate } from '../server/lib/local-date';
-import { createWeatherService } from '../server/app';
+import { createApp, createWeatherService } from '../server/app';
 import { addDays } from '../shared/thermal/dates';
 
 const SECONDS = Number(process.env.BENCH_SECONDS ?? 30);
+const RUNS = Number(process.env.BENCH_RUNS ?? 3);
 const CONNECTIONS = 50;
 const DB = process.env.BENCH_DB_NAME ?? 'heatclock_bench';
-const BIG = 'Bench garden with 200 plantings';
+const BIG_COUNT = 5000;
+const BIG = `Bench garden with ${BIG_COUNT} plantings`;
 
 async function freePort(): Promise<number> {
   return new Promise((resolve) => {
@@ -48,17 +54,24 @@ async function seed() {
   for (const u of users) await Membership.findOrCreate({ where: { userId: u.id, gardenId: big.id }, defaults: { userId: u.id, gardenId: big.id, role: 'grower' } });
   if ((await Planting.count({ where: { gardenId: big.id } })) === 0) {
     const varieties = await Variety.findAll({ where: { gardenId: home.id } });
-    const bed = await Bed.create({ gardenId: big.id, name: 'Long row', kind: 'row', lengthM: 200, widthM: 1, notes: '' });
+    // 50 beds of 100 plantings: the unique key (variety, bed, method, start) allows it.
+    const beds = await Bed.bulkCreate(Array.from({ length: 50 }, (_, i) => ({ gardenId: big.id, name: `Row ${i + 1}`, kind: 'row' as const, lengthM: 30, widthM: 1, notes: '' })));
     const own: Variety[] = [];
     for (const v of varieties) own.push(await Variety.create({ ...v.get({ plain: true }), id: undefined, gardenId: big.id }));
     const today = localDate(big.timeZone);
-    await Planting.bulkCreate(
-      Array.from({ length: 200 }, (_, i) => ({
-        gardenId: big.id, bedId: bed.id, varietyId: own[i % own.length].id, seedLotId: null, method: 'direct-sow' as const, status: 'growing' as const,
-        quantity: 10, quantityUnit: 'plants' as const, sownOn: addDays(today, -(5 + (i % 70))), emergedOn: null, thinnedOn: null, transplantedOn: null,
-        firstHarvestOn: null, lastHarvestOn: null, boltedOn: null, notes: '', createdBy: null,
-      })),
-    );
+    for (let chunk = 0; chunk < BIG_COUNT; chunk += 1000) {
+      await Planting.bulkCreate(
+        Array.from({ length: 1000 }, (_, k) => {
+          const i = chunk + k;
+          return {
+            gardenId: big.id, bedId: beds[i % beds.length].id, varietyId: own[Math.floor(i / beds.length) % own.length].id, seedLotId: null,
+            method: 'direct-sow' as const, status: 'growing' as const, quantity: 10, quantityUnit: 'plants' as const,
+            sownOn: addDays(today, -(5 + (Math.floor(i / (beds.length * own.length)) % 70))), emergedOn: null, thinnedOn: null, transplantedOn: null,
+            firstHarvestOn: null, lastHarvestOn: null, boltedOn: null, notes: '', createdBy: null,
+          };
+        }),
+      );
+    }
   }
   const fake = (await import('../fixtures/weather/server')).startFakeWeather('error');
   const weather = createWeatherService({ ...base, db: { ...base.db, database: DB } }, sequelize, createLogger('warn'));
@@ -68,12 +81,17 @@ async function seed() {
   }
   await weather.idle();
   fake.close();
+  // The generated garden's alerts, as the nightly evaluation would leave them.
+  const app = createApp({ config: { ...base, db: { ...base.db, database: DB } }, sequelize, clientDir: null, weather, logger: createLogger('warn') });
+  const t = performance.now();
+  await app.locals.alerts.evaluate(big.id);
+  const evaluateBig = Math.round(performance.now() - t);
   const planting = await Planting.findOne({ where: { gardenId: home.id, status: 'growing' }, order: [['id', 'ASC']] });
   // Start cold: no stored progress and no pending weather events for the worker to warm it with.
   await sequelize.query('DELETE FROM garden_events');
   await sequelize.query('DELETE FROM planting_progress');
   await sequelize.close();
-  return { home: home.id, big: big.id, planting: planting!.id };
+  return { home: home.id, big: big.id, planting: planting!.id, today: localDate(home.timeZone), evaluateBig };
 }
 
 async function startServer(port: number) {
@@ -89,6 +107,12 @@ async function startServer(port: number) {
   return child;
 }
 
+/** Resident memory of the server process, MB. */
+function rssOf(child: ChildProcess): number {
+  const status = readFileSync(`/proc/${child.pid}/status`, 'utf8');
+  return Math.round(Number(/VmRSS:\s+(\d+)/.exec(status)![1]) / 1024);
+}
+
 async function signIn(base: string): Promise<string> {
   const res = await fetch(`${base}/api/auth/login`, {
     method: 'POST',
@@ -99,21 +123,27 @@ async function signIn(base: string): Promise<string> {
   return res.headers.get('set-cookie')!.split(';')[0];
 }
 
-interface Row { name: string; rps: number; p50: number; p99: number; errors: number }
+interface Sample { rps: number; p50: number; p99: number; errors: number }
 
-async function load(name: string, url: string, cookie: string): Promise<Row> {
-  const r = await autocannon({ url, connections: CONNECTIONS, duration: SECONDS, headers: { cookie } });
-  const errors = r.errors + r.timeouts + r.non2xx;
-  return { name, rps: Math.round(r.requests.average), p50: r.latency.p50, p99: r.latency.p99, errors };
+async function load(url: string, cookie: string, connections = CONNECTIONS, duration = SECONDS) {
+  return autocannon({ url, connections, duration, headers: { cookie } });
 }
 
-async function timeOnce(url: string, cookie: string): Promise<number> {
+async function sample(url: string, cookie: string): Promise<Sample> {
+  const r = await load(url, cookie);
+  return { rps: Math.round(r.requests.average), p50: r.latency.p50, p99: r.latency.p99, errors: r.errors + r.timeouts + r.non2xx };
+}
+
+async function timeOnce(url: string, cookie: string): Promise<{ ms: number; bytes: number }> {
   const t = performance.now();
   const res = await fetch(url, { headers: { cookie } });
-  await res.arrayBuffer();
+  const body = await res.arrayBuffer();
   if (res.status !== 200) throw new Error(`${url}: ${res.status}`);
-  return Math.round(performance.now() - t);
+  return { ms: Math.round(performance.now() - t), bytes: body.byteLength };
 }
+
+const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)];
+const spread = (xs: number[]) => (xs.length > 1 ? ` (${Math.min(...xs)}–${Math.max(...xs)})` : '');
 
 if (!existsSync(path.join(projectRoot, 'dist', 'client', 'index.html'))) throw new Error('Build the client first: npx vite build');
 const ids = await seed();
@@ -122,25 +152,67 @@ const server = await startServer(port);
 try {
   const base = `http://127.0.0.1:${port}`;
   const cookie = await signIn(base);
-  const progress = `${base}/api/gardens/${ids.home}/plantings/${ids.planting}/progress`;
-  const today = `${base}/api/gardens/${ids.big}/today`;
-  // Cold: the first read of the day computes and stores every growing planting's progress.
-  const coldToday = await timeOnce(today, cookie);
-  const coldProgress = await timeOnce(progress, cookie);
-  const rows = [
-    await load('/api/health', `${base}/api/health`, cookie),
-    await load('progress of a demo planting', progress, cookie),
-    // The floor every signed-in read pays today: session load and touch, user, nothing else.
-    await load('/api/auth/me (session only)', `${base}/api/auth/me`, cookie),
-    await load('Today, 200 growing plantings', today, cookie),
+  const g = (id: number) => `${base}/api/gardens/${id}`;
+  const endpoints: { name: string; url: string; signedIn: boolean }[] = [
+    { name: '/api/health', url: `${base}/api/health`, signedIn: false },
+    { name: '/api/auth/me', url: `${base}/api/auth/me`, signedIn: true },
+    { name: '/api/gardens', url: `${base}/api/gardens`, signedIn: true },
+    { name: 'plantings list (demo garden)', url: `${g(ids.home)}/plantings`, signedIn: true },
+    { name: 'weather, 45 days (demo garden)', url: `${g(ids.home)}/weather?from=${addDays(ids.today, -37)}&to=${addDays(ids.today, 7)}`, signedIn: true },
+    { name: 'varieties (demo garden)', url: `${g(ids.home)}/varieties`, signedIn: true },
+    { name: 'seed lots (demo garden)', url: `${g(ids.home)}/seed-lots`, signedIn: true },
+    { name: 'progress of a demo planting', url: `${g(ids.home)}/plantings/${ids.planting}/progress`, signedIn: true },
+    { name: 'Today (demo garden)', url: `${g(ids.home)}/today`, signedIn: true },
+    { name: `plantings list (${BIG_COUNT} plantings)`, url: `${g(ids.big)}/plantings`, signedIn: true },
+    { name: `Today (${BIG_COUNT} plantings)`, url: `${g(ids.big)}/today`, signedIn: true },
   ];
-  const ratio = (rows[1].rps / rows[0].rps).toFixed(2);
+  // Cold: the first read of the day computes and stores every growing planting's progress.
+  const cold = {
+    todayDemo: await timeOnce(`${g(ids.home)}/today`, cookie),
+    todayBig: await timeOnce(`${g(ids.big)}/today`, cookie),
+    progress: await timeOnce(`${g(ids.home)}/plantings/${ids.planting}/progress`, cookie),
+  };
+  const sizes = new Map<string, number>();
+  for (const e of endpoints) sizes.set(e.name, (await timeOnce(e.url, cookie)).bytes);
+  const samples = new Map<string, Sample[]>(endpoints.map((e) => [e.name, []]));
+  for (let run = 0; run < RUNS; run++) {
+    for (const e of endpoints) {
+      samples.get(e.name)!.push(await sample(e.url, cookie));
+      process.stdout.write('.');
+    }
+  }
+  console.log();
+  const healthRps = median(samples.get('/api/health')!.map((s) => s.rps));
+  const row = (e: (typeof endpoints)[number]) => {
+    const xs = samples.get(e.name)!;
+    const rps = xs.map((s) => s.rps);
+    const p50 = xs.map((s) => s.p50);
+    const p99 = xs.map((s) => s.p99);
+    const errors = xs.reduce((n, s) => n + s.errors, 0);
+    return `| ${e.name} | ${median(rps)}${spread(rps)} | ${median(p50)}${spread(p50)} | ${median(p99)}${spread(p99)} | ${errors} | ${(median(rps) / healthRps).toFixed(2)} | ${(sizes.get(e.name)! / 1024).toFixed(1)} |`;
+  };
   const table = [
-    `| endpoint | req/s | p50 ms | p99 ms | errors |`,
-    `|---|---|---|---|---|`,
-    ...rows.map((r) => `| ${r.name} | ${r.rps} | ${r.p50} | ${r.p99} | ${r.errors} |`),
+    '| endpoint | req/s | p50 ms | p99 ms | errors | × health | body KiB |',
+    '|---|---|---|---|---|---|---|',
+    ...endpoints.map(row),
   ].join('\n');
-  const report = `\n## bench:api — ${new Date().toISOString().slice(0, 16).replace('T', ' ')} UTC\n\n${CONNECTIONS} connections, ${SECONDS} s each, production build, one Node process, signed in as the demo grower.\n\n${table}\n\nRatio progress / health: ${ratio}. First (uncached) read: Today for 200 plantings ${coldToday} ms, one planting's progress ${coldProgress} ms.\n`;
+
+  // Overload: 200 connections on the heaviest read; only 2xx or 503 may come back.
+  const before = rssOf(server);
+  const over = await load(`${g(ids.home)}/today`, cookie, 200, 20);
+  const after = rssOf(server);
+  const codes = Object.entries(over.statusCodeStats ?? {}).map(([code, v]) => `${code}: ${(v as { count: number }).count}`).join(', ');
+  const overload = `200 connections × 20 s on Today (demo garden): ${Math.round(over.requests.average)} req/s, p50 ${over.latency.p50} ms, p99 ${over.latency.p99} ms; status codes ${codes}; socket errors ${over.errors}, timeouts ${over.timeouts}; server RSS ${before} MB before, ${after} MB after.`;
+
+  let client = '';
+  const clientBench = path.join(projectRoot, 'scripts', 'bench-client.ts');
+  if (existsSync(clientBench)) {
+    const { benchClient, clientTable } = (await import(clientBench)) as { benchClient: (b: string) => Promise<unknown>; clientTable: (r: unknown) => string };
+    client = `\n### Client (headless Chromium, loopback)\n\n${clientTable(await benchClient(base))}\n`;
+  }
+
+  const machine = `${os.cpus().length} × ${os.cpus()[0]?.model ?? 'CPU'}, ${Math.round(os.totalmem() / 2 ** 30)} GiB, Node ${process.version}`;
+  const report = `\n## bench:api — ${new Date().toISOString().slice(0, 16).replace('T', ' ')} UTC\n\n${machine}. ${CONNECTIONS} connections, ${SECONDS} s per endpoint, median of ${RUNS} runs (min–max), production build, one Node process, signed in as the demo grower (health unauthenticated).\n\n${table}\n\nFirst (uncached) reads: Today of the demo garden ${cold.todayDemo.ms} ms, Today of the ${BIG_COUNT}-planting garden ${cold.todayBig.ms} ms, one planting's progress ${cold.progress.ms} ms; evaluating the ${BIG_COUNT}-planting garden's alerts ${ids.evaluateBig} ms.\n\n${overload}\n${client}`;
   console.log(report);
   mkdirSync(path.join(projectRoot, 'docs'), { recursive: true });
   appendFileSync(path.join(projectRoot, 'docs', 'benchmarks.md'), report);

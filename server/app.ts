@@ -11,6 +11,8 @@ import { AppError, errorHandler } from './errors';
 import { createLogger } from './lib/logger';
 import type { Logger } from './lib/logger';
 import { csrfGuard, noStore, requestId } from './lib/request-guards';
+import { overloadShed } from './lib/overload';
+import { ReadCache } from './lib/read-cache';
 import type { RouteTableEntry } from './lib/routes';
 import { absoluteTimeout, createSessionStore, sessionMiddleware } from './modules/auth/session';
 import { configurePassport } from './modules/auth/passport';
@@ -94,6 +96,9 @@ export function createApp({ config, sequelize, logger = createLogger(config.logL
   app.locals.mailSender = createMailSender({ sequelize, transport: mailTransport ?? createMailTransport(config.mail), logger });
   // New and worsened alerts are written to the mail outbox in the evaluation's own transaction.
   alerts.mail = { enqueue: enqueueAlertMail, afterCommit: mailQueued };
+  // Garden reads keyed by the garden's change counters (read-cache.ts).
+  const readCache = new ReadCache();
+  app.locals.readCache = readCache;
   const routes: RouteTableEntry[] = [];
   app.locals.routes = routes;
   app.disable('x-powered-by');
@@ -133,6 +138,10 @@ export function createApp({ config, sequelize, logger = createLogger(config.logL
   api.use(noStore);
   // Health and readiness must answer even when sessions (in MariaDB) cannot load.
   api.use(healthRouter(sequelize, routes));
+  // Past capacity, refuse quickly (503 + Retry-After) rather than let every answer slow down.
+  const shed = overloadShed(config.overload);
+  app.locals.overload = shed;
+  api.use(shed);
   api.use(express.json({ limit: '100kb', strict: true, type: 'application/json' }));
   api.use(unsubscribeRouter({ sequelize, table: routes }));
   api.use(csrfGuard);
@@ -145,14 +154,14 @@ export function createApp({ config, sequelize, logger = createLogger(config.logL
   api.use(passport.session());
   api.use(authRouter({ sequelize, config, passport, table: routes }));
   api.use(gardensRouter({ table: routes, weather: weatherService }));
-  api.use(weatherRouter({ sequelize, weather: weatherService, table: routes, evaluate: (gardenId) => alerts.evaluate(gardenId) }));
+  api.use(weatherRouter({ sequelize, weather: weatherService, table: routes, cache: readCache, evaluate: (gardenId) => alerts.evaluate(gardenId) }));
   api.use(bedsRouter(routes));
   api.use(cropsRouter(routes));
-  api.use(varietiesRouter(routes, weatherService));
-  api.use(seedLotsRouter(routes));
-  api.use(progressRouter(progress, alerts, routes));
+  api.use(varietiesRouter(routes, weatherService, readCache));
+  api.use(seedLotsRouter(routes, readCache));
+  api.use(progressRouter(progress, alerts, routes, readCache));
   api.use(alertsRouter(alerts, routes));
-  api.use(plantingsRouter(config, routes, progress));
+  api.use(plantingsRouter(config, routes, progress, readCache));
   api.use(photosRouter(config, routes));
   api.use(notificationsRouter({ sequelize, table: routes, mailIsLocalFake: config.mail.mode === 'fake' }));
   api.use('/api', () => {

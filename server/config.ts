@@ -1,3 +1,4 @@
+import type { OverloadSettings } from './lib/overload';
 import { existsSync, readFileSync, writeFileSync, mkdirSync } from 'node:fs';
 import { randomBytes } from 'node:crypto';
 import path from 'node:path';
@@ -45,6 +46,9 @@ const envSchema = z.object({
   MAIL_FROM: z.string().min(3).default('Heatclock <alerts@heatclock.localhost>'),
   MAIL_FAKE_PORT: z.coerce.number().int().min(0).max(65535).default(0),
   APP_URL: z.string().url().optional(),
+  MAX_IN_FLIGHT: z.coerce.number().int().min(1).max(10_000).default(64),
+  MAX_QUEUED: z.coerce.number().int().min(0).max(100_000).default(256),
+  MAX_QUEUE_WAIT_MS: z.coerce.number().int().min(1).default(3000),
 });
 
 export interface DbConfig {
@@ -85,6 +89,8 @@ export interface AppConfig {
   };
   scheduler: boolean;
   mail: MailConfig;
+  /** API requests run at most maxInFlight at once; maxQueue more wait up to maxWaitMs; the rest get 503. */
+  overload: OverloadSettings;
 }
 
 export interface MailConfig {
@@ -201,5 +207,6 @@ export function loadConfig(source: NodeJS.ProcessEnv = process.env): AppConfig {
     },
     scheduler: e.SCHEDULER === 'on' && e.NODE_ENV !== 'test',
     mail: mailConfig(e),
+    overload: { maxInFlight: e.MAX_IN_FLIGHT, maxQueue: e.MAX_QUEUED, maxWaitMs: e.MAX_QUEUE_WAIT_MS, retryAfterS: 2 },
   };
 }

@@ -1,5 +1,7 @@
 import type { Request, RequestHandler, Router } from 'express';
 import type { Role } from '#shared/schemas/gardens';
+import { QueryTypes } from 'sequelize';
+import type { DisplayUnit } from '#shared/schemas/gardens';
 import { AppError } from '../errors';
 import { Membership } from '../db/models';
 
@@ -27,11 +29,38 @@ export interface RouteTableEntry {
 
 const rank: Record<Role, number> = { viewer: 1, grower: 2, owner: 3 };
 
+/** What a garden route knows of its garden from the access check, without asking again. */
+export interface GardenFacts {
+  id: number;
+  name: string;
+  timeZone: string;
+  units: DisplayUnit;
+  latitude: number | null;
+  weatherCellId: number | null;
+}
+
+export interface GardenMembership {
+  gardenId: number;
+  role: Role;
+  garden: GardenFacts;
+  /**
+   * The garden's change counters as read by this request's access check (records and weather;
+   * alerts): a cached answer made at the same revision is still right (server/lib/read-cache.ts).
+   */
+  revision: string;
+}
+
+interface AccessRow extends Omit<GardenFacts, 'id'> {
+  role: Role;
+  epoch: number | null;
+  alerts: number | null;
+}
+
 declare global {
   // eslint-disable-next-line @typescript-eslint/no-namespace
   namespace Express {
     interface Request {
-      membership?: { gardenId: number; role: Role };
+      membership?: GardenMembership;
     }
   }
 }
@@ -48,7 +77,17 @@ function gardenAccess(min: Role): RequestHandler {
     const raw = String(req.params.gardenId ?? '');
     const gardenId = /^[1-9]\d{0,9}$/.test(raw) ? Number(raw) : NaN;
     if (!Number.isSafeInteger(gardenId) || gardenId > 2_147_483_647) throw AppError.notFound('That garden');
-    const m = await Membership.findOne({ where: { userId: user.id, gardenId }, attributes: ['role'] });
+    // One indexed read: the role, the garden's facts and its change counters.
+    const [m] = await Membership.sequelize!.query<AccessRow>(
+      `SELECT m.role, g.name, g.time_zone AS timeZone, g.units, g.latitude, g.weather_cell_id AS weatherCellId,
+              pe.epoch, ae.revision AS alerts
+         FROM memberships m
+         JOIN gardens g ON g.id = m.garden_id
+         LEFT JOIN progress_epochs pe ON pe.garden_id = m.garden_id
+         LEFT JOIN alert_evaluations ae ON ae.garden_id = m.garden_id
+        WHERE m.user_id = ? AND m.garden_id = ?`,
+      { replacements: [user.id, gardenId], type: QueryTypes.SELECT },
+    );
     if (!m) throw AppError.notFound('That garden');
     if (rank[m.role] < rank[min]) {
       throw AppError.forbidden(
@@ -57,7 +96,8 @@ function gardenAccess(min: Role): RequestHandler {
           : 'Viewers can look at everything but cannot change records. Ask the owner for the grower role.',
       );
     }
-    req.membership = { gardenId, role: m.role };
+    const { role, epoch, alerts, ...facts } = m;
+    req.membership = { gardenId, role, garden: { id: gardenId, ...facts }, revision: `${epoch ?? 0}.${alerts ?? 0}` };
     next();
   };
 }

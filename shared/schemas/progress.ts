@@ -188,12 +188,20 @@ export interface TodayWeatherDay {
   source: 'observed' | 'forecast' | 'imported' | 'filled';
 }
 
+/** How many actions and growing plantings Today lists; the rest are a link away. */
+export const TODAY_LIMIT = 30;
+
 /** GET /api/gardens/:gardenId/today */
 export interface TodayDto {
   today: string;
   unit: DisplayUnit;
+  /** The most pressing open alerts, at most TODAY_LIMIT; `actionsTotal` counts them all. */
   actions: TodayActionDto[];
+  actionsTotal: number;
+  /** The growing plantings that need the grower soonest (bolt risk, then readiness), at most TODAY_LIMIT. */
   plantings: TodayPlantingDto[];
+  /** Every growing planting, shown or not. */
+  growingTotal: number;
   /** The last 7 and next 7 days (missing days are absent). */
   weather: TodayWeatherDay[];
 }

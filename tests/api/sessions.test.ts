@@ -81,7 +81,7 @@ describe('sessions', () => {
     const a = agent(app);
     await signIn(a, user.email);
     expect((await a.get('/api/gardens')).status).toBe(200);
-    await app.locals.sessions.destroyForUser(user.id);
+    await app.locals.sessions.endAllFor(user.id);
     expect((await a.get('/api/gardens')).status).toBe(401);
   });
 

@@ -3,6 +3,7 @@ import { QueryTypes } from 'sequelize';
 import type { Sequelize, Transaction } from 'sequelize';
 import type { AlertListQuery, AlertSeverity, AlertStatus, AlertType } from '#shared/schemas/alerts';
 import type { AlertCandidate } from './alert-rules';
+import { inTransaction } from '../../lib/transaction';
 
 export interface AlertRow {
   id: number;
@@ -100,8 +101,8 @@ export class AlertsRepository {
 
   async markEvaluated(gardenId: number, day: string, transaction: Transaction) {
     await this.db.query(
-      `INSERT INTO alert_evaluations (garden_id, evaluated_for, evaluated_at) VALUES (?, ?, UTC_TIMESTAMP(3))
-       ON DUPLICATE KEY UPDATE evaluated_for = VALUES(evaluated_for), evaluated_at = VALUES(evaluated_at)`,
+      `INSERT INTO alert_evaluations (garden_id, evaluated_for, evaluated_at, revision) VALUES (?, ?, UTC_TIMESTAMP(3), 1)
+       ON DUPLICATE KEY UPDATE evaluated_for = VALUES(evaluated_for), evaluated_at = VALUES(evaluated_at), revision = revision + 1`,
       { replacements: [gardenId, day], transaction },
     );
   }
@@ -146,9 +147,14 @@ export class AlertsRepository {
   }
 
   async acknowledge(gardenId: number, id: number, userId: number) {
-    await this.db.query(
-      "UPDATE alerts SET status = 'acknowledged', acknowledged_at = UTC_TIMESTAMP(3), acknowledged_by = ?, updated_at = UTC_TIMESTAMP(3) WHERE garden_id = ? AND id = ? AND status = 'open'",
-      { replacements: [userId, gardenId, id] },
-    );
+    await inTransaction(this.db, async (transaction) => {
+      const [, changed] = await this.db.query(
+        "UPDATE alerts SET status = 'acknowledged', acknowledged_at = UTC_TIMESTAMP(3), acknowledged_by = ?, updated_at = UTC_TIMESTAMP(3) WHERE garden_id = ? AND id = ? AND status = 'open'",
+        { replacements: [userId, gardenId, id], type: QueryTypes.UPDATE, transaction },
+      );
+      if (!changed) return;
+      // The evaluation row exists once the garden has alerts; its revision tells cached reads.
+      await this.db.query('UPDATE alert_evaluations SET revision = revision + 1 WHERE garden_id = ?', { replacements: [gardenId], transaction });
+    });
   }
 }

@@ -130,11 +130,13 @@ export class SqlSessionStore extends session.Store {
   }
 
   /** Ends every session of a user (optionally but one), on every instance at once. */
-  async destroyForUser(userId: number, exceptSid?: string): Promise<number> {
-    const [, meta] = await this.db.query(`DELETE FROM sessions WHERE user_id = ?${exceptSid ? ' AND sid <> ?' : ''}`, {
-      replacements: exceptSid ? [userId, exceptSid] : [userId],
+  async endAllFor(userId: number, exceptSid?: string): Promise<number> {
+    const [, removed] = await this.db.query(`UPDATE sessions SET expires = ? WHERE user_id = ?${exceptSid ? ' AND sid <> ?' : ''}`, {
+      replacements: exceptSid ? [new Date(0), userId, exceptSid] : [new Date(0), userId],
+      type: QueryTypes.UPDATE,
     });
-    return (meta as { affectedRows?: number })?.affectedRows ?? 0;
+    // Expired rows are refused at once and swept later.
+    return removed;
   }
 
   /** Removes expired rows (reads already ignore them). */

@@ -18,11 +18,12 @@ import { presentPlanting } from './plantings.presenter';
 import { presentLogEntry } from './planting-log.presenter';
 import type { Planting } from '../../db/models';
 import type { ProgressService } from '../progress/progress.service';
+import type { ReadCache } from '../../lib/read-cache';
 
 const CSV_MAX_BYTES = 2 * 1024 * 1024;
 
 
-export function plantingsRouter(config: AppConfig, table: RouteTableEntry[], progress: ProgressService) {
+export function plantingsRouter(config: AppConfig, table: RouteTableEntry[], progress: ProgressService, cache: ReadCache) {
   const router = Router();
   /** What presenting a planting needs of its garden: the latitude (seasons) and its today. */
   const gardenFacts = async (gardenId: number) => {
@@ -43,13 +44,18 @@ export function plantingsRouter(config: AppConfig, table: RouteTableEntry[], pro
         path: '/',
         access: 'viewer',
         handler: async (req, res) => {
-          const gardenId = req.membership!.gardenId;
+          const { gardenId, garden } = req.membership!;
           const q = parseQuery(plantingListQuerySchema, req.query);
-          // Rows for today first, so sorting by progress, readiness or risk orders every planting.
-          await progress.refreshGarden(gardenId);
-          const [{ rows, count }, facts] = await Promise.all([listPlantings(gardenId, q), gardenFacts(gardenId)]);
-          const summaries = await progress.summaries(gardenId, rows.map((p) => p.id));
-          res.json(pageOf(rows.map((p) => presentPlanting(p, facts, summaries.get(p.id) ?? null)), count, q));
+          const today = localDate(garden.timeZone, progress.now());
+          await cache.send(req, res, 'plantings', today, async () => {
+            // Sorting by progress, readiness or risk orders every planting by its stored figure:
+            // those rows must be there for today first. Other orders need only the page's.
+            if (q.sort === 'progress' || q.sort === 'ready' || q.sort === 'risk') await progress.refreshGarden(gardenId);
+            const { rows, count } = await listPlantings(gardenId, q);
+            const summaries = await progress.summaries(gardenId, rows.map((p) => p.id));
+            const facts = { latitude: garden.latitude, today };
+            return pageOf(rows.map((p) => presentPlanting(p, facts, summaries.get(p.id) ?? null)), count, q);
+          });
         },
       },
       {

@@ -5,7 +5,7 @@
  * transaction). Weather changes arrive as garden events of their own (weather-events.ts).
  */
 import type { Transaction } from 'sequelize';
-import { CropOverride, Garden, Planting, Variety } from '../../db/models';
+import { Bed, CropOverride, Garden, GerminationTest, Planting, PlantingLog, PlantingPhoto, SeedLot, Variety } from '../../db/models';
 import { localDate } from '../../lib/local-date';
 import { recordWeatherChanged } from '../weather/weather-events';
 import type { ProgressRepository } from './progress.repository';
@@ -52,6 +52,13 @@ export function registerProgressInvalidation(repo: ProgressRepository) {
   CropOverride.addHook('afterCreate', 'progress', byOverride);
   CropOverride.addHook('afterUpdate', 'progress', byOverride);
   CropOverride.addHook('afterDestroy', 'progress', byOverride);
+  // Records progress does not read still show on the garden's lists (bed and lot names, log
+  // counts, photos): their changes move the garden's counter, which cached reads key on.
+  const touched = async (r: object, o: { transaction?: Transaction | null }) => registered!.touch((r as { gardenId: number }).gardenId, tx(o));
+  for (const model of [Bed, SeedLot, GerminationTest, PlantingLog, PlantingPhoto] as const) {
+    for (const hook of ['afterCreate', 'afterUpdate', 'afterDestroy'] as const) (model as typeof Bed).addHook(hook, 'read-cache', touched);
+  }
+  Garden.addHook('afterUpdate', 'read-cache', async (g: Garden, o) => registered!.touch(g.id, tx(o)));
   Garden.addHook('afterUpdate', 'progress', async (g: Garden, o) => {
     if (['latitude', 'longitude', 'timeZone', 'units', 'weatherCellId'].some((k) => g.changed(k as keyof Garden))) {
       await registered!.invalidate({ gardenId: g.id }, tx(o));

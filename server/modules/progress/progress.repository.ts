@@ -136,12 +136,17 @@ export class ProgressRepository {
     });
   }
 
-  /** Drops the rows a change makes wrong and moves the garden's counter, in the change's own transaction. */
-  async invalidate(scope: Scope, transaction?: Transaction) {
+  /** Moves the garden's change counter (in the change's own transaction): stored answers stay, cached reads do not. */
+  async touch(gardenId: number, transaction?: Transaction) {
     await this.db.query('INSERT INTO progress_epochs (garden_id, epoch) VALUES (?, 1) ON DUPLICATE KEY UPDATE epoch = epoch + 1', {
-      replacements: [scope.gardenId],
+      replacements: [gardenId],
       transaction,
     });
+  }
+
+  /** Drops the rows a change makes wrong and moves the garden's counter, in the change's own transaction. */
+  async invalidate(scope: Scope, transaction?: Transaction) {
+    await this.touch(scope.gardenId, transaction);
     if ('plantingId' in scope) {
       await this.db.query('DELETE FROM planting_progress WHERE planting_id = ?', { replacements: [scope.plantingId], transaction });
     } else if ('varietyId' in scope) {

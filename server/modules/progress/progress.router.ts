@@ -3,10 +3,13 @@ import { mountRoutes } from '../../lib/routes';
 import type { RouteTableEntry } from '../../lib/routes';
 import { recordId } from '../records/params';
 import type { ProgressService } from './progress.service';
+import { TODAY_LIMIT } from '#shared/schemas/progress';
 import { asTodayAction } from '../alerts/alerts.service';
 import type { AlertService } from '../alerts/alerts.service';
+import type { ReadCache } from '../../lib/read-cache';
+import { localDate } from '../../lib/local-date';
 
-export function progressRouter(progress: ProgressService, alerts: AlertService, table: RouteTableEntry[]) {
+export function progressRouter(progress: ProgressService, alerts: AlertService, table: RouteTableEntry[], cache: ReadCache) {
   const router = Router();
   mountRoutes(
     router,
@@ -26,10 +29,13 @@ export function progressRouter(progress: ProgressService, alerts: AlertService, 
         path: '/today',
         access: 'viewer',
         handler: async (req, res) => {
-          const gardenId = req.membership!.gardenId;
-          await alerts.ensureEvaluated(gardenId);
-          const [today, open] = await Promise.all([progress.today(gardenId), alerts.list(gardenId, { status: 'open' })]);
-          res.json({ ...today, actions: open.map(asTodayAction) });
+          const { gardenId, garden } = req.membership!;
+          await cache.send(req, res, 'today', localDate(garden.timeZone, progress.now()), async () => {
+            await alerts.ensureEvaluated(gardenId);
+            const [today, open] = await Promise.all([progress.today(gardenId), alerts.list(gardenId, { status: 'open' })]);
+            // Alerts come most severe first (the list's order); Today shows the first of them.
+            return { ...today, actions: open.slice(0, TODAY_LIMIT).map(asTodayAction), actionsTotal: open.length };
+          });
         },
       },
     ],

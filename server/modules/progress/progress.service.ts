@@ -3,7 +3,8 @@
  * otherwise (one weather read for every planting missing). The Today page is assembled here too.
  */
 import type { Sequelize } from 'sequelize';
-import type { ProgressSummaryDto, TodayDto } from '#shared/schemas/progress';
+import { TODAY_LIMIT } from '#shared/schemas/progress';
+import type { ProgressSummaryDto, TodayDto, TodayPlantingDto } from '#shared/schemas/progress';
 import { findCrop } from '#shared/crops/library';
 import { addDays } from '#shared/thermal/dates';
 import { tempIn } from '#shared/thermal/units';
@@ -14,6 +15,17 @@ import type { WeatherService } from '../weather/weather.service';
 import { computeGardenProgress } from './progress-loader';
 import { progressRow } from './progress.presenter';
 import { ProgressRepository } from './progress.repository';
+
+const BOLT_ORDER = { high: 0, elevated: 1, low: 2, none: 3 } as const;
+
+/** Highest bolt risk first, then the soonest likely harvest; undated last; then the oldest start. */
+function byUrgency(a: TodayPlantingDto, b: TodayPlantingDto): number {
+  const bolt = BOLT_ORDER[a.progress.boltLevel] - BOLT_ORDER[b.progress.boltLevel];
+  if (bolt) return bolt;
+  const ra = a.progress.maturity.p50 ?? '9999';
+  const rb = b.progress.maturity.p50 ?? '9999';
+  return ra < rb ? -1 : ra > rb ? 1 : 0;
+}
 
 function cropOf(key: string) {
   const crop = findCrop(key);
@@ -28,6 +40,11 @@ export class ProgressService {
     private readonly weather: WeatherService,
   ) {
     this.repo = new ProgressRepository(sequelize);
+  }
+
+  /** The clock every garden's "today" is read from (the weather service's, so tests can move it). */
+  now(): Date {
+    return this.weather.now();
   }
 
   async gardenToday(gardenId: number): Promise<{ garden: Garden; today: string }> {
@@ -75,12 +92,12 @@ export class ProgressService {
   }
 
   /** Today's plantings and weather; `actions` are the garden's open alerts, filled in by the alerts module. */
-  async today(gardenId: number): Promise<TodayDto> {
+  async today(gardenId: number): Promise<Omit<TodayDto, 'actions' | 'actionsTotal'>> {
     const { garden, today } = await this.gardenToday(gardenId);
     const [rows, weather] = await Promise.all([this.repo.growing(gardenId, today), this.weather.gardenSeries(garden, addDays(today, -7), addDays(today, 7))]);
     const missing = rows.filter((r) => !r.summary).map((r) => r.plantingId);
     const computed = missing.length ? await this.summaries(gardenId, missing) : new Map<number, ProgressSummaryDto>();
-    const plantings = rows.flatMap((r) => {
+    const all = rows.flatMap((r) => {
       const progress = r.summary ?? computed.get(r.plantingId);
       if (!progress) return [];
       return [{ plantingId: r.plantingId, crop: cropOf(r.cropKey), variety: { id: r.varietyId, name: r.varietyName }, bed: { id: r.bedId, name: r.bedName }, status: r.status, progress }];
@@ -90,8 +107,8 @@ export class ProgressService {
     return {
       today,
       unit,
-      actions: [],
-      plantings,
+      plantings: [...all].sort(byUrgency).slice(0, TODAY_LIMIT),
+      growingTotal: all.length,
       weather: weather.map((d) => ({ date: d.date, tmax: toUnit(d.tmax), tmin: toUnit(d.tmin), source: d.source })),
     };
   }

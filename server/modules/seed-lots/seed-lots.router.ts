@@ -27,6 +27,7 @@ import {
   updateSeedLot,
 } from './seed-lots.service';
 import { presentSeedLot, presentTest } from './seed-lots.presenter';
+import type { ReadCache } from '../../lib/read-cache';
 
 /** Presents lots with the garden's own seed-life figures and today's date in its time zone. */
 async function presenter(gardenId: number) {
@@ -36,7 +37,7 @@ async function presenter(gardenId: number) {
     presentSeedLot(lot, tests.get(lot.id) ?? [], crops.get(lot.variety!.cropKey)?.seedLifeYears ?? null, today, withTests);
 }
 
-export function seedLotsRouter(table: RouteTableEntry[]) {
+export function seedLotsRouter(table: RouteTableEntry[], cache: ReadCache) {
   const router = Router();
   const one = async (gardenId: number, lot: SeedLot) => (await presenter(gardenId))(lot, await testsOf([lot.id]), true);
   mountRoutes(
@@ -48,10 +49,12 @@ export function seedLotsRouter(table: RouteTableEntry[]) {
         path: '/',
         access: 'viewer',
         handler: async (req, res) => {
-          const gardenId = req.membership!.gardenId;
+          const { gardenId, garden } = req.membership!;
           const q = parseQuery(seedLotListQuerySchema, req.query);
-          const [{ rows, count, tests }, present] = await Promise.all([listSeedLots(gardenId, q), presenter(gardenId)]);
-          res.json(pageOf(rows.map((lot) => present(lot, tests)), count, q));
+          await cache.send(req, res, 'seed-lots', localDate(garden.timeZone), async () => {
+            const [{ rows, count, tests }, present] = await Promise.all([listSeedLots(gardenId, q), presenter(gardenId)]);
+            return pageOf(rows.map((lot) => present(lot, tests)), count, q);
+          });
         },
       },
       {

@@ -11,8 +11,10 @@ import { createVariety, deleteVariety, getVariety, listVarieties, updateVariety 
 import { presentVariety } from './varieties.presenter';
 import { varietyTarget } from './variety-target';
 import type { WeatherService } from '../weather/weather.service';
+import type { ReadCache } from '../../lib/read-cache';
+import { localDate } from '../../lib/local-date';
 
-export function varietiesRouter(table: RouteTableEntry[], weather: WeatherService) {
+export function varietiesRouter(table: RouteTableEntry[], weather: WeatherService, cache: ReadCache) {
   const router = Router();
   const detail = async (gardenId: number, varietyId: number) => {
     const variety = await getVariety(gardenId, varietyId);
@@ -29,10 +31,12 @@ export function varietiesRouter(table: RouteTableEntry[], weather: WeatherServic
         path: '/',
         access: 'viewer',
         handler: async (req, res) => {
-          const gardenId = req.membership!.gardenId;
+          const { gardenId, garden } = req.membership!;
           const q = parseQuery(varietyListQuerySchema, req.query);
-          const [{ rows, count }, crops] = await Promise.all([listVarieties(gardenId, q), effectiveCrops(gardenId)]);
-          res.json(pageOf(rows.map((v) => presentVariety(v, crops.get(v.cropKey)?.season ?? 'cool')), count, q));
+          await cache.send(req, res, 'varieties', localDate(garden.timeZone, weather.now()), async () => {
+            const [{ rows, count }, crops] = await Promise.all([listVarieties(gardenId, q), effectiveCrops(gardenId)]);
+            return pageOf(rows.map((v) => presentVariety(v, crops.get(v.cropKey)?.season ?? 'cool')), count, q);
+          });
         },
       },
       {

@@ -1,4 +1,5 @@
 import { Router } from 'express';
+import type { ReadCache } from '../../lib/read-cache';
 import type { RequestHandler } from 'express';
 import type { Sequelize } from 'sequelize';
 import { MAX_WEATHER_DAYS, weatherImportFieldsSchema, weatherQuerySchema } from '#shared/schemas/weather';
@@ -32,8 +33,8 @@ const receiveCsv: RequestHandler = async (req, res, next) => {
 };
 
 /** `evaluate`: the garden's alerts, run at once after a "refresh now" so the grower sees them on return. */
-export function weatherRouter(deps: { sequelize: Sequelize; weather: WeatherService; table: RouteTableEntry[]; evaluate?: (gardenId: number) => Promise<unknown> }) {
-  const { sequelize, weather, table, evaluate } = deps;
+export function weatherRouter(deps: { sequelize: Sequelize; weather: WeatherService; table: RouteTableEntry[]; cache: ReadCache; evaluate?: (gardenId: number) => Promise<unknown> }) {
+  const { sequelize, weather, table, cache, evaluate } = deps;
   const router = Router();
   mountRoutes(
     router,
@@ -44,30 +45,33 @@ export function weatherRouter(deps: { sequelize: Sequelize; weather: WeatherServ
         path: '/',
         access: 'viewer',
         handler: async (req, res) => {
-          const garden = await getGarden(req.membership!.gardenId);
           const q = parseQuery(weatherQuerySchema, req.query);
-          const today = localDate(garden.timeZone, weather.now());
-          const from = q.from ?? addDays(q.to ?? today, -30);
-          const to = q.to ?? addDays(today, weather.settings.forecastDays - 1);
-          if (daysBetween(from, to) + 1 > MAX_WEATHER_DAYS) {
-            const msg = `Ask for at most ${MAX_WEATHER_DAYS} days at a time.`;
-            throw new AppError(400, 'validation_failed', msg, { [q.from ? 'from' : 'to']: msg });
-          }
-          const days = await weather.gardenSeries(garden, from, to);
-          const pastEnd = [to, addDays(today, -1)].sort()[0];
-          const observedDates = new Set(days.filter((d) => d.source !== 'forecast').map((d) => d.date));
-          const status = await weather.backfillStatus(garden.weatherCellId);
-          const body: WeatherResponse = {
-            unit: garden.units,
-            thresholds: await activeThresholds(garden.id, garden.units),
-            from,
-            to,
-            today,
-            days: days.map((d) => presentDay(d, garden.units)),
-            gaps: from <= pastEnd ? findGaps(observedDates, from, pastEnd) : [],
-            history: status && { ...status, refreshedAt: status.refreshedAt ? new Date(status.refreshedAt).toISOString() : null },
-          };
-          res.json(body);
+          const today = localDate(req.membership!.garden.timeZone, weather.now());
+          await cache.send(req, res, 'weather', today, async () => {
+            const garden = await getGarden(req.membership!.gardenId);
+            const from = q.from ?? addDays(q.to ?? today, -30);
+            const to = q.to ?? addDays(today, weather.settings.forecastDays - 1);
+            if (daysBetween(from, to) + 1 > MAX_WEATHER_DAYS) {
+              const msg = `Ask for at most ${MAX_WEATHER_DAYS} days at a time.`;
+              throw new AppError(400, 'validation_failed', msg, { [q.from ? 'from' : 'to']: msg });
+            }
+            const days = await weather.gardenSeries(garden, from, to);
+            const pastEnd = [to, addDays(today, -1)].sort()[0];
+            const observedDates = new Set(days.filter((d) => d.source !== 'forecast').map((d) => d.date));
+            const status = await weather.backfillStatus(garden.weatherCellId);
+            const body: WeatherResponse = {
+              unit: garden.units,
+              thresholds: await activeThresholds(garden.id, garden.units),
+              from,
+              to,
+              today,
+              days: days.map((d) => presentDay(d, garden.units)),
+              gaps: from <= pastEnd ? findGaps(observedDates, from, pastEnd) : [],
+              history: status && { ...status, refreshedAt: status.refreshedAt ? new Date(status.refreshedAt).toISOString() : null },
+            };
+            return body;
+            // A history still loading (or failed) changes without its days changing: not kept.
+          }, (body) => !body.history || (body.history.complete && !body.history.running && !body.history.error));
         },
       },
       {

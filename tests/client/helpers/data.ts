@@ -253,7 +253,7 @@ export function aProgressSummary(overrides: Partial<ProgressSummaryDto> = {}): P
 }
 
 export function aToday(overrides: Partial<TodayDto> = {}): TodayDto {
-  return {
+  const t: Omit<TodayDto, 'actionsTotal' | 'growingTotal'> & Partial<TodayDto> = {
     today: '2025-06-02',
     unit: 'F',
     actions: [
@@ -315,6 +315,7 @@ export function aToday(overrides: Partial<TodayDto> = {}): TodayDto {
     })),
     ...overrides,
   };
+  return { ...t, actionsTotal: t.actionsTotal ?? t.actions.length, growingTotal: t.growingTotal ?? t.plantings.length };
 }
 
 /** An open bolt-risk alert for the butterhead lettuce in North 1 (planting 5), raised on 2 June 2025. */
