@@ -18,7 +18,7 @@ const envSchema = z.object({
   DB_PASSWORD: z.string().default(''),
   DB_NAME: z.string().default('heatclock'),
   DB_TEST_NAME: z.string().default('heatclock_test'),
-  DB_POOL_MAX: z.coerce.number().int().min(1).max(200).default(10),
+  DB_POOL_MAX: z.coerce.number().int().min(1).max(200).default(24),
   SESSION_SECRET: z.string().min(32).optional(),
   SESSION_IDLE_MINUTES: z.coerce.number().int().positive().default(8 * 60),
   SESSION_ABSOLUTE_HOURS: z.coerce.number().int().positive().default(7 * 24),

@@ -6,38 +6,59 @@
  * request on any instance reads the new revision and misses; nothing is ever served past a change
  * that committed before the request began. Least recently used answers go first past `maxBytes`.
  */
+import { createHash } from 'node:crypto';
+import { brotliCompressSync, constants } from 'node:zlib';
 import type { Request, Response } from 'express';
 
+interface Entry {
+  body: Buffer;
+  etag: string;
+  /** Made the first time a client that accepts brotli asks, then kept with the answer. */
+  br?: Buffer;
+}
+
+/** Below this, compressing costs more than it saves (the compression middleware's threshold too). */
+const COMPRESS_FROM = 1024;
+
+function entryOf(json: string): Entry {
+  const body = Buffer.from(json);
+  return { body, etag: `W/"${createHash('sha1').update(body).digest('base64url').slice(0, 27)}"` };
+}
+
 export class ReadCache {
-  private readonly entries = new Map<string, string>();
+  private readonly entries = new Map<string, Entry>();
   private bytes = 0;
   hits = 0;
   misses = 0;
 
   constructor(private readonly maxBytes = 64 * 1024 * 1024) {}
 
-  get(key: string): string | undefined {
-    const body = this.entries.get(key);
-    if (body === undefined) return undefined;
+  private get(key: string): Entry | undefined {
+    const entry = this.entries.get(key);
+    if (entry === undefined) return undefined;
     // Refresh its place: Map keeps insertion order, the first key is the least recently used.
     this.entries.delete(key);
-    this.entries.set(key, body);
-    return body;
+    this.entries.set(key, entry);
+    return entry;
   }
 
-  set(key: string, body: string) {
+  private set(key: string, entry: Entry) {
     const old = this.entries.get(key);
     if (old !== undefined) {
-      this.bytes -= old.length;
+      this.bytes -= sizeOf(old);
       this.entries.delete(key);
     }
-    if (body.length > this.maxBytes / 4) return;
-    this.entries.set(key, body);
-    this.bytes += body.length;
+    if (entry.body.length > this.maxBytes / 4) return;
+    this.entries.set(key, entry);
+    this.bytes += sizeOf(entry);
+    this.evict();
+  }
+
+  private evict() {
     for (const [k, v] of this.entries) {
       if (this.bytes <= this.maxBytes) break;
       this.entries.delete(k);
-      this.bytes -= v.length;
+      this.bytes -= sizeOf(v);
     }
   }
 
@@ -49,15 +70,36 @@ export class ReadCache {
   async send<T>(req: Request, res: Response, name: string, day: string, make: () => Promise<T>, keep: (value: T) => boolean = () => true) {
     const m = req.membership!;
     const key = `${name}|${m.gardenId}|${m.revision}|${day}|${req.originalUrl}`;
-    let body = this.get(key);
-    if (body === undefined) {
+    let entry = this.get(key);
+    if (entry === undefined) {
       this.misses++;
       const value = await make();
-      body = JSON.stringify(value);
-      if (keep(value)) this.set(key, body);
+      entry = entryOf(JSON.stringify(value));
+      if (keep(value)) this.set(key, entry);
     } else {
       this.hits++;
     }
-    res.type('application/json').send(body);
+    res.type('application/json');
+    // The same answer again is a 304 (the client revalidates; API answers are never stored).
+    res.set('ETag', entry.etag);
+    if (req.fresh) {
+      res.status(304).end();
+      return;
+    }
+    if (entry.body.length >= COMPRESS_FROM && req.acceptsEncodings('br', 'identity') === 'br') {
+      if (!entry.br) {
+        entry.br = brotliCompressSync(entry.body, { params: { [constants.BROTLI_PARAM_QUALITY]: 5 } });
+        if (this.entries.get(key) === entry) {
+          this.bytes += entry.br.length;
+          this.evict();
+        }
+      }
+      res.set({ 'Content-Encoding': 'br', Vary: 'Accept-Encoding' });
+      res.send(entry.br);
+      return;
+    }
+    res.send(entry.body);
   }
 }
+
+const sizeOf = (e: Entry) => e.body.length + (e.br?.length ?? 0);

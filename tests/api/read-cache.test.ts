@@ -49,6 +49,19 @@ describe('cached garden reads', () => {
     expect(cacheOf(app).hits).toBe(hits + 1);
   });
 
+  it('when a browser asks again with the answer’s ETag, then it gets 304; when it accepts brotli, the kept answer comes compressed', async () => {
+    const { clients, base } = await gardenWithLettuce();
+    const plain = await clients.viewer.get(`${base}/today`).set('Accept-Encoding', 'identity');
+    expect(plain.headers['content-encoding']).toBeUndefined();
+    const etag = plain.headers.etag;
+    expect(etag).toMatch(/^W\/"/);
+    const again = await clients.viewer.get(`${base}/today`).set('If-None-Match', etag);
+    expect(again.status).toBe(304);
+    const br = await clients.viewer.get(`${base}/today`).set('Accept-Encoding', 'gzip, br');
+    expect(br.headers['content-encoding']).toBe('br');
+    expect(br.body).toEqual(plain.body);
+  });
+
   it('when a bed is renamed, then the plantings list shows the new name on the very next read, on this instance and another', async () => {
     const { clients, base, bed, garden, grower } = await gardenWithLettuce();
     expect((await clients.viewer.get(`${base}/plantings`)).body.items[0].bed.name).toBe('North bed');

@@ -2,7 +2,10 @@ import type { GardenDto, Role } from '#shared/schemas/gardens';
 import type { Garden } from '../../db/models';
 import { isSouthern } from '#shared/thermal/index';
 
-export function presentGarden(g: Garden, role: Role): GardenDto {
+/** What presenting a garden reads of it (a model instance or a plain row). */
+export type GardenRow = Pick<Garden, 'id' | 'name' | 'latitude' | 'longitude' | 'elevationM' | 'timeZone' | 'units'>;
+
+export function presentGarden(g: GardenRow, role: Role): GardenDto {
   return {
     id: g.id,
     name: g.name,

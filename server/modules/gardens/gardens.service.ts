@@ -1,14 +1,20 @@
 import type { GardenUpdateInput } from '#shared/schemas/gardens';
+import { QueryTypes } from 'sequelize';
+import type { Role } from '#shared/schemas/gardens';
 import { Garden, Membership } from '../../db/models';
+import type { GardenRow } from './gardens.presenter';
 import { AppError } from '../../errors';
 
+/** The user's gardens with their role, by name: one indexed read, plain rows (sent on every page load). */
 export async function listGardensFor(userId: number) {
-  const rows = await Membership.findAll({
-    where: { userId },
-    include: [{ model: Garden, as: 'garden', required: true }],
-    order: [[{ model: Garden, as: 'garden' }, 'name', 'ASC']],
-  });
-  return rows.map((m) => ({ garden: (m as Membership & { garden: Garden }).garden, role: m.role }));
+  const rows = await Membership.sequelize!.query<GardenRow & { role: Role }>(
+    `SELECT g.id, g.name, g.latitude, g.longitude, g.elevation_m AS elevationM, g.time_zone AS timeZone, g.units, m.role
+       FROM memberships m JOIN gardens g ON g.id = m.garden_id
+      WHERE m.user_id = ?
+      ORDER BY g.name, g.id`,
+    { replacements: [userId], type: QueryTypes.SELECT },
+  );
+  return rows.map(({ role, ...garden }) => ({ garden, role }));
 }
 
 export async function getGarden(gardenId: number) {
