@@ -68,14 +68,26 @@ export class ReadCache {
    * depends on something the counters do not follow (`keep` false) is sent but not kept.
    */
   async send<T>(req: Request, res: Response, name: string, day: string, make: () => Promise<T>, keep: (value: T) => boolean = () => true) {
+    await this.serve(req, res, name, day, async () => {
+      const value = await make();
+      return { json: JSON.stringify(value), keep: keep(value) };
+    });
+  }
+
+  /** As `send`, for an answer that is already JSON text (a stored progress answer). */
+  async sendText(req: Request, res: Response, name: string, day: string, make: () => Promise<string>) {
+    await this.serve(req, res, name, day, async () => ({ json: await make(), keep: true }));
+  }
+
+  private async serve(req: Request, res: Response, name: string, day: string, make: () => Promise<{ json: string; keep: boolean }>) {
     const m = req.membership!;
     const key = `${name}|${m.gardenId}|${m.revision}|${day}|${req.originalUrl}`;
     let entry = this.get(key);
     if (entry === undefined) {
       this.misses++;
-      const value = await make();
-      entry = entryOf(JSON.stringify(value));
-      if (keep(value)) this.set(key, entry);
+      const made = await make();
+      entry = entryOf(made.json);
+      if (made.keep) this.set(key, entry);
     } else {
       this.hits++;
     }

@@ -65,16 +65,23 @@ export async function listPlantings(gardenId: number, q: PlantingListQuery) {
     const like = { [Op.like]: likeText(q.q) };
     and.push({ [Op.or]: [{ '$variety.name$': like }, { '$bed.name$': like }, { notes: like }] } as WhereOptions<Planting>);
   }
-  const { rows, count } = await Planting.findAndCountAll({
-    where: { [Op.and]: and },
-    include: plantingIncludes,
-    attributes: { include: [[logCount, 'logCount']] },
-    order: orderFor(q),
-    distinct: true,
-    subQuery: false,
-    ...limitOffset(q),
-  });
-  return { rows, count };
+  const where = { [Op.and]: and };
+  // Joined only to filter and sort: no columns of theirs are read in the first two steps.
+  const narrow: Includeable[] = [
+    { model: Bed, as: 'bed', required: true, attributes: [] },
+    { model: Variety, as: 'variety', required: true, attributes: [] },
+  ];
+  // 1. The page's ids in order: a sort of narrow rows, not of whole plantings with their log counts.
+  // 2. How many match. 3. The page's plantings in full, put back in the page's order.
+  const [page, count] = await Promise.all([
+    Planting.findAll({ where, include: narrow, attributes: ['id'], order: orderFor(q), subQuery: false, raw: true, ...limitOffset(q) }),
+    Planting.count({ where, include: narrow, distinct: true, col: 'id' }),
+  ]);
+  const ids = page.map((p) => p.id);
+  if (!ids.length) return { rows: [], count };
+  const full = await Planting.findAll({ where: { id: ids }, include: plantingIncludes, attributes: { include: [[logCount, 'logCount']] } });
+  const byId = new Map(full.map((p) => [p.id, p]));
+  return { rows: ids.map((id) => byId.get(id)!).filter(Boolean), count };
 }
 
 export async function getPlanting(gardenId: number, plantingId: number, transaction?: Transaction) {

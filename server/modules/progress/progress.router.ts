@@ -20,8 +20,9 @@ export function progressRouter(progress: ProgressService, alerts: AlertService, 
         path: '/plantings/:plantingId/progress',
         access: 'viewer',
         handler: async (req, res) => {
-          const body = await progress.plantingProgress(req.membership!.gardenId, recordId(req.params, 'plantingId'));
-          res.type('application/json').send(body);
+          const { gardenId, garden } = req.membership!;
+          const plantingId = recordId(req.params, 'plantingId');
+          await cache.sendText(req, res, 'progress', localDate(garden.timeZone, progress.now()), () => progress.plantingProgress(gardenId, plantingId));
         },
       },
       {
