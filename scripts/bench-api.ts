@@ -208,7 +208,11 @@ try {
   const clientBench = path.join(projectRoot, 'scripts', 'bench-client.ts');
   if (existsSync(clientBench)) {
     const { benchClient, clientTable } = (await import(clientBench)) as { benchClient: (b: string) => Promise<unknown>; clientTable: (r: unknown) => string };
-    client = `\n### Client (headless Chromium, loopback)\n\n${clientTable(await benchClient(base))}\n`;
+    try {
+      client = `\n### Client (headless Chromium, loopback)\n\n${clientTable(await benchClient(base))}\n`;
+    } catch (err) {
+      client = `\nClient figures could not be taken: ${(err as Error).message}\n`;
+    }
   }
 
   const machine = `${os.cpus().length} × ${os.cpus()[0]?.model ?? 'CPU'}, ${Math.round(os.totalmem() / 2 ** 30)} GiB, Node ${process.version}`;

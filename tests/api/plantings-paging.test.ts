@@ -13,16 +13,16 @@ describe('plantings pages', () => {
     const made = [];
     for (let i = 0; i < 8; i++) made.push(await makePlanting(garden.id, { bedId: beds[i % 3].id, varietyId: variety.id, sownOn: addDays('2026-03-01', (i * 5) % 17) }));
     for (const sort of ['sown', 'bed', 'status', 'variety']) {
-      const seen: { id: number; bed: string; startOn: string | null }[] = [];
+      const seen: { id: number; bed: string; sownOn: string | null }[] = [];
       for (let page = 1; page <= 3; page++) {
         const res = await clients.viewer.get(`${base}/plantings?sort=${sort}&pageSize=3&page=${page}`);
         expect(res.status).toBe(200);
         expect(res.body).toMatchObject({ total: 8, page, pageSize: 3 });
-        seen.push(...res.body.items.map((p: { id: number; bed: { name: string }; startOn: string | null }) => ({ id: p.id, bed: p.bed.name, startOn: p.startOn })));
+        seen.push(...res.body.items.map((p: { id: number; bed: { name: string }; sownOn: string | null }) => ({ id: p.id, bed: p.bed.name, sownOn: p.sownOn })));
       }
       expect(seen.map((p) => p.id).sort((a, b) => a - b)).toEqual(made.map((p) => p.id).sort((a, b) => a - b));
       if (sort === 'bed') expect(seen.map((p) => p.bed)).toEqual([...seen.map((p) => p.bed)].sort());
-      if (sort === 'sown') expect(seen.map((p) => p.startOn)).toEqual([...seen.map((p) => p.startOn)].sort());
+      if (sort === 'sown') expect(seen.map((p) => p.sownOn)).toEqual([...seen.map((p) => p.sownOn)].sort());
     }
   });
 });
