@@ -56,6 +56,25 @@ describe('Today', () => {
     expect(within(growing).getByText('Bolt risk: Low')).toBeTruthy();
   });
 
+  it('when more grow and more alerts are open than Today lists, then it says how many of how many, with the way to the rest', async () => {
+    server.use(...gardenToday(aToday({ growingTotal: 5000, actionsTotal: 212 })));
+    renderApp('/g/1');
+
+    const growing = await screen.findByRole('region', { name: 'Growing now' });
+    expect(within(growing).getByText(/The 2 that need you soonest \(highest bolt risk first, then the nearest harvest\) of 5,000 growing plantings/)).toBeTruthy();
+    expect(within(growing).getByRole('link', { name: 'See every planting' }).getAttribute('href')).toBe('/g/1/plantings');
+    const attention = section('Needs attention');
+    expect(within(attention).getByText('The 2 most severe of 212 open alerts; the rest are on the alerts page.')).toBeTruthy();
+  });
+
+  it('when every growing planting is listed, then no count of the rest is shown', async () => {
+    server.use(...gardenToday(aToday()));
+    renderApp('/g/1');
+    const growing = await screen.findByRole('region', { name: 'Growing now' });
+    expect(within(growing).queryByText(/need you soonest/)).toBeNull();
+    expect(screen.queryByText(/most severe of/)).toBeNull();
+  });
+
   it('when the fortnight is shown, then each day has its high and low with units, forecast days say so and today is marked', async () => {
     server.use(...gardenToday(aToday()));
     renderApp('/g/1');
