@@ -160,7 +160,7 @@ export function createApp({ config, sequelize, logger = createLogger(config.logL
   api.use(varietiesRouter(routes, weatherService, readCache));
   api.use(seedLotsRouter(routes, readCache));
   api.use(progressRouter(progress, alerts, routes, readCache));
-  api.use(alertsRouter(alerts, routes));
+  api.use(alertsRouter(alerts, routes, readCache));
   api.use(plantingsRouter(config, routes, progress, readCache));
   api.use(photosRouter(config, routes));
   api.use(notificationsRouter({ sequelize, table: routes, mailIsLocalFake: config.mail.mode === 'fake' }));

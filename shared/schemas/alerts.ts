@@ -51,7 +51,12 @@ export interface AlertDto {
 export const alertListQuerySchema = z.strictObject({
   status: z.enum(ALERT_STATUSES, { error: 'Status must be open, acknowledged or resolved.' }).optional(),
   type: z.enum(ALERT_TYPES, { error: 'Unknown alert type.' }).optional(),
+  /** The first so many, in the list's order (most severe first); at most ALERT_LIST_MAX. */
+  limit: z.coerce.number({ error: 'Limit must be a whole number.' }).int('Limit must be a whole number.').min(1, 'Limit must be at least 1.').max(500, 'Limit must be at most 500.').optional(),
 });
+
+/** The most alerts one list answer holds. */
+export const ALERT_LIST_MAX = 500;
 export type AlertListQuery = z.infer<typeof alertListQuerySchema>;
 
 /** GET /api/gardens/:gardenId/alerts/counts — for the navigation. */

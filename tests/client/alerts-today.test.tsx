@@ -48,7 +48,7 @@ describe('alerts in the garden navigation and on Today', () => {
     expect(within(attention).queryByRole('heading', { name: 'Lettuce: Copperleaf Butterhead may bolt' })).toBeNull();
     const headings = within(attention).getAllByRole('heading', { level: 3 }).map((h) => h.textContent);
     expect(headings).toEqual(['Bolt risk high from 9 Jun', 'Radish: Ember Globe is ready to pull']);
-    expect(seen.find((r) => r.path === '/api/gardens/1/alerts')?.query.toString()).toBe('status=open');
+    expect(seen.find((r) => r.path === '/api/gardens/1/alerts')?.query.toString()).toBe('status=open&limit=30');
   });
 
   it('when a viewer opens Today, then the open alert is shown without an Acknowledge button', async () => {

@@ -1,6 +1,7 @@
 /** Alerts by their natural key (garden, subject, type, first date); raw SQL for the upserts. */
 import { QueryTypes } from 'sequelize';
 import type { Sequelize, Transaction } from 'sequelize';
+import { ALERT_LIST_MAX } from '#shared/schemas/alerts';
 import type { AlertListQuery, AlertSeverity, AlertStatus, AlertType } from '#shared/schemas/alerts';
 import type { AlertCandidate } from './alert-rules';
 import { inTransaction } from '../../lib/transaction';
@@ -126,8 +127,8 @@ export class AlertsRepository {
     return this.db.query<AlertRow>(
       `SELECT ${COLUMNS} FROM alerts a LEFT JOIN users u ON u.id = a.acknowledged_by WHERE ${where.join(' AND ')}
         ORDER BY FIELD(a.status, 'open', 'acknowledged', 'resolved'), FIELD(a.severity, 'severe', 'warning', 'watch', 'info'), a.first_on, a.id DESC
-        LIMIT 500`,
-      { replacements, type: QueryTypes.SELECT },
+        LIMIT ?`,
+      { replacements: [...replacements, Math.min(q.limit ?? ALERT_LIST_MAX, ALERT_LIST_MAX)], type: QueryTypes.SELECT },
     );
   }
 

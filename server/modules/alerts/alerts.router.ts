@@ -5,8 +5,10 @@ import type { RouteTableEntry } from '../../lib/routes';
 import { parseQuery } from '../../lib/validate';
 import { recordId } from '../records/params';
 import type { AlertService } from './alerts.service';
+import type { ReadCache } from '../../lib/read-cache';
+import { localDate } from '../../lib/local-date';
 
-export function alertsRouter(alerts: AlertService, table: RouteTableEntry[]) {
+export function alertsRouter(alerts: AlertService, table: RouteTableEntry[], cache: ReadCache) {
   const router = Router();
   mountRoutes(
     router,
@@ -17,10 +19,12 @@ export function alertsRouter(alerts: AlertService, table: RouteTableEntry[]) {
         path: '/',
         access: 'viewer',
         handler: async (req, res) => {
-          const gardenId = req.membership!.gardenId;
+          const { gardenId, garden } = req.membership!;
           const q = parseQuery(alertListQuerySchema, req.query);
-          await alerts.ensureEvaluated(gardenId);
-          res.json({ items: await alerts.list(gardenId, q) });
+          await cache.send(req, res, 'alerts', localDate(garden.timeZone, alerts.now()), async () => {
+            await alerts.ensureEvaluated(gardenId);
+            return { items: await alerts.list(gardenId, q) };
+          });
         },
       },
       // Registered before '/:alertId/…' so the literal path is not read as an id.
@@ -29,9 +33,11 @@ export function alertsRouter(alerts: AlertService, table: RouteTableEntry[]) {
         path: '/counts',
         access: 'viewer',
         handler: async (req, res) => {
-          const gardenId = req.membership!.gardenId;
-          await alerts.ensureEvaluated(gardenId);
-          res.json(await alerts.counts(gardenId));
+          const { gardenId, garden } = req.membership!;
+          await cache.send(req, res, 'alert-counts', localDate(garden.timeZone, alerts.now()), async () => {
+            await alerts.ensureEvaluated(gardenId);
+            return alerts.counts(gardenId);
+          });
         },
       },
       {

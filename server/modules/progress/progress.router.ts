@@ -33,9 +33,9 @@ export function progressRouter(progress: ProgressService, alerts: AlertService, 
           const { gardenId, garden } = req.membership!;
           await cache.send(req, res, 'today', localDate(garden.timeZone, progress.now()), async () => {
             await alerts.ensureEvaluated(gardenId);
-            const [today, open] = await Promise.all([progress.today(gardenId), alerts.list(gardenId, { status: 'open' })]);
+            const [today, open, counts] = await Promise.all([progress.today(gardenId), alerts.list(gardenId, { status: 'open', limit: TODAY_LIMIT }), alerts.counts(gardenId)]);
             // Alerts come most severe first (the list's order); Today shows the first of them.
-            return { ...today, actions: open.slice(0, TODAY_LIMIT).map(asTodayAction), actionsTotal: open.length };
+            return { ...today, actions: open.map(asTodayAction), actionsTotal: counts.open };
           });
         },
       },

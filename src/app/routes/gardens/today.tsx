@@ -3,6 +3,7 @@ import { Link } from 'react-router-dom';
 import type { UseQueryResult } from '@tanstack/react-query';
 import type { AlertDto } from '#shared/schemas/alerts';
 import type { GardenDto } from '#shared/schemas/gardens';
+import { TODAY_LIMIT } from '#shared/schemas/progress';
 import type { TodayDto } from '#shared/schemas/progress';
 import { Button } from '@/components/ui/button';
 import { Loading } from '@/components/ui/loading';
@@ -63,7 +64,8 @@ function Attention({ garden, today, open }: { garden: GardenDto; today: TodayDto
 
 function TodaySections({ garden }: { garden: GardenDto }) {
   const today = useToday(garden.id);
-  const open = useAlerts(garden.id, { status: 'open' });
+  // The same most severe open alerts Today's actions are made from (the server's order and limit).
+  const open = useAlerts(garden.id, { status: 'open', limit: TODAY_LIMIT });
   // One wait for both, so the actions never show before the alerts that replace them.
   if (today.isPending || open.isPending) return <Loading label="Loading today’s figures…" />;
   if (today.isError) {
