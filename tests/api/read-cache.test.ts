@@ -133,6 +133,20 @@ describe('Today in a large garden', () => {
   });
 });
 
+describe('alert list limit', () => {
+  it('when a limit is given, then only that many come, most severe first; a bad limit is a 400 naming it', async () => {
+    const { clients, base, garden, bed, variety } = await gardenWithLettuce();
+    await makePlanting(garden.id, { bedId: bed.id, varietyId: variety.id, sownOn: '2026-05-08' });
+    const all = (await clients.viewer.get(`${base}/alerts?status=open`)).body.items as AlertDto[];
+    expect(all.length).toBeGreaterThan(1);
+    const one = await clients.viewer.get(`${base}/alerts?status=open&limit=1`);
+    expect(one.body.items.map((a: AlertDto) => a.id)).toEqual([all[0].id]);
+    const bad = await clients.viewer.get(`${base}/alerts?limit=0`);
+    expect(bad.status).toBe(400);
+    expect(bad.body.error.fields).toHaveProperty('limit');
+  });
+});
+
 describe('past capacity', () => {
   it('when more requests arrive than may run or wait, then the rest get 503 with Retry-After at once, and the server answers again after', async () => {
     const gate: Array<() => void> = [];
