@@ -64,9 +64,9 @@ await explain('Session read (every signed-in request)', () =>
 );
 await explain('Garden access check (every garden request)', () =>
   sequelize.query(
-    `SELECT m.role, g.name, g.time_zone AS timeZone, g.units, g.latitude, g.weather_cell_id AS weatherCellId, pe.epoch, ae.revision AS alerts
+    `SELECT m.role, g.name, g.time_zone AS timeZone, g.units, g.latitude, g.weather_cell_id AS weatherCellId, gr.revision, ae.revision AS alerts
        FROM memberships m JOIN gardens g ON g.id = m.garden_id
-       LEFT JOIN progress_epochs pe ON pe.garden_id = m.garden_id LEFT JOIN alert_evaluations ae ON ae.garden_id = m.garden_id
+       LEFT JOIN garden_revisions gr ON gr.garden_id = m.garden_id LEFT JOIN alert_evaluations ae ON ae.garden_id = m.garden_id
       WHERE m.user_id = ? AND m.garden_id = ?`,
     { replacements: [user!.id, big.id], type: QueryTypes.SELECT },
   ),

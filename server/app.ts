@@ -85,7 +85,7 @@ export function createApp({ config, sequelize, logger = createLogger(config.logL
   app.locals.weather = weatherService;
   const progress = new ProgressService(sequelize, weatherService);
   app.locals.progress = progress;
-  registerProgressInvalidation(progress.repo);
+  registerProgressInvalidation();
   const alerts = new AlertService(sequelize, weatherService, progress);
   app.locals.alerts = alerts;
   eventWorker.register(plantingProgressProcessor(progress, alerts));

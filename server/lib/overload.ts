@@ -4,7 +4,7 @@
  * once with 503 and Retry-After, so past capacity latency stays bounded and memory flat instead of
  * every request slowing down together until the database pool times out.
  */
-import type { Request, RequestHandler, Response } from 'express';
+import type { RequestHandler, Response } from 'express';
 
 export interface OverloadSettings {
   maxInFlight: number;
@@ -14,9 +14,10 @@ export interface OverloadSettings {
   retryAfterS: number;
 }
 
-function shed(req: Request, res: Response, retryAfterS: number) {
+function shed(res: Response, retryAfterS: number) {
   if (res.headersSent) return;
-  res.set('Retry-After', String(retryAfterS));
+  // Closing the connection spreads the retries over the clients instead of keeping them queued here.
+  res.set({ 'Retry-After': String(retryAfterS), Connection: 'close' });
   res.status(503).json({
     error: {
       code: 'overloaded',
@@ -24,7 +25,6 @@ function shed(req: Request, res: Response, retryAfterS: number) {
       requestId: res.locals.requestId,
     },
   });
-  req.socket?.setKeepAlive?.(false);
 }
 
 export function overloadShed(settings: OverloadSettings) {
@@ -41,7 +41,7 @@ export function overloadShed(settings: OverloadSettings) {
     }
   };
 
-  const middleware: RequestHandler = (req, res, next) => {
+  const middleware: RequestHandler = (_req, res, next) => {
     let done = false;
     const finish = () => {
       if (done) return;
@@ -57,14 +57,14 @@ export function overloadShed(settings: OverloadSettings) {
       inFlight++;
       return start();
     }
-    if (waiting.length >= settings.maxQueue) return shed(req, res, settings.retryAfterS);
+    if (waiting.length >= settings.maxQueue) return shed(res, settings.retryAfterS);
     const entry = {
       // The slot passes straight from the finished request to this one: inFlight is unchanged.
       start,
       timer: setTimeout(() => {
         const i = waiting.indexOf(entry);
         if (i >= 0) waiting.splice(i, 1);
-        shed(req, res, settings.retryAfterS);
+        shed(res, settings.retryAfterS);
       }, settings.maxWaitMs),
     };
     waiting.push(entry);

@@ -64,14 +64,10 @@ export class ReadCache {
 
   /**
    * Sends the answer for this garden read from the cache, or makes it with `make`, sends and keeps
-   * it. `day` is the garden's today (answers change at its midnight). An answer that also
-   * depends on something the counters do not follow (`keep` false) is sent but not kept.
+   * it. `day` is the garden's today (answers change at its midnight).
    */
-  async send<T>(req: Request, res: Response, name: string, day: string, make: () => Promise<T>, keep: (value: T) => boolean = () => true) {
-    await this.serve(req, res, name, day, async () => {
-      const value = await make();
-      return { json: JSON.stringify(value), keep: keep(value) };
-    });
+  async send<T>(req: Request, res: Response, name: string, day: string, make: () => Promise<T>) {
+    await this.serve(req, res, name, day, async () => ({ json: JSON.stringify(await make()), keep: true }));
   }
 
   /** As `send`, for an answer that is already JSON text (a stored progress answer). */
@@ -79,9 +75,30 @@ export class ReadCache {
     await this.serve(req, res, name, day, async () => ({ json: await make(), keep: true }));
   }
 
-  private async serve(req: Request, res: Response, name: string, day: string, make: () => Promise<{ json: string; keep: boolean }>) {
+  /**
+   * The value made for this read, kept like an answer, for a route that adds something the
+   * counters do not follow before it answers (the weather page's history status).
+   */
+  async remember<T>(req: Request, name: string, day: string, make: () => Promise<T>): Promise<T> {
+    const key = this.keyOf(req, name, day);
+    const entry = this.get(key);
+    if (entry) {
+      this.hits++;
+      return JSON.parse(entry.body.toString()) as T;
+    }
+    this.misses++;
+    const value = await make();
+    this.set(key, entryOf(JSON.stringify(value)));
+    return value;
+  }
+
+  private keyOf(req: Request, name: string, day: string) {
     const m = req.membership!;
-    const key = `${name}|${m.gardenId}|${m.revision}|${day}|${req.originalUrl}`;
+    return `${name}|${m.gardenId}|${m.revision}|${day}|${req.originalUrl}`;
+  }
+
+  private async serve(req: Request, res: Response, name: string, day: string, make: () => Promise<{ json: string; keep: boolean }>) {
+    const key = this.keyOf(req, name, day);
     let entry = this.get(key);
     if (entry === undefined) {
       this.misses++;

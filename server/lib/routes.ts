@@ -44,15 +44,15 @@ export interface GardenMembership {
   role: Role;
   garden: GardenFacts;
   /**
-   * The garden's change counters as read by this request's access check (records and weather;
-   * alerts): a cached answer made at the same revision is still right (server/lib/read-cache.ts).
+   * The garden's change counters as read by this request's access check (garden_revisions for
+   * records, settings and weather; alert_evaluations.revision for alerts): a cached answer made at the same revision is still right (server/lib/read-cache.ts).
    */
   revision: string;
 }
 
 interface AccessRow extends Omit<GardenFacts, 'id'> {
   role: Role;
-  epoch: number | null;
+  revision: number | null;
   alerts: number | null;
 }
 
@@ -80,10 +80,10 @@ function gardenAccess(min: Role): RequestHandler {
     // One indexed read: the role, the garden's facts and its change counters.
     const [m] = await Membership.sequelize!.query<AccessRow>(
       `SELECT m.role, g.name, g.time_zone AS timeZone, g.units, g.latitude, g.weather_cell_id AS weatherCellId,
-              pe.epoch, ae.revision AS alerts
+              gr.revision, ae.revision AS alerts
          FROM memberships m
          JOIN gardens g ON g.id = m.garden_id
-         LEFT JOIN progress_epochs pe ON pe.garden_id = m.garden_id
+         LEFT JOIN garden_revisions gr ON gr.garden_id = m.garden_id
          LEFT JOIN alert_evaluations ae ON ae.garden_id = m.garden_id
         WHERE m.user_id = ? AND m.garden_id = ?`,
       { replacements: [user.id, gardenId], type: QueryTypes.SELECT },
@@ -96,8 +96,8 @@ function gardenAccess(min: Role): RequestHandler {
           : 'Viewers can look at everything but cannot change records. Ask the owner for the grower role.',
       );
     }
-    const { role, epoch, alerts, ...facts } = m;
-    req.membership = { gardenId, role, garden: { id: gardenId, ...facts }, revision: `${epoch ?? 0}.${alerts ?? 0}` };
+    const { role, revision, alerts, ...facts } = m;
+    req.membership = { gardenId, role, garden: { id: gardenId, ...facts }, revision: `${revision ?? 0}.${alerts ?? 0}` };
     next();
   };
 }

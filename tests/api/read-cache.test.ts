@@ -72,6 +72,28 @@ describe('cached garden reads', () => {
     expect((await elsewhere.get(`/api/gardens/${garden.id}/plantings`)).body.items[0].bed.name).toBe('Shade bed');
   });
 
+  it('when a variety is added or removed, then the varieties list shows it at once', async () => {
+    const { clients, base } = await gardenWithLettuce();
+    const names = async () => ((await clients.viewer.get(`${base}/varieties`)).body.items as { name: string }[]).map((v) => v.name);
+    expect(await names()).not.toContain('Frost Queen');
+    const made = await clients.grower.post(`${base}/varieties`).send({
+      cropKey: 'spinach', name: 'Frost Queen', dtmDays: 45, dtmFrom: 'sowing', emergenceDaysMin: 6, emergenceDaysMax: 10, boltTolerance: 4, heatTolerance: 2,
+      traits: [], containerFriendly: false, sunHours: 6, waterCmPerWeek: 2.5, sowDepthCm: 1.5, spacingCm: 8, thinSpacingCm: 10, gddTargetOverrideC: null, notes: '',
+    });
+    expect(made.status).toBe(201);
+    expect(await names()).toContain('Frost Queen');
+    expect((await clients.grower.delete(`${base}/varieties/${made.body.variety.id}`)).status).toBe(204);
+    expect(await names()).not.toContain('Frost Queen');
+  });
+
+  it('when a weather cell’s history status changes without new days, then the weather page shows it at once', async () => {
+    const { clients, base, garden } = await gardenWithLettuce();
+    const url = `${base}/weather?from=${addDays(TODAY, -5)}&to=${TODAY}`;
+    expect((await clients.viewer.get(url)).body.history.error).toBeNull();
+    await sequelize.query("UPDATE weather_cells SET backfill_error = 'The weather service did not answer.' WHERE id = ?", { replacements: [garden.weatherCellId] });
+    expect((await clients.viewer.get(url)).body.history.error).toBe('The weather service did not answer.');
+  });
+
   it('when a log entry is added, then the list’s log count moves at once', async () => {
     const { clients, base, planting } = await gardenWithLettuce();
     const before = (await clients.viewer.get(`${base}/plantings`)).body.items[0].logCount as number;

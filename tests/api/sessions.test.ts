@@ -85,6 +85,22 @@ describe('sessions', () => {
     expect((await a.get('/api/gardens')).status).toBe(401);
   });
 
+  it('when a user’s sessions are revoked while one of their requests is still running, then that request cannot write the session back to life', async () => {
+    const user = await createUser();
+    const a = agent(app);
+    await signIn(a, user.email);
+    const sid = (await rowOf(user.id)).sid;
+    const store = app.locals.sessions;
+    const loaded = await new Promise<Record<string, unknown>>((resolve, reject) => store.get(sid, (err: unknown, s: Record<string, unknown>) => (err ? reject(err) : resolve(s))));
+    await store.endAllFor(user.id);
+    // The in-flight request saves its (changed) session and touches it, as express-session would.
+    const later = { ...loaded, cookie: { ...(loaded.cookie as object), expires: new Date(Date.now() + 3_600_000).toISOString() }, note: 'changed' };
+    await new Promise<void>((resolve, reject) => store.set(sid, later, (err: unknown) => (err ? reject(err) : resolve())));
+    await new Promise<void>((resolve, reject) => store.touch(sid, later, (err: unknown) => (err ? reject(err) : resolve())));
+    expect((await rowOf(user.id)).expires!.getTime()).toBeLessThan(Date.now());
+    expect((await a.get('/api/auth/me')).status).toBe(401);
+  });
+
   it('when a session has expired in the store, then it is refused even if the cookie is still sent', async () => {
     const user = await createUser();
     const a = agent(app);

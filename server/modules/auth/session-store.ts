@@ -69,9 +69,11 @@ export class SqlSessionStore extends session.Store {
           this.loaded.delete(sid);
           return cb(null, null);
         }
-        if (this.loaded.size >= MAX_HANDOVERS) this.loaded.clear();
         const user = row.userId === null ? null : { id: row.userId, email: row.email!, name: row.name! };
+        // Least recently read first: re-inserting keeps the map in that order.
+        this.loaded.delete(sid);
         this.loaded.set(sid, { expiresMs: new Date(row.expires).getTime(), user });
+        if (this.loaded.size > MAX_HANDOVERS) this.loaded.delete(this.loaded.keys().next().value!);
         cb(null, JSON.parse(row.data) as SessionData);
       })
       .catch((err: unknown) => cb(err));
@@ -80,11 +82,15 @@ export class SqlSessionStore extends session.Store {
   override set(sid: string, sess: SessionData, cb?: Callback) {
     const expires = expiryOf(sess);
     const now = new Date();
+    // A row already ended (expired, or revoked by endAllFor) stays ended: a request that loaded the
+    // session before it was revoked cannot write it back to life. `expires` is assigned last, as
+    // MariaDB evaluates the assignments in order.
     this.db
       .query(
         `INSERT INTO sessions (sid, user_id, expires, data, created_at, updated_at) VALUES (?, ?, ?, ?, ?, ?)
-         ON DUPLICATE KEY UPDATE user_id = VALUES(user_id), expires = VALUES(expires), data = VALUES(data), updated_at = VALUES(updated_at)`,
-        { replacements: [sid, sess.passport?.user ?? null, expires, JSON.stringify(sess), now, now] },
+         ON DUPLICATE KEY UPDATE user_id = IF(expires > ?, VALUES(user_id), user_id), data = IF(expires > ?, VALUES(data), data),
+           updated_at = VALUES(updated_at), expires = IF(expires > ?, VALUES(expires), expires)`,
+        { replacements: [sid, sess.passport?.user ?? null, expires, JSON.stringify(sess), now, now, now, now, now] },
       )
       .then(() => {
         this.loaded.delete(sid);
@@ -99,8 +105,8 @@ export class SqlSessionStore extends session.Store {
     const found = this.loaded.get(sid);
     if (found && expires.getTime() - found.expiresMs < TOUCH_EVERY_MS) return cb?.();
     this.db
-      .query('UPDATE sessions SET expires = ?, updated_at = ? WHERE sid = ? AND expires < ?', {
-        replacements: [expires, new Date(), sid, new Date(expires.getTime() - TOUCH_EVERY_MS)],
+      .query('UPDATE sessions SET expires = ?, updated_at = ? WHERE sid = ? AND expires < ? AND expires > ?', {
+        replacements: [expires, new Date(), sid, new Date(expires.getTime() - TOUCH_EVERY_MS), new Date()],
       })
       .then(() => {
         // Concurrent requests of the same session need not write it again.
@@ -119,9 +125,9 @@ export class SqlSessionStore extends session.Store {
   }
 
   /**
-   * The user this request's session read found, when it is the one passport asks for; null when
-   * the read was not handed over (a concurrent request of the same session took it), and the
-   * caller looks the user up itself.
+   * The user this session's latest read found, when it is the one passport asks for (null when
+   * that user is gone); undefined when there is no such read to hand over, and the caller looks
+   * the user up itself.
    */
   userFor(sid: string, userId: number): UserDto | null | undefined {
     const found = this.loaded.get(sid);

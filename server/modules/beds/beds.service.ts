@@ -6,6 +6,7 @@ import { Bed, Planting } from '../../db/models';
 import { AppError } from '../../errors';
 import { likeText, limitOffset } from '../records/paging';
 import { unreferencedOr409, uniqueOr409 } from '../records/unique';
+import { inTransaction } from '../../lib/transaction';
 
 type BedListQuery = z.output<typeof bedListQuerySchema>;
 
@@ -44,7 +45,11 @@ export async function getBed(gardenId: number, bedId: number) {
 
 export async function createBed(gardenId: number, input: BedCreateInput) {
   return uniqueOr409(
-    () => Bed.create({ gardenId, name: input.name, kind: input.kind, lengthM: input.lengthM ?? null, widthM: input.widthM ?? null, notes: input.notes ?? '' }),
+    // Each write in a transaction, so the garden's revision moves with the row (progress-invalidation.ts).
+    () =>
+      inTransaction(Bed.sequelize!, (transaction) =>
+        Bed.create({ gardenId, name: input.name, kind: input.kind, lengthM: input.lengthM ?? null, widthM: input.widthM ?? null, notes: input.notes ?? '' }, { transaction }),
+      ),
     duplicate,
     'name',
   );
@@ -52,7 +57,7 @@ export async function createBed(gardenId: number, input: BedCreateInput) {
 
 export async function updateBed(gardenId: number, bedId: number, input: BedUpdateInput) {
   const bed = await getBed(gardenId, bedId);
-  return uniqueOr409(() => bed.update(input), duplicate, 'name');
+  return uniqueOr409(() => inTransaction(Bed.sequelize!, (transaction) => bed.update(input, { transaction })), duplicate, 'name');
 }
 
 export async function deleteBed(gardenId: number, bedId: number) {
@@ -61,5 +66,5 @@ export async function deleteBed(gardenId: number, bedId: number) {
   if (used) {
     throw new AppError(409, 'in_use', `This bed has ${used} planting${used === 1 ? '' : 's'} on record; move or delete them first.`);
   }
-  await unreferencedOr409(() => bed.destroy(), 'A planting was just added to this bed; move or delete it first.');
+  await unreferencedOr409(() => inTransaction(Bed.sequelize!, (transaction) => bed.destroy({ transaction })), 'A planting was just added to this bed; move or delete it first.');
 }

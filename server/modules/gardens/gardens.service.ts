@@ -4,6 +4,7 @@ import type { Role } from '#shared/schemas/gardens';
 import { Garden, Membership } from '../../db/models';
 import type { GardenRow } from './gardens.presenter';
 import { AppError } from '../../errors';
+import { inTransaction } from '../../lib/transaction';
 
 /** The user's gardens with their role, by name: one indexed read, plain rows (sent on every page load). */
 export async function listGardensFor(userId: number) {
@@ -25,6 +26,7 @@ export async function getGarden(gardenId: number) {
 
 export async function updateGarden(gardenId: number, input: GardenUpdateInput) {
   const garden = await getGarden(gardenId);
-  await garden.update(input);
+  // In a transaction, so the garden's counters move with its settings (progress-invalidation.ts).
+  await inTransaction(Garden.sequelize!, (transaction) => garden.update(input, { transaction }));
   return garden;
 }

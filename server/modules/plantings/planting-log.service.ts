@@ -105,5 +105,5 @@ export async function deleteLogEntry(gardenId: number, plantingId: number, entry
   if (entry.photoId !== null) {
     throw new AppError(409, 'photo_entry', 'This entry belongs to a photo: delete the photo instead.');
   }
-  await entry.destroy();
+  await inTransaction(PlantingLog.sequelize!, (transaction) => entry.destroy({ transaction }));
 }

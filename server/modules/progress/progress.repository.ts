@@ -7,6 +7,7 @@ import { QueryTypes } from 'sequelize';
 import type { Sequelize, Transaction } from 'sequelize';
 import type { ProgressSummaryDto } from '#shared/schemas/progress';
 import { inTransaction, isRetryable } from '../../lib/transaction';
+import { moveGardenRevisions } from '../../lib/garden-revision';
 
 export const BOLT_RANK = { none: 0, low: 1, elevated: 2, high: 3 } as const;
 
@@ -136,16 +137,20 @@ export class ProgressRepository {
     });
   }
 
-  /** Moves the garden's change counter (in the change's own transaction): stored answers stay, cached reads do not. */
+  /** A change progress does not read (a bed's name, a log entry): cached reads go, stored progress stays. */
   async touch(gardenId: number, transaction?: Transaction) {
-    await this.db.query('INSERT INTO progress_epochs (garden_id, epoch) VALUES (?, 1) ON DUPLICATE KEY UPDATE epoch = epoch + 1', {
-      replacements: [gardenId],
-      transaction,
-    });
+    await moveGardenRevisions(this.db, [gardenId], transaction);
   }
 
-  /** Drops the rows a change makes wrong and moves the garden's counter, in the change's own transaction. */
+  /**
+   * Drops the rows a change makes wrong and moves the garden's progress counter (a computation
+   * that read the old inputs is not stored) and its revision, in the change's own transaction.
+   */
   async invalidate(scope: Scope, transaction?: Transaction) {
+    await this.db.query('INSERT INTO progress_epochs (garden_id, epoch) VALUES (?, 1) ON DUPLICATE KEY UPDATE epoch = epoch + 1', {
+      replacements: [scope.gardenId],
+      transaction,
+    });
     await this.touch(scope.gardenId, transaction);
     if ('plantingId' in scope) {
       await this.db.query('DELETE FROM planting_progress WHERE planting_id = ?', { replacements: [scope.plantingId], transaction });

@@ -55,7 +55,8 @@ export async function getSeedLot(gardenId: number, seedLotId: number) {
 
 export async function createSeedLot(gardenId: number, input: SeedLotCreateInput) {
   await varietyInGarden(gardenId, input.varietyId);
-  const lot = await SeedLot.create({ gardenId, ...input });
+  // In a transaction, so the garden's revision moves with the row (progress-invalidation.ts).
+  const lot = await inTransaction(SeedLot.sequelize!, (transaction) => SeedLot.create({ gardenId, ...input }, { transaction }));
   return getSeedLot(gardenId, lot.id);
 }
 
@@ -89,13 +90,13 @@ export async function deleteSeedLot(gardenId: number, seedLotId: number) {
 
 export async function addGerminationTest(gardenId: number, seedLotId: number, input: GerminationTestCreateInput) {
   const lot = await getSeedLot(gardenId, seedLotId);
-  return GerminationTest.create({ gardenId, seedLotId: lot.id, notes: '', ...input });
+  return inTransaction(SeedLot.sequelize!, (transaction) => GerminationTest.create({ gardenId, seedLotId: lot.id, notes: '', ...input }, { transaction }));
 }
 
 export async function deleteGerminationTest(gardenId: number, seedLotId: number, testId: number) {
   const test = await GerminationTest.findOne({ where: { id: testId, seedLotId, gardenId } });
   if (!test) throw AppError.notFound('That germination test');
-  await test.destroy();
+  await inTransaction(SeedLot.sequelize!, (transaction) => test.destroy({ transaction }));
 }
 
 /** Tests come newest first from testsOf. */

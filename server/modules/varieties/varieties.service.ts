@@ -10,6 +10,7 @@ import { likeText, limitOffset } from '../records/paging';
 import { unreferencedOr409, uniqueOr409 } from '../records/unique';
 import { varietyFields } from './varieties.presenter';
 import { effectiveValues, getCrop } from '../crops/crops.service';
+import { inTransaction } from '../../lib/transaction';
 
 type VarietyListQuery = z.output<typeof varietyListQuerySchema>;
 
@@ -40,7 +41,8 @@ async function targetBasisColumns(gardenId: number, cropKey: string, override: n
 
 export async function createVariety(gardenId: number, input: VarietyCreateInput) {
   const basis = await targetBasisColumns(gardenId, input.cropKey, input.gddTargetOverrideC);
-  return uniqueOr409(() => Variety.create({ gardenId, ...input, ...basis }), duplicate, 'name');
+  // Each write in a transaction, so the garden's counters move with the row (progress-invalidation.ts).
+  return uniqueOr409(() => inTransaction(Variety.sequelize!, (transaction) => Variety.create({ gardenId, ...input, ...basis }, { transaction })), duplicate, 'name');
 }
 
 export async function updateVariety(gardenId: number, varietyId: number, input: VarietyUpdateInput) {
@@ -58,7 +60,7 @@ export async function updateVariety(gardenId: number, varietyId: number, input: 
   }
   // Sending the target again, even unchanged, re-reads it in the crop's current method.
   const basis = input.gddTargetOverrideC !== undefined ? await targetBasisColumns(gardenId, merged.cropKey, input.gddTargetOverrideC) : {};
-  return uniqueOr409(() => variety.update({ ...input, ...basis }), duplicate, 'name');
+  return uniqueOr409(() => inTransaction(Variety.sequelize!, (transaction) => variety.update({ ...input, ...basis }, { transaction })), duplicate, 'name');
 }
 
 export async function deleteVariety(gardenId: number, varietyId: number) {
@@ -67,5 +69,5 @@ export async function deleteVariety(gardenId: number, varietyId: number) {
   if (lots || plantings) {
     throw new AppError(409, 'in_use', `This variety has ${plantings} planting(s) and ${lots} seed lot(s) on record; delete those first.`);
   }
-  await unreferencedOr409(() => variety.destroy(), 'A planting or seed lot was just added for this variety; delete it first.');
+  await unreferencedOr409(() => inTransaction(Variety.sequelize!, (transaction) => variety.destroy({ transaction })), 'A planting or seed lot was just added for this variety; delete it first.');
 }

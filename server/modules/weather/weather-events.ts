@@ -6,6 +6,7 @@
  */
 import { QueryTypes } from 'sequelize';
 import type { Sequelize, Transaction } from 'sequelize';
+import { moveGardenRevisions } from '../../lib/garden-revision';
 
 /** Every step that re-evaluates a garden when its weather changes; the progress step evaluates alerts after it. */
 export const GARDEN_EVENT_CONSUMERS = ['planting-progress'] as const;
@@ -35,13 +36,14 @@ export async function recordWeatherChanged(
           })
         ).map((g) => g.id);
   if (!gardenIds.length) return;
-  // The gardens' change counters move in the same transaction: cached reads keyed on them
-  // (server/lib/read-cache.ts) stop being served the moment the change commits, and a progress
-  // answer computed from the days before it is not stored.
+  // The gardens' counters move in the same transaction: a progress answer computed from the days
+  // before the change is not stored (epoch), and cached reads stop being served the moment the
+  // change commits (revision, server/lib/read-cache.ts).
   await db.query(
     `INSERT INTO progress_epochs (garden_id, epoch) VALUES ${gardenIds.map(() => '(?, 1)').join(', ')} ON DUPLICATE KEY UPDATE epoch = epoch + 1`,
     { replacements: gardenIds, transaction },
   );
+  await moveGardenRevisions(db, gardenIds, transaction);
   const rows = gardenIds.flatMap((gardenId) => consumers.map((consumer) => [consumer, gardenId, from, to]));
   await db.query(
     `INSERT INTO garden_events (consumer, garden_id, from_date, to_date, version, attempts, status, run_after, created_at, updated_at)

@@ -47,31 +47,38 @@ export function weatherRouter(deps: { sequelize: Sequelize; weather: WeatherServ
         handler: async (req, res) => {
           const q = parseQuery(weatherQuerySchema, req.query);
           const today = localDate(req.membership!.garden.timeZone, weather.now());
-          await cache.send(req, res, 'weather', today, async () => {
-            const garden = await getGarden(req.membership!.gardenId);
-            const from = q.from ?? addDays(q.to ?? today, -30);
-            const to = q.to ?? addDays(today, weather.settings.forecastDays - 1);
-            if (daysBetween(from, to) + 1 > MAX_WEATHER_DAYS) {
-              const msg = `Ask for at most ${MAX_WEATHER_DAYS} days at a time.`;
-              throw new AppError(400, 'validation_failed', msg, { [q.from ? 'from' : 'to']: msg });
-            }
-            const days = await weather.gardenSeries(garden, from, to);
-            const pastEnd = [to, addDays(today, -1)].sort()[0];
-            const observedDates = new Set(days.filter((d) => d.source !== 'forecast').map((d) => d.date));
-            const status = await weather.backfillStatus(garden.weatherCellId);
-            const body: WeatherResponse = {
-              unit: garden.units,
-              thresholds: await activeThresholds(garden.id, garden.units),
-              from,
-              to,
-              today,
-              days: days.map((d) => presentDay(d, garden.units)),
-              gaps: from <= pastEnd ? findGaps(observedDates, from, pastEnd) : [],
-              history: status && { ...status, refreshedAt: status.refreshedAt ? new Date(status.refreshedAt).toISOString() : null },
-            };
-            return body;
-            // A history still loading (or failed) changes without its days changing: not kept.
-          }, (body) => !body.history || (body.history.complete && !body.history.running && !body.history.error));
+          // The days, gaps and thresholds follow the garden's counters and are kept; the history
+          // status (a cell's loading progress, last refresh, error) is read fresh every time.
+          const [cached, status] = await Promise.all([
+            cache.remember(req, 'weather', today, async () => {
+              const garden = await getGarden(req.membership!.gardenId);
+              const from = q.from ?? addDays(q.to ?? today, -30);
+              const to = q.to ?? addDays(today, weather.settings.forecastDays - 1);
+              if (daysBetween(from, to) + 1 > MAX_WEATHER_DAYS) {
+                const msg = `Ask for at most ${MAX_WEATHER_DAYS} days at a time.`;
+                throw new AppError(400, 'validation_failed', msg, { [q.from ? 'from' : 'to']: msg });
+              }
+              const days = await weather.gardenSeries(garden, from, to);
+              const pastEnd = [to, addDays(today, -1)].sort()[0];
+              const observedDates = new Set(days.filter((d) => d.source !== 'forecast').map((d) => d.date));
+              const body: Omit<WeatherResponse, 'history'> = {
+                unit: garden.units,
+                thresholds: await activeThresholds(garden.id, garden.units),
+                from,
+                to,
+                today,
+                days: days.map((d) => presentDay(d, garden.units)),
+                gaps: from <= pastEnd ? findGaps(observedDates, from, pastEnd) : [],
+              };
+              return body;
+            }),
+            weather.backfillStatus(req.membership!.garden.weatherCellId),
+          ]);
+          const body: WeatherResponse = {
+            ...cached,
+            history: status && { ...status, refreshedAt: status.refreshedAt ? new Date(status.refreshedAt).toISOString() : null },
+          };
+          res.json(body);
         },
       },
       {

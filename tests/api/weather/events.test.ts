@@ -12,9 +12,10 @@ function place() {
   return { latitude: Math.round((20 + Math.random() * 40) * 10) / 10 + 0.02, longitude: Math.round((-170 + Math.random() * 340) * 10) / 10 + 0.02 };
 }
 
+/** The garden's weather events (moving a garden to its cell also owes it an alert evaluation, not counted here). */
 async function events(gardenId: number) {
   return sequelize.query<{ consumer: string; from: string; to: string; version: number; status: string }>(
-    'SELECT consumer, from_date AS `from`, to_date AS `to`, version, status FROM garden_events WHERE garden_id = ? ORDER BY consumer',
+    "SELECT consumer, from_date AS `from`, to_date AS `to`, version, status FROM garden_events WHERE garden_id = ? AND consumer = 'planting-progress' ORDER BY consumer",
     { replacements: [gardenId], type: QueryTypes.SELECT },
   );
 }

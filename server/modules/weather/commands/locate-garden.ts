@@ -1,4 +1,4 @@
-import { Garden } from '../../../db/models';
+import type { Garden } from '../../../db/models';
 import { inTransaction } from '../../../lib/transaction';
 import { recordWeatherChanged } from '../weather-events';
 import type { WeatherContext } from '../weather-context';
@@ -13,7 +13,8 @@ export async function locateGarden(ctx: WeatherContext, garden: Garden): Promise
   const cellId = await ctx.repo.findOrCreateCell(garden.latitude, garden.longitude, garden.timeZone);
   if (cellId === garden.weatherCellId) return null;
   await inTransaction(ctx.sequelize, async (transaction) => {
-    await Garden.update({ weatherCellId: cellId }, { where: { id: garden.id }, transaction });
+    // Through the instance, so the garden's hooks drop its progress and move its revision here too.
+    await garden.update({ weatherCellId: cellId }, { transaction });
     const span = await ctx.repo.cellSpan(cellId, transaction);
     if (span) {
       await recordWeatherChanged(transaction, { gardenId: garden.id }, span.from, span.to);
