@@ -1,11 +1,15 @@
-import '@fontsource/roboto-flex';
+import '@fontsource-variable/roboto-flex';
 import '@/app/styles.css';
 import { StrictMode } from 'react';
 import { createRoot } from 'react-dom/client';
 import { RouterProvider } from 'react-router-dom';
-import { AppProviders } from '@/app/providers';
+import { AppProviders, appQueryClient } from '@/app/providers';
 import { createAppRouter } from '@/app/router';
+import { meQueryOptions } from '@/features/auth/api/get-me';
 
+// Every page waits on the session check: ask for it before the page downloads take up the
+// browser's few connections to the server.
+void appQueryClient.prefetchQuery(meQueryOptions());
 const router = createAppRouter();
 
 const root = document.getElementById('root');

@@ -4,7 +4,7 @@ import type { QueryClient } from '@tanstack/react-query';
 import { createQueryClient } from '@/lib/query-client';
 
 /** The one QueryClient of the app. */
-const appQueryClient = createQueryClient();
+export const appQueryClient = createQueryClient();
 
 /** Tests pass their own fresh client; the app uses the shared one. */
 export function AppProviders({

@@ -1,58 +1,68 @@
-import { createBrowserRouter } from 'react-router-dom';
+import { createBrowserRouter, matchRoutes } from 'react-router-dom';
 import type { RouteObject } from 'react-router-dom';
+import type { ComponentType } from 'react';
 import { NotFoundMessage } from '@/components/ui/not-found-message';
 import { RequireAuth } from '@/features/auth/components/require-auth';
-import { RegisterPage } from '@/app/routes/auth/register';
-import { SignInPage } from '@/app/routes/auth/sign-in';
-import { FirstGardenPage } from '@/app/routes/gardens/first-garden';
-import { GardenLayout } from '@/app/routes/gardens/garden-layout';
-import { GardenSettingsPage } from '@/app/routes/gardens/garden-settings';
-import { TodayPage } from '@/app/routes/gardens/today';
-import { NotFoundPage } from '@/app/routes/misc/not-found';
-import { WeatherPage } from '@/app/routes/weather/weather';
-import { PlantingsPage } from '@/app/routes/plantings/plantings';
-import { PlantingDetailPage } from '@/app/routes/plantings/planting-detail';
-import { VarietiesPage } from '@/app/routes/varieties/varieties';
-import { SeedLotsPage } from '@/app/routes/seed-lots/seed-lots';
-import { BedsPage } from '@/app/routes/beds/beds';
-import { CropsPage } from '@/app/routes/crops/crops';
-import { MailboxPage } from '@/app/routes/mailbox/mailbox';
-import { UnsubscribePage } from '@/app/routes/unsubscribe/unsubscribe';
-import { AlertsPage } from '@/app/routes/alerts/alerts';
+import { lazyPart } from '@/lib/lazy-part';
+
+type PageHandle = { preload: () => Promise<unknown> };
+
+/**
+ * Each page is its own chunk, downloaded when first shown. Its loading line and download
+ * failure appear where the page goes, so inside a garden the header stays in place.
+ */
+function page(load: () => Promise<ComponentType>): Pick<RouteObject, 'element' | 'handle'> {
+  const Page = lazyPart(load, { loading: 'Opening the page…', failed: 'This page could not be loaded' });
+  return { element: <Page />, handle: { preload: Page.preload } satisfies PageHandle };
+}
 
 export const routes: RouteObject[] = [
-  { path: '/sign-in', element: <SignInPage /> },
-  { path: '/register', element: <RegisterPage /> },
+  { path: '/sign-in', ...page(() => import('@/app/routes/auth/sign-in').then((m) => m.SignInPage)) },
+  { path: '/register', ...page(() => import('@/app/routes/auth/register').then((m) => m.RegisterPage)) },
   // Opened from an e-mail, often on a device that is not signed in.
-  { path: '/unsubscribe/:token', element: <UnsubscribePage /> },
+  { path: '/unsubscribe/:token', ...page(() => import('@/app/routes/unsubscribe/unsubscribe').then((m) => m.UnsubscribePage)) },
   {
     element: <RequireAuth />,
     children: [
-      { path: '/', element: <FirstGardenPage /> },
-      { path: '/mailbox', element: <MailboxPage /> },
+      { path: '/', ...page(() => import('@/app/routes/gardens/first-garden').then((m) => m.FirstGardenPage)) },
+      { path: '/mailbox', ...page(() => import('@/app/routes/mailbox/mailbox').then((m) => m.MailboxPage)) },
       {
         path: '/g/:gardenId',
-        element: <GardenLayout />,
+        ...page(() => import('@/app/routes/gardens/garden-layout').then((m) => m.GardenLayout)),
         children: [
-          { index: true, element: <TodayPage /> },
-          { path: 'plantings', element: <PlantingsPage /> },
-          { path: 'plantings/:plantingId', element: <PlantingDetailPage /> },
-          { path: 'varieties', element: <VarietiesPage /> },
-          { path: 'seed-lots', element: <SeedLotsPage /> },
-          { path: 'beds', element: <BedsPage /> },
-          { path: 'crops', element: <CropsPage /> },
-          { path: 'weather', element: <WeatherPage /> },
-          { path: 'alerts', element: <AlertsPage /> },
-          { path: 'settings', element: <GardenSettingsPage /> },
+          { index: true, ...page(() => import('@/app/routes/gardens/today').then((m) => m.TodayPage)) },
+          { path: 'plantings', ...page(() => import('@/app/routes/plantings/plantings').then((m) => m.PlantingsPage)) },
+          {
+            path: 'plantings/:plantingId',
+            ...page(() => import('@/app/routes/plantings/planting-detail').then((m) => m.PlantingDetailPage)),
+          },
+          { path: 'varieties', ...page(() => import('@/app/routes/varieties/varieties').then((m) => m.VarietiesPage)) },
+          { path: 'seed-lots', ...page(() => import('@/app/routes/seed-lots/seed-lots').then((m) => m.SeedLotsPage)) },
+          { path: 'beds', ...page(() => import('@/app/routes/beds/beds').then((m) => m.BedsPage)) },
+          { path: 'crops', ...page(() => import('@/app/routes/crops/crops').then((m) => m.CropsPage)) },
+          { path: 'weather', ...page(() => import('@/app/routes/weather/weather').then((m) => m.WeatherPage)) },
+          { path: 'alerts', ...page(() => import('@/app/routes/alerts/alerts').then((m) => m.AlertsPage)) },
+          { path: 'settings', ...page(() => import('@/app/routes/gardens/garden-settings').then((m) => m.GardenSettingsPage)) },
           // Inside a garden, an unknown page keeps the header so the grower can find their way.
           { path: '*', element: <NotFoundMessage /> },
         ],
       },
     ],
   },
-  { path: '*', element: <NotFoundPage /> },
+  { path: '*', ...page(() => import('@/app/routes/misc/not-found').then((m) => m.NotFoundPage)) },
 ];
 
+/**
+ * Starts downloading every page the address shows (a garden's layout and its page together)
+ * while the session is still being checked, instead of one after the other.
+ */
+function preloadPagesFor(pathname: string) {
+  for (const match of matchRoutes(routes, pathname) ?? []) (match.route.handle as PageHandle | undefined)?.preload();
+}
+
 export function createAppRouter() {
-  return createBrowserRouter(routes);
+  const router = createBrowserRouter(routes);
+  preloadPagesFor(router.state.location.pathname);
+  router.subscribe((state) => preloadPagesFor(state.location.pathname));
+  return router;
 }

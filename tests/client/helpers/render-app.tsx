@@ -2,12 +2,24 @@ import { render } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { QueryClient } from '@tanstack/react-query';
 import { createMemoryRouter, RouterProvider } from 'react-router-dom';
+import type { RouteObject } from 'react-router-dom';
 import { http, HttpResponse } from 'msw';
 import type { UserDto } from '#shared/schemas/auth';
 import type { GardenDto } from '#shared/schemas/gardens';
 import { AppProviders } from '@/app/providers';
 import { routes } from '@/app/router';
 import { aToday } from './data';
+
+function everyRoute(list: RouteObject[]): RouteObject[] {
+  return list.flatMap((route) => [route, ...everyRoute(route.children ?? [])]);
+}
+
+/**
+ * In the app each page downloads when first shown. Here every page is imported once per test
+ * file before any test runs, so a test meets its page ready instead of racing the first import.
+ * (tests/client/lazy-part.test.tsx covers the loading line and a failed download.)
+ */
+await Promise.all(everyRoute(routes).map((route) => (route.handle as { preload?: () => Promise<unknown> } | undefined)?.preload?.()));
 
 /** Renders the whole app at `path` with a fresh client that never retries. */
 export function renderApp(path: string) {

@@ -1,13 +1,15 @@
-import { lazy, Suspense } from 'react';
 import type { ProgressDto } from '#shared/schemas/progress';
-import { Loading } from '@/components/ui/loading';
 import { ChartLegend } from '@/components/ui/chart-legend';
 import type { LegendItem } from '@/components/ui/chart-legend';
 import { BoltRiskStrip } from '@/features/progress/components/bolt-risk-strip';
 import { ProgressTable } from '@/features/progress/components/progress-table';
+import { lazyPart } from '@/lib/lazy-part';
 
 // Recharts is large: it loads with this component, in its own chunk, only when a chart is shown.
-const ProgressChart = lazy(() => import('@/features/progress/components/progress-chart').then((m) => ({ default: m.ProgressChart })));
+const ProgressChart = lazyPart(() => import('@/features/progress/components/progress-chart').then((m) => m.ProgressChart), {
+  loading: 'Drawing the chart…',
+  failed: 'The chart could not be loaded',
+});
 
 const LEGEND: LegendItem[] = [
   { swatch: <line x1="0" y1="6" x2="28" y2="6" className="stroke-leaf" strokeWidth="3" />, words: 'Degree days so far' },
@@ -32,9 +34,7 @@ export function ProgressChartPanel({ progress, title }: { progress: ProgressDto;
       </figcaption>
       {hasDays ? (
         <div className="min-h-64 w-full min-w-0">
-          <Suspense fallback={<Loading label="Drawing the chart…" />}>
-            <ProgressChart progress={progress} />
-          </Suspense>
+          <ProgressChart progress={progress} />
         </div>
       ) : (
         <p className="text-loam-soft">No days to draw yet: the chart starts once the planting has a start date and weather.</p>

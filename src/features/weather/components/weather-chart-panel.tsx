@@ -1,16 +1,16 @@
-import { lazy, Suspense } from 'react';
 import type { WeatherResponse } from '#shared/schemas/weather';
-import { Loading } from '@/components/ui/loading';
 import { ChartLegend } from '@/components/ui/chart-legend';
 import type { LegendItem } from '@/components/ui/chart-legend';
 import { formatTemp } from '@/lib/format';
+import { lazyPart } from '@/lib/lazy-part';
 import { numberThresholds } from '@/features/weather/utils/chart-series';
 import { formatCount, formatDayRange } from '@/features/weather/utils/format-weather';
 
 // Recharts is large: it loads with this component, in its own chunk, only when a chart is shown.
-const WeatherChart = lazy(() =>
-  import('@/features/weather/components/weather-chart').then((m) => ({ default: m.WeatherChart })),
-);
+const WeatherChart = lazyPart(() => import('@/features/weather/components/weather-chart').then((m) => m.WeatherChart), {
+  loading: 'Drawing the chart…',
+  failed: 'The chart could not be loaded',
+});
 
 const LEGEND: LegendItem[] = [
   { swatch: <line x1="0" y1="6" x2="28" y2="6" className="stroke-ember" strokeWidth="3" />, words: 'Daily high' },
@@ -76,9 +76,7 @@ export function WeatherChartPanel({ weather }: { weather: WeatherResponse }) {
         <span className="sr-only">. The same days are listed in the table below.</span>
       </figcaption>
       <div className="min-h-64 w-full min-w-0">
-        <Suspense fallback={<Loading label="Drawing the chart…" />}>
-          <WeatherChart weather={weather} />
-        </Suspense>
+        <WeatherChart weather={weather} />
       </div>
       <ChartLegend items={LEGEND} className="grid grid-cols-2 gap-x-4 gap-y-1.5 text-sm sm:flex sm:flex-wrap sm:gap-x-5" />
       <GapList gaps={weather.gaps} />
