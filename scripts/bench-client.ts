@@ -12,18 +12,9 @@ import { join } from 'node:path';
 import { pathToFileURL } from 'node:url';
 import { chromium } from 'playwright-core';
 import type { BrowserContext, Page } from 'playwright-core';
+import { CHROMIUM, CHROMIUM_ARGS } from '../tests/helpers/chromium';
 
 const DEMO = { email: 'grower.rosa@hollowbrook.example', password: 'heatclock-demo' };
-const CHROMIUM_ARGS = [
-  '--headless',
-  '--no-sandbox',
-  '--disable-gpu',
-  '--disable-quic',
-  '--no-first-run',
-  '--disable-background-networking',
-  '--disable-component-update',
-  '--disable-sync',
-];
 /** Recharts and the two chunks that draw with it; no other page needs them. */
 const CHART_CHUNK = /\/assets\/(recharts|weather-chart|progress-chart)-[^/]*\.js$/;
 const LOADS = 3;
@@ -124,7 +115,7 @@ const median = (values: number[]) => [...values].sort((a, b) => a - b)[Math.floo
 export async function benchClient(baseUrl: string): Promise<ClientFigures> {
   const profile = await mkdtemp(join(tmpdir(), 'heatclock-bench-'));
   const context = await chromium.launchPersistentContext(profile, {
-    executablePath: '/usr/bin/chromium',
+    executablePath: CHROMIUM,
     headless: true,
     args: CHROMIUM_ARGS,
     viewport: { width: 1280, height: 800 },

@@ -7,8 +7,9 @@ import type { Browser, Page } from 'playwright-core';
 import { createApp } from '../../server/app';
 import { projectRoot } from '../../server/config';
 import { testDb } from './test-app';
+import { CHROMIUM, CHROMIUM_ARGS } from './chromium';
 
-export const CHROMIUM = '/usr/bin/chromium';
+export { CHROMIUM } from './chromium';
 
 /**
  * The built client and the API in this process on a free loopback port, and Debian's Chromium
@@ -28,16 +29,7 @@ export async function startBrowserSession() {
   mkdirSync(screenshotDir, { recursive: true });
   const browser: Browser = await chromium.launch({
     executablePath: CHROMIUM,
-    args: [
-      '--headless',
-      '--no-sandbox',
-      '--disable-gpu',
-      '--disable-quic',
-      '--no-first-run',
-      '--disable-background-networking',
-      '--disable-component-update',
-      '--disable-sync',
-    ],
+    args: CHROMIUM_ARGS,
   });
   const offsite: string[] = [];
   const pageErrors: string[] = [];
