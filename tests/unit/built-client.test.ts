@@ -1,0 +1,39 @@
+import { describe, expect, it } from 'vitest';
+import { existsSync, readdirSync, readFileSync } from 'node:fs';
+import path from 'node:path';
+import { projectRoot } from '../../server/config';
+
+/** The client as `npm test` builds it (scripts/build-client.sh) before the tests run. */
+const dist = path.join(projectRoot, 'dist', 'client');
+const shell = () => {
+  const file = path.join(dist, 'index.html');
+  if (!existsSync(file)) throw new Error('Build the client first: npx vite build (npm test does)');
+  return readFileSync(file, 'utf8');
+};
+
+describe('the built client', () => {
+  it('when the page shell loads, then it preloads one font file, the Latin variable Roboto Flex, and that file exists', () => {
+    const fonts = [...shell().matchAll(/<link rel="preload" href="([^"]+)" as="font" type="font\/woff2" crossorigin/g)].map((m) => m[1]);
+    expect(fonts).toHaveLength(1);
+    expect(fonts[0]).toMatch(/^\/assets\/roboto-flex-latin-wght-normal-[\w-]+\.woff2$/);
+    expect(existsSync(path.join(dist, fonts[0]))).toBe(true);
+  });
+
+  it('when the page shell loads, then nothing it loads or preloads up front holds the chart library', () => {
+    const upFront = [...shell().matchAll(/(?:src|href)="(\/assets\/[^"]+\.js)"/g)].map((m) => m[1]);
+    expect(upFront.length).toBeGreaterThan(0);
+    for (const file of upFront) {
+      expect(file).not.toMatch(/recharts|chart/);
+      expect(readFileSync(path.join(dist, file), 'utf8')).not.toMatch(/recharts/i);
+    }
+  });
+
+  it('when assets are built, then every script and stylesheet has a brotli and a gzip copy beside it', () => {
+    const assets = readdirSync(path.join(dist, 'assets')).filter((f) => /\.(js|css)$/.test(f));
+    expect(assets.length).toBeGreaterThan(5);
+    for (const f of assets) {
+      expect(existsSync(path.join(dist, 'assets', `${f}.br`)), `${f}.br`).toBe(true);
+      expect(existsSync(path.join(dist, 'assets', `${f}.gz`)), `${f}.gz`).toBe(true);
+    }
+  });
+});
