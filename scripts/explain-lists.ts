@@ -19,6 +19,7 @@ import { varietyListQuerySchema } from '#shared/schemas/varieties';
 import { seedLotListQuerySchema } from '#shared/schemas/seed-lots';
 import { addDays } from '#shared/thermal/dates';
 import { localDate } from '../server/lib/local-date';
+import { ACCESS_COLUMNS, ACCESS_JOINS } from '../server/lib/garden-access';
 
 const DB = process.env.BENCH_DB_NAME ?? 'heatclock_bench';
 const base = loadConfig();
@@ -62,7 +63,15 @@ await explain('Session read (every signed-in request)', () =>
     type: QueryTypes.SELECT,
   }),
 );
-await explain('Garden access check (every garden request)', () =>
+await explain('Session read on a garden path, with the member’s access (every garden request)', () =>
+  sequelize.query(
+    `SELECT s.data, s.expires, u.id AS userId, u.email, u.name, m.user_id AS memberId, ${ACCESS_COLUMNS}
+       FROM sessions s LEFT JOIN users u ON u.id = s.user_id LEFT JOIN (memberships m ${ACCESS_JOINS}) ON m.user_id = s.user_id AND m.garden_id = ?
+      WHERE s.sid = ? AND s.expires > ?`,
+    { replacements: [big.id, 'x'.repeat(32), new Date()], type: QueryTypes.SELECT },
+  ),
+);
+await explain('Garden access check, when the session read could not bring it', () =>
   sequelize.query(
     `SELECT m.role, g.name, g.time_zone AS timeZone, g.units, g.latitude, g.weather_cell_id AS weatherCellId, gr.revision, ae.revision AS alerts
        FROM memberships m JOIN gardens g ON g.id = m.garden_id

@@ -1,9 +1,9 @@
 import type { Request, RequestHandler, Router } from 'express';
 import type { Role } from '#shared/schemas/gardens';
-import { QueryTypes } from 'sequelize';
 import type { DisplayUnit } from '#shared/schemas/gardens';
 import { AppError } from '../errors';
 import { Membership } from '../db/models';
+import { accessContext, readAccess } from './garden-access';
 
 /**
  * Every API route is declared with the access it needs; the middleware follows from the
@@ -50,11 +50,7 @@ export interface GardenMembership {
   revision: string;
 }
 
-interface AccessRow extends Omit<GardenFacts, 'id'> {
-  role: Role;
-  revision: number | null;
-  alerts: number | null;
-}
+
 
 declare global {
   // eslint-disable-next-line @typescript-eslint/no-namespace
@@ -77,17 +73,9 @@ function gardenAccess(min: Role): RequestHandler {
     const raw = String(req.params.gardenId ?? '');
     const gardenId = /^[1-9]\d{0,9}$/.test(raw) ? Number(raw) : NaN;
     if (!Number.isSafeInteger(gardenId) || gardenId > 2_147_483_647) throw AppError.notFound('That garden');
-    // One indexed read: the role, the garden's facts and its change counters.
-    const [m] = await Membership.sequelize!.query<AccessRow>(
-      `SELECT m.role, g.name, g.time_zone AS timeZone, g.units, g.latitude, g.weather_cell_id AS weatherCellId,
-              gr.revision, ae.revision AS alerts
-         FROM memberships m
-         JOIN gardens g ON g.id = m.garden_id
-         LEFT JOIN garden_revisions gr ON gr.garden_id = m.garden_id
-         LEFT JOIN alert_evaluations ae ON ae.garden_id = m.garden_id
-        WHERE m.user_id = ? AND m.garden_id = ?`,
-      { replacements: [user.id, gardenId], type: QueryTypes.SELECT },
-    );
+    // Read with this request's session when it could be (one round trip), else on its own.
+    const ctx = accessContext.getStore();
+    const m = ctx && ctx.gardenId === gardenId && ctx.userId === user.id && ctx.access !== undefined ? ctx.access : await readAccess(Membership.sequelize!, user.id, gardenId);
     if (!m) throw AppError.notFound('That garden');
     if (rank[m.role] < rank[min]) {
       throw AppError.forbidden(
@@ -96,8 +84,8 @@ function gardenAccess(min: Role): RequestHandler {
           : 'Viewers can look at everything but cannot change records. Ask the owner for the grower role.',
       );
     }
-    const { role, revision, alerts, ...facts } = m;
-    req.membership = { gardenId, role, garden: { id: gardenId, ...facts }, revision: `${revision ?? 0}.${alerts ?? 0}` };
+    const { role, revision, alerts, gardenName, ...facts } = m;
+    req.membership = { gardenId, role, garden: { id: gardenId, name: gardenName, ...facts }, revision: `${revision ?? 0}.${alerts ?? 0}` };
     next();
   };
 }

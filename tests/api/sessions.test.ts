@@ -1,7 +1,7 @@
 import { describe, expect, it, vi } from 'vitest';
 import request from 'supertest';
 import { testApp, agent } from '../helpers/test-app';
-import { createUser, signIn } from '../helpers/factories';
+import { addMember, createGarden, createUser, signIn } from '../helpers/factories';
 import { Session } from '../../server/db/models';
 import { TOUCH_EVERY_MS } from '../../server/modules/auth/session-store';
 
@@ -47,6 +47,26 @@ describe('sessions', () => {
     expect(after.updatedAt).toEqual(before.updatedAt);
     expect(after.expires).toEqual(before.expires);
     expect(after.data).toBe(before.data);
+  });
+
+  it('when a garden page is read again, then the whole request is one database read: the session brings the member’s access', async () => {
+    const user = await createUser();
+    const garden = await createGarden();
+    await addMember(user.id, garden.id, 'viewer');
+    const a = agent(app);
+    await signIn(a, user.email);
+    expect((await a.get(`/api/gardens/${garden.id}/plantings`)).status).toBe(200);
+    const db = Session.sequelize!;
+    const spy = vi.spyOn(db, 'query');
+    try {
+      expect((await a.get(`/api/gardens/${garden.id}/plantings`)).status).toBe(200);
+      expect(spy.mock.calls.map(([sql]) => String(sql).replace(/\s+/g, ' ').slice(0, 60))).toEqual([expect.stringMatching(/^SELECT s\.data, s\.expires/)]);
+    } finally {
+      spy.mockRestore();
+    }
+    // Demoted to nothing: the very next request, still one read, is refused.
+    await db.query('DELETE FROM memberships WHERE user_id = ? AND garden_id = ?', { replacements: [user.id, garden.id] });
+    expect((await a.get(`/api/gardens/${garden.id}/plantings`)).status).toBe(404);
   });
 
   it('when the stored expiry is older than the touch interval, then one read moves it forward once', async () => {

@@ -14,6 +14,8 @@ import type { SessionData } from 'express-session';
 import { QueryTypes } from 'sequelize';
 import type { Sequelize } from 'sequelize';
 import type { UserDto } from '#shared/schemas/auth';
+import { accessContext, ACCESS_COLUMNS, ACCESS_JOINS } from '../../lib/garden-access';
+import type { AccessRow } from '../../lib/garden-access';
 
 /** The expiry is written again only once it would move by more than this. */
 export const TOUCH_EVERY_MS = 5 * 60_000;
@@ -57,14 +59,27 @@ export class SqlSessionStore extends session.Store {
   }
 
   override get(sid: string, cb: Callback<SessionData | null>) {
+    // On a garden's path, the member's access to it comes in the same read (garden-access.ts).
+    const ctx = accessContext.getStore();
+    const gardenId = ctx?.gardenId ?? null;
+    const access = gardenId ? `, m.user_id AS memberId, ${ACCESS_COLUMNS}` : '';
+    const joins = gardenId ? `LEFT JOIN (memberships m ${ACCESS_JOINS}) ON m.user_id = s.user_id AND m.garden_id = ?` : '';
     this.db
-      .query<Row>(
-        `SELECT s.data, s.expires, u.id AS userId, u.email, u.name
-           FROM sessions s LEFT JOIN users u ON u.id = s.user_id
+      .query<Row & Partial<AccessRow> & { memberId?: number | null }>(
+        `SELECT s.data, s.expires, u.id AS userId, u.email, u.name${access}
+           FROM sessions s LEFT JOIN users u ON u.id = s.user_id ${joins}
           WHERE s.sid = ? AND s.expires > ?`,
-        { replacements: [sid, new Date()], type: QueryTypes.SELECT },
+        { replacements: gardenId ? [gardenId, sid, new Date()] : [sid, new Date()], type: QueryTypes.SELECT },
       )
       .then(([row]) => {
+        if (ctx && gardenId && row?.userId != null) {
+          const { memberId, role, gardenName, timeZone, units, latitude, weatherCellId, revision, alerts } = row;
+          ctx.userId = row.userId;
+          ctx.access =
+            memberId == null
+              ? null
+              : { role: role!, gardenName: gardenName!, timeZone: timeZone!, units: units!, latitude: latitude ?? null, weatherCellId: weatherCellId ?? null, revision: revision ?? null, alerts: alerts ?? null };
+        }
         if (!row?.data) {
           this.loaded.delete(sid);
           return cb(null, null);
