@@ -5,12 +5,14 @@ import { formatElevation, formatLocation, HEMISPHERE_SENTENCES, UNIT_WORDS } fro
 
 function Fact({ icon: Icon, term, children }: { icon: typeof MapPin; term: string; children: ReactNode }) {
   return (
-    <div className="flex gap-3 py-3">
-      <Icon className="mt-0.5 size-5 shrink-0 text-loam-soft" aria-hidden="true" />
-      <div className="min-w-0">
-        <dt className="text-sm font-semibold text-loam-soft">{term}</dt>
-        <dd className="break-words">{children}</dd>
-      </div>
+    // dt and dd sit right inside the div that is right inside the dl, so each label stays paired
+    // with its value for screen readers; the icon is drawn in the label's margin.
+    <div className="relative min-w-0 py-3 pl-8">
+      <dt className="text-sm font-semibold text-loam-soft">
+        <Icon className="absolute top-3.5 left-0 size-5 text-loam-soft" aria-hidden="true" />
+        {term}
+      </dt>
+      <dd className="break-words">{children}</dd>
     </div>
   );
 }
