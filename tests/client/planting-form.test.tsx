@@ -74,4 +74,19 @@ describe('planting form', () => {
     expect(seen[0].body).toMatchObject({ bedId: 3, varietyId: 7, seedLotId: 11, method: 'direct-sow', status: 'growing', quantity: 24, sownOn: '2025-04-02', emergedOn: null });
     expect(onSaved).not.toHaveBeenCalled();
   });
+
+  it('when no seed lot is chosen, or one is chosen and then cleared, then the planting saves without a lot and no lot error shows', async () => {
+    server.use(http.post('/api/gardens/1/plantings', () => HttpResponse.json({ planting: { id: 1 } }, { status: 201 })));
+    const { user, onSaved } = renderForm();
+    await user.selectOptions(screen.getByRole('combobox', { name: 'Bed' }), '3');
+    await user.selectOptions(screen.getByRole('combobox', { name: 'Variety' }), '7');
+    const lot = screen.getByRole('combobox', { name: 'Seed lot (optional)' });
+    await user.selectOptions(lot, '11');
+    await user.selectOptions(lot, '');
+    await user.click(screen.getByRole('button', { name: 'Save planting' }));
+    await waitFor(() => expect(seen).toHaveLength(1));
+    expect(screen.queryByText('Seed lot must be chosen.')).toBeNull();
+    expect(seen[0].body).toMatchObject({ bedId: 3, varietyId: 7, seedLotId: null });
+    await waitFor(() => expect(onSaved).toHaveBeenCalled());
+  });
 });

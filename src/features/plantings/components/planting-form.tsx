@@ -34,8 +34,8 @@ type FormInput = z.input<typeof plantingCreateSchema>;
 const FIELDS = ['bedId', 'varietyId', 'seedLotId', 'method', 'status', 'quantity', 'quantityUnit', ...STAGE_FIELDS, 'notes'] as const;
 
 // Inputs hold text; the schema wants numbers, dates or null. Blank is "not set", never zero.
-const idOrUndefined = (v: unknown) => (v === '' || v === undefined ? undefined : Number(v));
-const idOrNull = (v: unknown) => (v === '' || v === undefined ? null : Number(v));
+const idOrUndefined = (v: unknown) => (v === '' || v == null ? undefined : Number(v));
+const idOrNull = (v: unknown) => (v === '' || v == null ? null : Number(v));
 const numberOrNull = (v: unknown) => (typeof v === 'string' && v.trim() === '' ? null : Number(v));
 const dateOrNull = (v: unknown) => (v === '' || v === undefined ? null : v);
 
