@@ -5,6 +5,7 @@ import { isSouthern, monthDayOfOrdinal, seasonOfYear, seasonOrdinal, seasonStart
 import { toDenseSeries } from './series';
 import type { DenseSeries } from './series';
 import type { DailyTemp } from './types';
+import { countOf } from '../format/count-words';
 
 export interface SeasonFrost {
   season: string;
@@ -181,6 +182,6 @@ function extremeMinimum(s: DenseSeries, south: boolean, minCoverage: number): Ex
     zone: hardinessZone(meanC, 'C'),
     winters,
     estimate,
-    ...(estimate ? { reason: `only ${winters.length} complete winter${winters.length === 1 ? '' : 's'} of the garden's own data (fewer than ${MIN_WINTERS})` } : {}),
+    ...(estimate ? { reason: `only ${countOf(winters.length, 'complete winter')} of the garden's own data (fewer than ${MIN_WINTERS})` } : {}),
   };
 }

@@ -7,6 +7,7 @@ import { AppError } from '../../errors';
 import { likeText, limitOffset } from '../records/paging';
 import { unreferencedOr409, uniqueOr409 } from '../records/unique';
 import { inTransaction } from '../../lib/transaction';
+import { countOf } from '#shared/format/count-words';
 
 type BedListQuery = z.output<typeof bedListQuerySchema>;
 
@@ -64,7 +65,7 @@ export async function deleteBed(gardenId: number, bedId: number) {
   const bed = await getBed(gardenId, bedId);
   const used = await Planting.count({ where: { gardenId, bedId } });
   if (used) {
-    throw new AppError(409, 'in_use', `This bed has ${used} planting${used === 1 ? '' : 's'} on record; move or delete them first.`);
+    throw new AppError(409, 'in_use', `This bed has ${countOf(used, 'planting')} on record; move or delete them first.`);
   }
   await unreferencedOr409(() => inTransaction(Bed.sequelize!, (transaction) => bed.destroy({ transaction })), 'A planting was just added to this bed; move or delete it first.');
 }

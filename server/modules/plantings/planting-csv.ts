@@ -16,6 +16,7 @@ import { AppError } from '../../errors';
 import { inTransaction } from '../../lib/transaction';
 import { plantingIncludes } from './plantings.service';
 import { plantingFields } from './plantings.presenter';
+import { countOf } from '#shared/format/count-words';
 
 type Column = (typeof PLANTING_CSV_COLUMNS)[number];
 
@@ -147,7 +148,7 @@ function reject(problems: ImportProblem[], headline?: string): never {
   const err = new AppError(
     422,
     'import_invalid',
-    headline ?? `Nothing was imported: ${problems.length} problem${problems.length === 1 ? '' : 's'} in the file${more}.`,
+    headline ?? `Nothing was imported: ${countOf(problems.length, 'problem')} in the file${more}.`,
   );
   err.extra = { rows: shown.map((p) => ({ line: p.line, column: p.column || null, message: p.message })) };
   throw err;

@@ -9,6 +9,7 @@ import { AppError } from '../../errors';
 import { likeText, limitOffset } from '../records/paging';
 import { varietyInGarden } from '../records/scope';
 import { inTransaction } from '../../lib/transaction';
+import { countOf } from '#shared/format/count-words';
 
 type SeedLotListQuery = z.output<typeof seedLotListQuerySchema>;
 type SeedsToSowQuery = z.output<typeof seedsToSowQuerySchema>;
@@ -77,7 +78,7 @@ export async function updateSeedLot(gardenId: number, seedLotId: number, input: 
 export async function deleteSeedLot(gardenId: number, seedLotId: number) {
   const lot = await getSeedLot(gardenId, seedLotId);
   const used = await Planting.count({ where: { seedLotId } });
-  if (used) throw new AppError(409, 'in_use', `${used} planting(s) were sown from this lot; they keep it on record.`);
+  if (used) throw new AppError(409, 'in_use', `${countOf(used, 'planting was', 'plantings were')} sown from this lot; they keep it on record.`);
   await unreferencedOr409(
     () =>
       inTransaction(SeedLot.sequelize!, async (transaction) => {

@@ -11,6 +11,7 @@ import { unreferencedOr409, uniqueOr409 } from '../records/unique';
 import { varietyFields } from './varieties.presenter';
 import { effectiveValues, getCrop } from '../crops/crops.service';
 import { inTransaction } from '../../lib/transaction';
+import { countOf } from '#shared/format/count-words';
 
 type VarietyListQuery = z.output<typeof varietyListQuerySchema>;
 
@@ -67,7 +68,7 @@ export async function deleteVariety(gardenId: number, varietyId: number) {
   const variety = await getVariety(gardenId, varietyId);
   const [lots, plantings] = await Promise.all([SeedLot.count({ where: { varietyId } }), Planting.count({ where: { varietyId } })]);
   if (lots || plantings) {
-    throw new AppError(409, 'in_use', `This variety has ${plantings} planting(s) and ${lots} seed lot(s) on record; delete those first.`);
+    throw new AppError(409, 'in_use', `This variety has ${countOf(plantings, 'planting')} and ${countOf(lots, 'seed lot')} on record; delete those first.`);
   }
   await unreferencedOr409(() => inTransaction(Variety.sequelize!, (transaction) => variety.destroy({ transaction })), 'A planting or seed lot was just added for this variety; delete it first.');
 }

@@ -14,6 +14,7 @@ import { fToC } from '#shared/thermal/units';
 import { AppError } from '../../errors';
 import { recordWeatherChanged } from './weather-events';
 import { sameTemp } from './weather.repository';
+import { countOf } from '#shared/format/count-words';
 
 const ALIASES: Record<'date' | 'high' | 'low', string[]> = {
   date: ['date', 'day'],
@@ -108,7 +109,7 @@ export function parseStationCsv(buffer: Buffer, unit: 'F' | 'C', today: string):
   if (problems.length) {
     const shown = problems.slice(0, MAX_REPORTED);
     const more = problems.length > MAX_REPORTED ? ` (first ${MAX_REPORTED} of ${problems.length} shown)` : '';
-    throw csvError(`${problems.length} problem(s) in the file; nothing was imported${more}.`, shown);
+    throw csvError(`${countOf(problems.length, 'problem')} in the file; nothing was imported${more}.`, shown);
   }
   if (!rows.length) throw csvError('The file has a header but no data rows.', [{ line: 2, column: null, message: 'No rows.' }]);
   return rows;

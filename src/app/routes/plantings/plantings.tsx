@@ -18,6 +18,7 @@ import type { SortState } from '@/features/plantings/components/plantings-table'
 import { CONTROL } from '@/features/plantings/components/field-styles';
 import { todayIn } from '@/features/plantings/components/today';
 import { usePlantingChoices } from '@/app/routes/plantings/use-planting-choices';
+import { countOf } from '#shared/format/count-words';
 
 const PAGE_SIZE = 25;
 
@@ -132,7 +133,7 @@ export function PlantingsPage() {
       {plantings.data && (
         <>
           <p className="text-sm text-loam-soft" role="status">
-            {plantings.data.total} planting{plantings.data.total === 1 ? '' : 's'}
+            {countOf(plantings.data.total, 'planting')}
             {pages > 1 && ` · page ${page} of ${pages}`}
           </p>
           {plantings.data.items.length ? (

@@ -11,6 +11,7 @@ import { FieldError } from '@/components/ui/text-field';
 import { useUpdateCropOverrides } from '@/features/crops/api/update-crop-overrides';
 import { ParamOverrideForm } from '@/features/crops/components/param-override-form';
 import { ENUM_WORDS } from '@/features/crops/components/param-words';
+import { countOf } from '#shared/format/count-words';
 
 const round1 = (n: number) => String(Math.round(n * 10) / 10);
 
@@ -143,7 +144,7 @@ export function CropLibrary({ gardenId, crops, units, canEdit }: { gardenId: num
                 <span className="text-sm">
                   {ENUM_WORDS[crop.season]} · base {formatParam(base, units)}
                   {upper.value !== null && ` · upper ${formatParam(upper, units)}`}
-                  {crop.overrides > 0 && ` · ${crop.overrides} value${crop.overrides === 1 ? '' : 's'} overridden for this garden`}
+                  {crop.overrides > 0 && ` · ${countOf(crop.overrides, 'value')} overridden for this garden`}
                 </span>
               </summary>
               <div className="px-4 pb-4">
