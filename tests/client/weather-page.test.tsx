@@ -8,6 +8,7 @@ import type { Role } from '#shared/schemas/gardens';
 import { seen, server, setupClientTests, useNodeFormData } from './helpers/msw-server';
 import { aGarden, grower } from './helpers/data';
 import { memberOf, renderApp, signedInAs } from './helpers/render-app';
+import { formatDayMonth } from '@/lib/format';
 
 setupClientTests();
 
@@ -227,6 +228,25 @@ describe('weather page', () => {
 
     expect(await screen.findByText('Already up to date')).toBeTruthy();
     expect(requested('/api/gardens/1/weather/refresh')).toHaveLength(1);
+  });
+
+  it('when Refresh now asks and the service has nothing newer, then it says the days are already up to date through their last day', async () => {
+    server.use(
+      ...gardenWithWeather('grower'),
+      http.post('/api/gardens/:gardenId/weather/refresh', () =>
+        HttpResponse.json({
+          run: { runId: 10, cellsOk: 1, cellsFailed: 0, cellsSkipped: 0, daysWritten: 0, daysRejected: 0, requests: 1 },
+        }),
+      ),
+    );
+    const { user } = renderApp('/g/1/weather');
+
+    await user.click(await screen.findByRole('button', { name: 'Refresh now' }));
+
+    const notice = await screen.findByText('Already up to date');
+    const through = aWeather().history!.historyThrough!;
+    expect(notice.closest('[role="status"]')?.textContent).toContain(`already run through ${formatDayMonth(through)}`);
+    expect(screen.queryByText(/0 days saved/)).toBeNull();
   });
 
   it('when the history is still being fetched, then the page asks again until it is complete', async () => {

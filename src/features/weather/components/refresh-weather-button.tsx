@@ -1,13 +1,13 @@
 import { LoaderCircle, RefreshCw } from 'lucide-react';
 import { isApiError } from '@/lib/api-client';
-import { formatWait } from '@/lib/format';
+import { formatDayMonth, formatWait } from '@/lib/format';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { useRefreshWeather } from '@/features/weather/api/refresh-weather';
 import type { RefreshRun } from '@/features/weather/api/refresh-weather';
 import { formatCount } from '@/features/weather/utils/format-weather';
 
-function RunOutcome({ run }: { run: RefreshRun }) {
+function RunOutcome({ run, through }: { run: RefreshRun; through: string | null }) {
   if (run.cellsFailed > 0) {
     return (
       <Notice tone="error" title="The weather service did not answer" live="alert">
@@ -22,6 +22,15 @@ function RunOutcome({ run }: { run: RefreshRun }) {
       </Notice>
     );
   }
+  // Asked and answered, with nothing new: that is good news, not a failure.
+  if (run.daysWritten === 0 && run.daysRejected === 0) {
+    return (
+      <Notice tone="info" title="Already up to date" live="status">
+        {through ? `The saved days already run through ${formatDayMonth(through)}; ` : 'Nothing new was saved; '}
+        the weather service had no newer readings.
+      </Notice>
+    );
+  }
   return (
     <Notice tone="success" title="Weather refreshed" live="status">
       {formatCount(run.daysWritten, 'day', 'days')} saved from the weather service.
@@ -31,7 +40,8 @@ function RunOutcome({ run }: { run: RefreshRun }) {
   );
 }
 
-export function RefreshWeatherButton({ gardenId }: { gardenId: number }) {
+/** `through`: the last day of the garden's saved readings, for saying how far they already run. */
+export function RefreshWeatherButton({ gardenId, through }: { gardenId: number; through: string | null }) {
   const refresh = useRefreshWeather(gardenId);
   const error = refresh.error;
 
@@ -45,7 +55,7 @@ export function RefreshWeatherButton({ gardenId }: { gardenId: number }) {
         )}
         {refresh.isPending ? 'Refreshing…' : 'Refresh now'}
       </Button>
-      {refresh.isSuccess && <RunOutcome run={refresh.data} />}
+      {refresh.isSuccess && <RunOutcome run={refresh.data} through={through} />}
       {error && (
         <Notice tone="error" title="The weather could not be refreshed" live="alert">
           {error.message}

@@ -80,7 +80,7 @@ export function WeatherStatus({
             : 'Not fetched yet. New readings are fetched every night.'}
         </span>
       </p>
-      {canRefresh && <RefreshWeatherButton gardenId={gardenId} />}
+      {canRefresh && <RefreshWeatherButton gardenId={gardenId} through={history.historyThrough} />}
     </section>
   );
 }

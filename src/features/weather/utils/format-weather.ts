@@ -1,9 +1,11 @@
 import { parseIsoDate } from '#shared/thermal/dates';
+import { countOf } from '#shared/format/count-words';
 
 const whole = new Intl.NumberFormat('en', { maximumFractionDigits: 0 });
 
+/** A count with its noun in the right form (the one counting helper, shared/format/count-words.ts). */
 export function formatCount(n: number, one: string, many: string): string {
-  return `${whole.format(n)} ${n === 1 ? one : many}`;
+  return countOf(n, one, many);
 }
 
 // A calendar date is formatted from its own parts at UTC, so no browser time zone can shift it.
