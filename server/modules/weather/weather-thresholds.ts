@@ -1,6 +1,7 @@
 /**
  * Reference lines for the weather chart: the base temperature, upper threshold and bolting heat
- * threshold of every crop with a planting in the ground, with this garden's overrides applied.
+ * threshold of every crop with a planting in the ground (bolting heat only for crops that bolt),
+ * with this garden's overrides applied.
  * Crops sharing a value share one line, so the chart names them together.
  */
 import type { DisplayUnit } from '#shared/schemas/gardens';
@@ -29,8 +30,11 @@ export async function activeThresholds(gardenId: number, unit: DisplayUnit): Pro
   for (const key of cropKeys) {
     const values = crops.get(key);
     if (!values) continue;
-    const name = findCrop(key)?.name ?? key;
+    const crop = findCrop(key);
+    const name = crop?.name ?? key;
     for (const k of KINDS) {
+      // A crop that does not bolt (peas, warm-season crops) has no bolting heat to draw.
+      if (k.kind === 'bolt-heat' && !crop?.bolts) continue;
       const v = values[k.param];
       if (typeof v !== 'number') continue;
       const id = `${k.kind}:${v}`;

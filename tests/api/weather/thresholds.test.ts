@@ -21,6 +21,17 @@ describe('crop thresholds on the weather chart', () => {
     expect(res.body.thresholds.find((t: { kind: string }) => t.kind === 'bolt-heat')?.label).toBe('Bolting heat – Lettuce');
   });
 
+  it('when peas grow beside lettuce, then only the lettuce gets a bolting line: peas do not bolt', async () => {
+    const { garden, clients, base } = await gardenWithClients(app);
+    await makePlanting(garden.id, { varietyId: (await makeVariety(garden.id, { cropKey: 'pea', name: 'Test pea', boltTolerance: null })).id });
+    const peasOnly = await clients.viewer.get(`${base}/weather`).expect(200);
+    expect(peasOnly.body.thresholds.map((t: { label: string }) => t.label)).toEqual(['Base temperature – Pea']);
+    await makePlanting(garden.id, { varietyId: (await makeVariety(garden.id, { cropKey: 'lettuce', name: 'Test leaf' })).id });
+    const both = await clients.viewer.get(`${base}/weather`).expect(200);
+    const bolting = both.body.thresholds.filter((t: { kind: string }) => t.kind === 'bolt-heat').map((t: { label: string }) => t.label);
+    expect(bolting).toEqual(['Bolting heat – Lettuce']);
+  });
+
   it('when an owner overrides a crop’s base for this garden, then the line follows the override', async () => {
     const { garden, clients, base } = await gardenWithClients(app);
     await makePlanting(garden.id);
