@@ -13,7 +13,7 @@ export function CropsPage() {
       <h1 className="text-2xl font-bold sm:text-3xl">Crop library</h1>
       <p className="max-w-prose">
         The figures Heatclock counts with, each with where it comes from and how sure that source is. Open a crop to see them all.
-        Values marked “from memory” or low confidence are starting points: your own records will tell you more.
+        Values that are commonly given rather than checked against a published table, or of low confidence, are starting points: your own records will tell you more.
       </p>
       {crops.isPending && <Loading label="Loading the crop library…" />}
       {crops.isError && <Notice tone="error">{crops.error.message}</Notice>}

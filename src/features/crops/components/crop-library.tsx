@@ -12,6 +12,7 @@ import { useUpdateCropOverrides } from '@/features/crops/api/update-crop-overrid
 import { ParamOverrideForm } from '@/features/crops/components/param-override-form';
 import { ENUM_WORDS } from '@/features/crops/components/param-words';
 import { countOf } from '#shared/format/count-words';
+import { sourceInPlainWords } from '#shared/crops/source-words';
 
 const round1 = (n: number) => String(Math.round(n * 10) / 10);
 
@@ -88,13 +89,13 @@ function Param({
           <>
             <span className="block">{p.source}.</span>
             <span className="block">
-              <span className="font-semibold text-loam">Shared default:</span> {formatParam({ ...p, value: p.libraryDefault.value }, units)} · {p.libraryDefault.source} ·{' '}
+              <span className="font-semibold text-loam">Shared default:</span> {formatParam({ ...p, value: p.libraryDefault.value }, units)} · {sourceInPlainWords(p.libraryDefault.source)} ·{' '}
               <ConfidenceWord confidence={p.libraryDefault.confidence} />
             </span>
           </>
         ) : (
           <>
-            <span className="font-semibold text-loam">Source:</span> {p.source}
+            <span className="font-semibold text-loam">Source:</span> {sourceInPlainWords(p.source)}
             {p.confidence && (
               <>
                 {' '}
@@ -148,16 +149,28 @@ export function CropLibrary({ gardenId, crops, units, canEdit }: { gardenId: num
                 </span>
               </summary>
               <div className="px-4 pb-4">
-                {PARAM_GROUPS.map((g) => (
-                  <section key={g} aria-label={g}>
-                    <h3 className="mt-3 font-bold">{g}</h3>
-                    <dl>
-                      {crop.params.filter((p) => p.group === g).map((p) => (
-                        <Param key={p.key} gardenId={gardenId} cropKey={crop.key} p={p} params={crop.params} units={units} canEdit={canEdit} />
-                      ))}
-                    </dl>
-                  </section>
-                ))}
+                {PARAM_GROUPS.map((g) => {
+                  const inGroup = crop.params.filter((p) => p.group === g);
+                  // Figures the library has no value for stay one click away, not row after row of "Not set".
+                  const known = inGroup.filter((p) => p.value !== null || p.origin === 'garden');
+                  const unset = inGroup.filter((p) => !known.includes(p));
+                  const row = (p: CropParamDto) => <Param key={p.key} gardenId={gardenId} cropKey={crop.key} p={p} params={crop.params} units={units} canEdit={canEdit} />;
+                  return (
+                    <section key={g} aria-label={g}>
+                      <h3 className="mt-3 font-bold">{g}</h3>
+                      {known.length > 0 && <dl>{known.map(row)}</dl>}
+                      {unset.length > 0 && (
+                        <details className="mt-1">
+                          <summary className="flex min-h-11 cursor-pointer items-center text-sm text-loam-soft">
+                            {countOf(unset.length, 'figure')} with no value for {crop.name.toLowerCase()}
+                            {canEdit ? ' (set one for this garden if you know it)' : ''}
+                          </summary>
+                          <dl>{unset.map(row)}</dl>
+                        </details>
+                      )}
+                    </section>
+                  );
+                })}
               </div>
             </details>
           </li>
