@@ -13,8 +13,8 @@ setupClientTests();
 const crop = aCrop([
   aParam({ source: 'Extension default for cool-season crops, base 40 °F (4.4 °C) (from memory)', confidence: 'L' }),
   aParam({ key: 'upperC', label: 'Upper threshold', value: null, source: 'Base-40 °F practice for cool-season crops sets no upper threshold (Heatclock default)', confidence: 'M' }),
-  aParam({ key: 'chillInjuryBelowC', label: 'Chilling injury below', value: null, source: 'SCIENCE §4: no figure in the library defaults (M)', confidence: 'L' }),
-  aParam({ key: 'blossomDropAboveC', label: 'Blossom drop above', value: null, source: 'common practice, no source', confidence: 'L' }),
+  aParam({ key: 'vernalizationDays', label: 'Vernalization: cold days needed', value: null, source: 'SCIENCE §4: no figure in the library defaults (M)', confidence: 'L' }),
+  aParam({ key: 'blossomDropWatchC', label: 'Blossom drop: watch from', value: null, source: 'common practice, no source', confidence: 'L' }),
 ]);
 
 describe('crop library in plain words', () => {
@@ -30,7 +30,7 @@ describe('crop library in plain words', () => {
     expect(folded.length).toBeGreaterThan(0);
     const details = folded[0].closest('details')!;
     expect(details.open).toBe(false);
-    expect(within(details).getAllByText(/Chilling injury below|Blossom drop above/)).toHaveLength(2);
+    expect(within(details).getAllByText(/Vernalization: cold days needed|Blossom drop: watch from/)).toHaveLength(2);
     expect(within(details).getByText(/^3 figures/)).toBeTruthy();
   });
 });
