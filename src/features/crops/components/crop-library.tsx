@@ -1,5 +1,5 @@
 import { useState } from 'react';
-import { Pencil, SlidersHorizontal, Undo2 } from 'lucide-react';
+import { ChevronRight, Pencil, SlidersHorizontal, Undo2 } from 'lucide-react';
 import { basisWords } from '#shared/crops/basis';
 import { CONFIDENCE_WORDS, PARAM_GROUPS } from '#shared/crops/params';
 import type { Confidence } from '#shared/crops/params';
@@ -161,7 +161,8 @@ export function CropLibrary({ gardenId, crops, units, canEdit }: { gardenId: num
                       {known.length > 0 && <dl>{known.map(row)}</dl>}
                       {unset.length > 0 && (
                         <details className="mt-1">
-                          <summary className="flex min-h-11 cursor-pointer items-center text-sm text-loam-soft">
+                          <summary className="flex min-h-11 cursor-pointer items-center gap-1 text-sm text-loam-soft underline">
+                            <ChevronRight className="size-4 shrink-0" aria-hidden="true" />
                             {countOf(unset.length, 'figure')} with no value for {crop.name.toLowerCase()}
                             {canEdit ? ' (set one for this garden if you know it)' : ''}
                           </summary>
