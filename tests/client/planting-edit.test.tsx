@@ -139,7 +139,7 @@ describe('deleting', () => {
     );
     renderApp('/g/1/beds');
 
-    expect(await screen.findByText('Kept: its plantings on record need their place.')).toBeTruthy();
+    expect(await screen.findByText('Can’t be deleted: 4 plantings on record grew here, and their history keeps the bed.')).toBeTruthy();
     expect(screen.queryByRole('button', { name: 'Delete bed North 1' })).toBeNull();
   });
 

@@ -33,7 +33,7 @@ export function ConfirmDelete({
   const [asking, setAsking] = useState(false);
   if (!asking) {
     return (
-      <Button variant="quiet" aria-label={label} title={label} onClick={() => setAsking(true)} className={compact ? 'self-start px-3' : ''}>
+      <Button variant="quiet-danger" aria-label={label} title={label} onClick={() => setAsking(true)} className={compact ? 'self-start px-3' : ''}>
         <Trash2 className="size-5" aria-hidden="true" />
         {!compact && 'Delete'}
       </Button>
@@ -44,7 +44,7 @@ export function ConfirmDelete({
       <p className="font-semibold">{question}</p>
       <div className="text-sm">{consequence}</div>
       <div className="flex flex-wrap gap-2">
-        <Button onClick={onConfirm} disabled={pending}>
+        <Button variant="danger" onClick={onConfirm} disabled={pending}>
           <Trash2 className="size-5" aria-hidden="true" />
           {pending ? 'Deleting…' : confirmLabel}
         </Button>

@@ -143,8 +143,8 @@ export function PlantingsPage() {
           )}
           {pages > 1 && (
             <nav aria-label="Pages" className="flex gap-2">
-              <Button variant="quiet" disabled={page <= 1} onClick={() => setPage(page - 1)}>Previous</Button>
-              <Button variant="quiet" disabled={page >= pages} onClick={() => setPage(page + 1)}>Next</Button>
+              <Button variant="quiet" disabled={page <= 1} disabledReason="This is the first page." onClick={() => setPage(page - 1)}>Previous</Button>
+              <Button variant="quiet" disabled={page >= pages} disabledReason="This is the last page." onClick={() => setPage(page + 1)}>Next</Button>
             </nav>
           )}
         </>

@@ -6,6 +6,7 @@ import { Button } from '@/components/ui/button';
 import { ConfirmDelete } from '@/components/ui/confirm-delete';
 import { useDeleteBed } from '@/features/beds/api/delete-bed';
 import { BedForm } from '@/features/beds/components/bed-form';
+import { countOf } from '#shared/format/count-words';
 
 const ICON: Record<BedKind, typeof Box> = { bed: Square, 'raised-bed': LayoutGrid, plot: Fence, row: Rows3, container: Box };
 const size = (n: number | null) => (n === null ? '—' : `${n} m`);
@@ -45,7 +46,9 @@ export function BedCard({ gardenId, bed: b, canEdit }: { gardenId: number; bed: 
               error={remove.error}
             />
           ) : (
-            <p className="self-center text-sm text-loam-soft">Kept: its plantings on record need their place.</p>
+            <p className="self-center text-sm text-loam-soft">
+              Can’t be deleted: {countOf(b.plantingsOnRecord, 'planting on record grew', 'plantings on record grew')} here, and their history keeps the bed.
+            </p>
           )}
         </div>
       )}
