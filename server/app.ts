@@ -98,7 +98,7 @@ export function createApp({ config, sequelize, logger = createLogger(config.logL
   // New and worsened alerts are written to the mail outbox in the evaluation's own transaction.
   alerts.mail = { enqueue: enqueueAlertMail, afterCommit: mailQueued };
   // Garden reads keyed by the garden's change counters (read-cache.ts).
-  const readCache = new ReadCache();
+  const readCache = new ReadCache(() => weatherService.now());
   app.locals.readCache = readCache;
   const routes: RouteTableEntry[] = [];
   app.locals.routes = routes;

@@ -9,6 +9,7 @@
 import { createHash } from 'node:crypto';
 import { brotliCompressSync, constants } from 'node:zlib';
 import type { Request, Response } from 'express';
+import { localDate } from './local-date';
 
 interface Entry {
   body: Buffer;
@@ -31,7 +32,11 @@ export class ReadCache {
   hits = 0;
   misses = 0;
 
-  constructor(private readonly maxBytes = 64 * 1024 * 1024) {}
+  /** `now`: the clock every garden's "today" is read from (the weather service's, so tests can move it). */
+  constructor(
+    private readonly now: () => Date = () => new Date(),
+    private readonly maxBytes = 64 * 1024 * 1024,
+  ) {}
 
   private get(key: string): Entry | undefined {
     const entry = this.entries.get(key);
@@ -64,23 +69,23 @@ export class ReadCache {
 
   /**
    * Sends the answer for this garden read from the cache, or makes it with `make`, sends and keeps
-   * it. `day` is the garden's today (answers change at its midnight).
+   * it. Answers change at the garden's midnight: its day is part of the key.
    */
-  async send<T>(req: Request, res: Response, name: string, day: string, make: () => Promise<T>) {
-    await this.serve(req, res, name, day, async () => ({ json: JSON.stringify(await make()), keep: true }));
+  async send<T>(req: Request, res: Response, name: string, make: () => Promise<T>) {
+    await this.serve(req, res, name, async () => ({ json: JSON.stringify(await make()), keep: true }));
   }
 
   /** As `send`, for an answer that is already JSON text (a stored progress answer). */
-  async sendText(req: Request, res: Response, name: string, day: string, make: () => Promise<string>) {
-    await this.serve(req, res, name, day, async () => ({ json: await make(), keep: true }));
+  async sendText(req: Request, res: Response, name: string, make: () => Promise<string>) {
+    await this.serve(req, res, name, async () => ({ json: await make(), keep: true }));
   }
 
   /**
    * The value made for this read, kept like an answer, for a route that adds something the
    * counters do not follow before it answers (the weather page's history status).
    */
-  async remember<T>(req: Request, name: string, day: string, make: () => Promise<T>): Promise<T> {
-    const key = this.keyOf(req, name, day);
+  async remember<T>(req: Request, name: string, make: () => Promise<T>): Promise<T> {
+    const key = this.keyOf(req, name);
     const entry = this.get(key);
     if (entry) {
       this.hits++;
@@ -92,13 +97,13 @@ export class ReadCache {
     return value;
   }
 
-  private keyOf(req: Request, name: string, day: string) {
+  private keyOf(req: Request, name: string) {
     const m = req.membership!;
-    return `${name}|${m.gardenId}|${m.revision}|${day}|${req.originalUrl}`;
+    return `${name}|${m.gardenId}|${m.revision}|${localDate(m.garden.timeZone, this.now())}|${req.originalUrl}`;
   }
 
-  private async serve(req: Request, res: Response, name: string, day: string, make: () => Promise<{ json: string; keep: boolean }>) {
-    const key = this.keyOf(req, name, day);
+  private async serve(req: Request, res: Response, name: string, make: () => Promise<{ json: string; keep: boolean }>) {
+    const key = this.keyOf(req, name);
     let entry = this.get(key);
     if (entry === undefined) {
       this.misses++;

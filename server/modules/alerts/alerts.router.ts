@@ -6,7 +6,6 @@ import { parseQuery } from '../../lib/validate';
 import { recordId } from '../records/params';
 import type { AlertService } from './alerts.service';
 import type { ReadCache } from '../../lib/read-cache';
-import { localDate } from '../../lib/local-date';
 
 export function alertsRouter(alerts: AlertService, table: RouteTableEntry[], cache: ReadCache) {
   const router = Router();
@@ -19,9 +18,9 @@ export function alertsRouter(alerts: AlertService, table: RouteTableEntry[], cac
         path: '/',
         access: 'viewer',
         handler: async (req, res) => {
-          const { gardenId, garden } = req.membership!;
+          const { gardenId } = req.membership!;
           const q = parseQuery(alertListQuerySchema, req.query);
-          await cache.send(req, res, 'alerts', localDate(garden.timeZone, alerts.now()), async () => {
+          await cache.send(req, res, 'alerts', async () => {
             await alerts.ensureEvaluated(gardenId);
             return { items: await alerts.list(gardenId, q) };
           });
@@ -33,8 +32,8 @@ export function alertsRouter(alerts: AlertService, table: RouteTableEntry[], cac
         path: '/counts',
         access: 'viewer',
         handler: async (req, res) => {
-          const { gardenId, garden } = req.membership!;
-          await cache.send(req, res, 'alert-counts', localDate(garden.timeZone, alerts.now()), async () => {
+          const { gardenId } = req.membership!;
+          await cache.send(req, res, 'alert-counts', async () => {
             await alerts.ensureEvaluated(gardenId);
             return alerts.counts(gardenId);
           });

@@ -172,11 +172,6 @@ export class AlertService {
     return result;
   }
 
-  /** The clock a garden's "today" is read from. */
-  now(): Date {
-    return this.weather.now();
-  }
-
   /** Evaluates first when the garden has not been evaluated for its today (a day turned, or never). */
   async ensureEvaluated(gardenId: number) {
     const { today } = await this.progress.gardenToday(gardenId);

@@ -47,7 +47,7 @@ export function plantingsRouter(config: AppConfig, table: RouteTableEntry[], pro
           const { gardenId, garden } = req.membership!;
           const q = parseQuery(plantingListQuerySchema, req.query);
           const today = localDate(garden.timeZone, progress.now());
-          await cache.send(req, res, 'plantings', today, async () => {
+          await cache.send(req, res, 'plantings', async () => {
             // Sorting by progress, readiness or risk orders every planting by its stored figure:
             // those rows must be there for today first. Other orders need only the page's.
             if (q.sort === 'progress' || q.sort === 'ready' || q.sort === 'risk') await progress.refreshGarden(gardenId);

@@ -7,7 +7,6 @@ import { TODAY_LIMIT } from '#shared/schemas/progress';
 import { asTodayAction } from '../alerts/alerts.service';
 import type { AlertService } from '../alerts/alerts.service';
 import type { ReadCache } from '../../lib/read-cache';
-import { localDate } from '../../lib/local-date';
 
 export function progressRouter(progress: ProgressService, alerts: AlertService, table: RouteTableEntry[], cache: ReadCache) {
   const router = Router();
@@ -20,9 +19,9 @@ export function progressRouter(progress: ProgressService, alerts: AlertService, 
         path: '/plantings/:plantingId/progress',
         access: 'viewer',
         handler: async (req, res) => {
-          const { gardenId, garden } = req.membership!;
+          const { gardenId } = req.membership!;
           const plantingId = recordId(req.params, 'plantingId');
-          await cache.sendText(req, res, 'progress', localDate(garden.timeZone, progress.now()), () => progress.plantingProgress(gardenId, plantingId));
+          await cache.sendText(req, res, 'progress', () => progress.plantingProgress(gardenId, plantingId));
         },
       },
       {
@@ -30,8 +29,8 @@ export function progressRouter(progress: ProgressService, alerts: AlertService, 
         path: '/today',
         access: 'viewer',
         handler: async (req, res) => {
-          const { gardenId, garden } = req.membership!;
-          await cache.send(req, res, 'today', localDate(garden.timeZone, progress.now()), async () => {
+          const { gardenId } = req.membership!;
+          await cache.send(req, res, 'today', async () => {
             await alerts.ensureEvaluated(gardenId);
             const [today, open, counts] = await Promise.all([progress.today(gardenId), alerts.list(gardenId, { status: 'open', limit: TODAY_LIMIT }), alerts.counts(gardenId)]);
             // Alerts come most severe first (the list's order); Today shows the first of them.

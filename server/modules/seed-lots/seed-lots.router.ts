@@ -49,9 +49,9 @@ export function seedLotsRouter(table: RouteTableEntry[], cache: ReadCache) {
         path: '/',
         access: 'viewer',
         handler: async (req, res) => {
-          const { gardenId, garden } = req.membership!;
+          const { gardenId } = req.membership!;
           const q = parseQuery(seedLotListQuerySchema, req.query);
-          await cache.send(req, res, 'seed-lots', localDate(garden.timeZone), async () => {
+          await cache.send(req, res, 'seed-lots', async () => {
             const [{ rows, count, tests }, present] = await Promise.all([listSeedLots(gardenId, q), presenter(gardenId)]);
             return pageOf(rows.map((lot) => present(lot, tests)), count, q);
           });

@@ -12,7 +12,6 @@ import { presentVariety } from './varieties.presenter';
 import { varietyTarget } from './variety-target';
 import type { WeatherService } from '../weather/weather.service';
 import type { ReadCache } from '../../lib/read-cache';
-import { localDate } from '../../lib/local-date';
 
 export function varietiesRouter(table: RouteTableEntry[], weather: WeatherService, cache: ReadCache) {
   const router = Router();
@@ -31,9 +30,9 @@ export function varietiesRouter(table: RouteTableEntry[], weather: WeatherServic
         path: '/',
         access: 'viewer',
         handler: async (req, res) => {
-          const { gardenId, garden } = req.membership!;
+          const { gardenId } = req.membership!;
           const q = parseQuery(varietyListQuerySchema, req.query);
-          await cache.send(req, res, 'varieties', localDate(garden.timeZone, weather.now()), async () => {
+          await cache.send(req, res, 'varieties', async () => {
             const [{ rows, count }, crops] = await Promise.all([listVarieties(gardenId, q), effectiveCrops(gardenId)]);
             return pageOf(rows.map((v) => presentVariety(v, crops.get(v.cropKey)?.season ?? 'cool')), count, q);
           });

@@ -50,7 +50,7 @@ export function weatherRouter(deps: { sequelize: Sequelize; weather: WeatherServ
           // The days, gaps and thresholds follow the garden's counters and are kept; the history
           // status (a cell's loading progress, last refresh, error) is read fresh every time.
           const [cached, status] = await Promise.all([
-            cache.remember(req, 'weather', today, async () => {
+            cache.remember(req, 'weather', async () => {
               const garden = await getGarden(req.membership!.gardenId);
               const from = q.from ?? addDays(q.to ?? today, -30);
               const to = q.to ?? addDays(today, weather.settings.forecastDays - 1);
