@@ -14,6 +14,7 @@ import { csrfGuard, noStore, requestId } from './lib/request-guards';
 import { overloadShed } from './lib/overload';
 import { ReadCache } from './lib/read-cache';
 import { accessContext, gardenIdOfPath } from './lib/garden-access';
+import { localeContext } from './lib/locale';
 import type { RouteTableEntry } from './lib/routes';
 import { absoluteTimeout, createSessionStore, sessionMiddleware } from './modules/auth/session';
 import { configurePassport } from './modules/auth/passport';
@@ -148,6 +149,7 @@ export function createApp({ config, sequelize, logger = createLogger(config.logL
   api.use(csrfGuard);
   const sessions = createSessionStore(sequelize, config);
   app.locals.sessions = sessions;
+  api.use(localeContext);
   // The garden a path names, so the session read can bring the member's access to it (garden-access.ts).
   api.use((req, _res, next) => accessContext.run({ gardenId: gardenIdOfPath(req.path) }, next));
   api.use(sessionMiddleware(sessions, config));

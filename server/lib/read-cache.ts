@@ -8,6 +8,7 @@
  */
 import { createHash } from 'node:crypto';
 import { brotliCompressSync, constants } from 'node:zlib';
+import { requestLocale } from './locale';
 import type { Request, Response } from 'express';
 import { localDate } from './local-date';
 
@@ -99,7 +100,7 @@ export class ReadCache {
 
   private keyOf(req: Request, name: string) {
     const m = req.membership!;
-    return `${name}|${m.gardenId}|${m.revision}|${localDate(m.garden.timeZone, this.now())}|${req.originalUrl}`;
+    return `${name}|${m.gardenId}|${m.revision}|${localDate(m.garden.timeZone, this.now())}|${requestLocale()}|${req.originalUrl}`;
   }
 
   private async serve(req: Request, res: Response, name: string, make: () => Promise<{ json: string; keep: boolean }>) {
@@ -116,6 +117,8 @@ export class ReadCache {
     res.type('application/json');
     // The same answer again is a 304 (the client revalidates; API answers are never stored).
     res.set('ETag', entry.etag);
+    // Dates in server-made sentences follow the reader's language (lib/locale.ts).
+    res.vary('Accept-Language');
     if (req.fresh) {
       res.status(304).end();
       return;
@@ -128,7 +131,8 @@ export class ReadCache {
           this.evict();
         }
       }
-      res.set({ 'Content-Encoding': 'br', Vary: 'Accept-Encoding' });
+      res.set('Content-Encoding', 'br');
+      res.vary('Accept-Encoding');
       res.send(entry.br);
       return;
     }

@@ -1,7 +1,7 @@
 import type { DisplayUnit, GardenDto, Role } from '#shared/schemas/gardens';
 import type { BoltLevelOrNone, MaturityBasisKind } from '#shared/schemas/progress';
 import type { WeatherDayDto } from '#shared/schemas/weather';
-import { parseIsoDate } from '#shared/thermal/dates';
+import * as dates from '#shared/format/dates';
 
 export const ROLE_WORDS: Record<Role, string> = {
   owner: 'Owner',
@@ -82,47 +82,46 @@ export function formatHeat(accumulated: number, target: number | null, percent: 
   return `${whole.format(accumulated)} of ${formatDegreeDays(target, unit)}${share}`;
 }
 
-// A calendar date is formatted from its own parts at UTC, so no browser time zone can shift it.
-function civilUtc(date: string): Date {
-  const { year, month, day } = parseIsoDate(date);
-  return new Date(Date.UTC(year, month - 1, day));
+/** The reader's languages, as the browser lists them (the server reads the same from Accept-Language). */
+export function readerLocales(): readonly string[] {
+  return typeof navigator === 'undefined' ? [] : navigator.languages;
 }
 
-const formatters = new Map<string, Intl.DateTimeFormat>();
-
-/** One formatter per option set and browser language list, made on first use. */
-function browserFormat(options: Intl.DateTimeFormatOptions): Intl.DateTimeFormat {
-  const languages = typeof navigator === 'undefined' ? [] : [...navigator.languages];
-  const key = `${languages.join(',')}|${JSON.stringify(options)}`;
-  let format = formatters.get(key);
-  if (!format) {
-    format = new Intl.DateTimeFormat(languages.length ? languages : undefined, { ...options, timeZone: 'UTC' });
-    formatters.set(key, format);
-  }
-  return format;
-}
-
-const DAY_MONTH: Intl.DateTimeFormatOptions = { day: 'numeric', month: 'short' };
+// Every date on screen goes through shared/format/dates.ts with the reader's languages.
 
 /** "14 Jun" (or "Jun 14"): the short day-month form in the browser's language. */
 export function formatDayMonth(date: string): string {
-  return browserFormat(DAY_MONTH).format(civilUtc(date));
+  return dates.dayMonth(date, readerLocales());
 }
 
 /** "Tue 14 Jun" in the browser's language, for day-by-day strips. */
 export function formatWeekdayDayMonth(date: string): string {
-  return browserFormat({ weekday: 'short', ...DAY_MONTH }).format(civilUtc(date));
+  return dates.weekdayDayMonth(date, readerLocales());
 }
 
-/**
- * "14–22 Jun", "28 May – 3 Jun" (or "Jun 14–22"): the range in the browser's language, with the
- * dash closed up when only the day numbers differ.
- */
+/** "14 Jun 2026": a day with its year. */
+export function formatFullDate(date: string): string {
+  return dates.fullDate(date, readerLocales());
+}
+
+/** "14 Jun", or "14 Jun 2025" when the day is not in the garden's current year. */
+export function formatDayInContext(date: string, today: string): string {
+  return dates.dayInContext(date, today, readerLocales());
+}
+
+/** "14–22 Jun", "28 May – 3 Jun" (or "Jun 14–22"). */
 export function formatDayWindow(from: string, to: string): string {
-  if (from === to) return formatDayMonth(from);
-  return browserFormat(DAY_MONTH)
-    .formatRange(civilUtc(from), civilUtc(to))
-    .replace(/(\d)\s*[–-]\s*(\d)/u, '$1–$2');
+  return dates.dayRange(from, to, readerLocales());
+}
+
+/** "14–22 Jun 2026": a range with its year. */
+export function formatFullRange(from: string, to: string): string {
+  return dates.fullRange(from, to, readerLocales());
+}
+
+/** "14 Jun 2026, 06:10": an instant in the garden's own time zone. */
+export function formatInstant(iso: string, timeZone: string): string {
+  return dates.instant(iso, timeZone, readerLocales());
 }
 
 export const BOLT_WORDS: Record<BoltLevelOrNone, string> = {

@@ -17,7 +17,8 @@ export { CHROMIUM } from './chromium';
  */
 export async function startBrowserSession() {
   if (!existsSync(CHROMIUM)) throw new Error('Chromium is missing: scripts/browser.sh installs it (apt-get install chromium)');
-  const clientDir = path.join(projectRoot, 'dist', 'client');
+  // CLIENT_DIR: a build elsewhere (parallel work on one checkout builds into its own folder).
+  const clientDir = process.env.CLIENT_DIR ?? path.join(projectRoot, 'dist', 'client');
   if (!existsSync(path.join(clientDir, 'index.html'))) throw new Error('The client is not built: run npx vite build');
   // The demo accounts and gardens are seeded once per run by the global setup.
   const { sequelize, config } = testDb();

@@ -6,7 +6,7 @@
  */
 import type { AlertSeverity, AlertType } from '#shared/schemas/alerts';
 import type { ProgressSummaryDto, StressDto } from '#shared/schemas/progress';
-import { dayMonth, dayRange } from '#shared/format/day-words';
+import { dayMonth, dayRange } from '#shared/format/dates';
 import { addDays } from '#shared/thermal/dates';
 
 /** How far ahead a spell of bolt risk is worth acting on now. */

@@ -4,7 +4,7 @@
  */
 import { ALERT_SEVERITY_WORDS, ALERT_TYPE_WORDS } from '#shared/schemas/alerts';
 import type { AlertSeverity, AlertType } from '#shared/schemas/alerts';
-import { dayMonth, dayRange } from '#shared/format/day-words';
+import { dayMonth, dayRange } from '#shared/format/dates';
 
 export interface MailAlert {
   type: AlertType;

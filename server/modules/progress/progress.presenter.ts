@@ -4,7 +4,7 @@
  */
 import type { DisplayUnit } from '#shared/schemas/gardens';
 import type { BoltLevelOrNone, ProgressDto, ProgressSummaryDto, StartEventKind, StressDto, TargetBasis } from '#shared/schemas/progress';
-import { dayMonth, dayRange } from '#shared/format/day-words';
+import { dayMonth, dayRange } from '#shared/format/dates';
 import type { PlantingProgress } from '#shared/thermal/planting-progress';
 import type { StartEvent } from '#shared/thermal/start-event';
 import type { DegreeDayMethod } from '#shared/thermal/types';

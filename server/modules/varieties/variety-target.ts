@@ -8,7 +8,8 @@ import { formatDegreeDays } from '#shared/thermal/units';
 import type { CropParamValues } from '#shared/crops/params';
 import { dayOfYear, degreeDayTargetFromDtm, isSouthern } from '#shared/thermal/index';
 import { packetEmergenceDays, startEvent } from '#shared/thermal/start-event';
-import { dayMonth } from '#shared/format/day-words';
+import { dayMonth } from '#shared/format/dates';
+import { requestLocale } from '../../lib/locale';
 import type { DailyTemp } from '#shared/thermal/index';
 import type { GddTargetDto } from '#shared/schemas/varieties';
 import { Planting } from '../../db/models';
@@ -123,7 +124,7 @@ async function packetTarget(garden: Garden, variety: Variety, crop: CropParamVal
       valueC: t.target,
       basis: 'derived',
       countsFrom: t.countsFrom,
-      explanation: `${t.days} days from ${t.countsFrom === 'transplant' ? 'transplanting' : 'sowing'}, measured in this garden’s past weather over ${from} (${dayMonth(`2001-${window.from}`)} to ${dayMonth(`2001-${window.to}`)}, ${t.samples} samples).`,
+      explanation: `${t.days} days from ${t.countsFrom === 'transplant' ? 'transplanting' : 'sowing'}, measured in this garden’s past weather over ${from} (${dayMonth(`2001-${window.from}`, requestLocale())} to ${dayMonth(`2001-${window.to}`, requestLocale())}, ${t.samples} samples).`,
       p10C: t.p10,
       p90C: t.p90,
       stale: false,

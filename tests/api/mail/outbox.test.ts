@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { addMember, createGarden, createUser } from '../../helpers/factories';
-import { dayRange } from '#shared/format/day-words';
+import { dayRange } from '#shared/format/dates';
 import { enqueueAlertMail } from '../../../server/modules/notifications/alert-mail';
 import { capturedFor, fakeSmtp, inTx, insertAlert, mailApp, outboxFor, sender, setPreference } from './mail-helpers';
 

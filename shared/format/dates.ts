@@ -1,0 +1,83 @@
+/**
+ * Calendar days and instants in words: the one date language of Heatclock, used by the client
+ * (src/lib/format.ts passes the browser's languages) and by the server (server/lib/locale.ts
+ * passes the request's Accept-Language, or the default for stored text and e-mail).
+ *
+ * A calendar day ('YYYY-MM-DD', local to the garden) is formatted at UTC from its own parts, so
+ * no time zone of the reader or the server can move it to another day. Date inputs stay ISO.
+ */
+export type Locales = string | readonly string[] | undefined;
+
+/** The wording used when nobody said which language they read (stored text, e-mail). */
+export const DEFAULT_LOCALE = 'en-GB';
+
+const cache = new Map<string, Intl.DateTimeFormat>();
+
+function listOf(locales: Locales): string[] {
+  const list = locales === undefined ? [] : typeof locales === 'string' ? [locales] : [...locales];
+  try {
+    const known = Intl.DateTimeFormat.supportedLocalesOf(list);
+    return known.length ? known : [DEFAULT_LOCALE];
+  } catch {
+    return [DEFAULT_LOCALE]; // a malformed tag from a header must not break a page
+  }
+}
+
+function formatter(locales: Locales, options: Intl.DateTimeFormatOptions, timeZone = 'UTC'): Intl.DateTimeFormat {
+  const key = `${typeof locales === 'string' ? locales : (locales ?? []).join(',')}|${timeZone}|${JSON.stringify(options)}`;
+  let f = cache.get(key);
+  if (!f) {
+    f = new Intl.DateTimeFormat(listOf(locales), { ...options, timeZone });
+    cache.set(key, f);
+  }
+  return f;
+}
+
+function asUtc(day: string): Date {
+  const m = /^(\d{4})-(\d{2})-(\d{2})$/.exec(day);
+  if (!m) throw new RangeError(`Not a calendar day: ${day}`);
+  return new Date(Date.UTC(Number(m[1]), Number(m[2]) - 1, Number(m[3])));
+}
+
+const DAY_MONTH: Intl.DateTimeFormatOptions = { day: 'numeric', month: 'short' };
+const FULL: Intl.DateTimeFormatOptions = { day: 'numeric', month: 'short', year: 'numeric' };
+
+// A range whose ends differ only in the day reads "14–22 Jun": the dash closed up between digits.
+const closeUp = (s: string) => s.replace(/(\d)\s*[–-]\s*(\d)/u, '$1–$2');
+
+/** "14 Jun" (or "Jun 14", in the reader's order). */
+export function dayMonth(day: string, locales: Locales = DEFAULT_LOCALE): string {
+  return formatter(locales, DAY_MONTH).format(asUtc(day));
+}
+
+/** "Tue 14 Jun", for day-by-day strips and tables. */
+export function weekdayDayMonth(day: string, locales: Locales = DEFAULT_LOCALE): string {
+  return formatter(locales, { weekday: 'short', ...DAY_MONTH }).format(asUtc(day));
+}
+
+/** "14 Jun 2026": a day that may lie in another year. */
+export function fullDate(day: string, locales: Locales = DEFAULT_LOCALE): string {
+  return formatter(locales, FULL).format(asUtc(day));
+}
+
+/** "14 Jun", or "14 Jun 2025" when the day is not in the year of `today`. */
+export function dayInContext(day: string, today: string, locales: Locales = DEFAULT_LOCALE): string {
+  return day.slice(0, 4) === today.slice(0, 4) ? dayMonth(day, locales) : fullDate(day, locales);
+}
+
+/** "14–22 Jun", "28 May – 3 Jun", or one day when both ends are the same. */
+export function dayRange(from: string, to: string, locales: Locales = DEFAULT_LOCALE): string {
+  if (from === to) return dayMonth(from, locales);
+  return closeUp(formatter(locales, DAY_MONTH).formatRange(asUtc(from), asUtc(to)));
+}
+
+/** "14–22 Jun 2026", "28 Dec 2025 – 3 Jan 2026": a range with its year. */
+export function fullRange(from: string, to: string, locales: Locales = DEFAULT_LOCALE): string {
+  if (from === to) return fullDate(from, locales);
+  return closeUp(formatter(locales, FULL).formatRange(asUtc(from), asUtc(to)));
+}
+
+/** "14 Jun 2026, 06:10": an instant in the garden's own time zone. */
+export function instant(iso: string | Date, timeZone: string, locales: Locales = DEFAULT_LOCALE): string {
+  return formatter(locales, { ...FULL, hour: 'numeric', minute: '2-digit' }, timeZone).format(typeof iso === 'string' ? new Date(iso) : iso);
+}
