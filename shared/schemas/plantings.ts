@@ -1,3 +1,4 @@
+import type { AttentionDto } from '../plantings/attention';
 import { z } from 'zod';
 import { idSchema, isoDateSchema, notesSchema, nullableNumber, pageQueryShape, sortOrderSchema } from './records';
 import type { Page } from './records';
@@ -211,6 +212,8 @@ export interface PlantingDto {
   logCount: number;
   /** Progress in heat (list and detail answers); null when it cannot be computed (no location, no dates). */
   progress?: ProgressSummaryDto | null;
+  /** A harvest past its expected window, or nothing recorded for weeks (shared/plantings/attention.ts). */
+  attention: AttentionDto;
 }
 
 export type PlantingPage = Page<PlantingDto>;

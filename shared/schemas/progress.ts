@@ -3,6 +3,7 @@
  * is in the garden's display unit (`unit`): °F and °F-days, or °C and °C-days — never mixed.
  * Calendar dates are 'YYYY-MM-DD' strings in the garden's own calendar.
  */
+import type { AttentionDto } from '../plantings/attention';
 import type { DisplayUnit } from './gardens';
 import type { PlantingStatus } from './plantings';
 
@@ -179,6 +180,7 @@ export interface TodayPlantingDto {
   bed: { id: number; name: string };
   status: PlantingStatus;
   progress: ProgressSummaryDto;
+  attention: AttentionDto;
 }
 
 export interface TodayWeatherDay {

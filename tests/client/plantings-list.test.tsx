@@ -81,3 +81,20 @@ describe('plantings list', () => {
     expect(listRequests().at(-1)?.query.get('order')).toBe('asc');
   });
 });
+
+describe('plantings that need a look', () => {
+  it('when a planting is overdue and nothing has been logged for weeks, then its row says both in words, not by colour', async () => {
+    const overdue = aPlanting({ progress: aProgressSummary(), attention: { overdue: { due: '2025-06-22', days: 9 }, stale: { lastOn: '2025-06-01', days: 30 } } });
+    server.use(
+      signedInAs(grower),
+      ...memberOf([aGarden()]),
+      http.get('/api/gardens/1/plantings', () => HttpResponse.json({ items: [overdue], page: 1, pageSize: 25, total: 1 })),
+    );
+    renderApp('/g/1/plantings');
+    const table = await screen.findByRole('table');
+    const [, row] = within(table).getAllByRole('row');
+    expect(within(row).getByText('Harvest overdue')).toBeTruthy();
+    expect(within(row).getByText(': expected by 22 Jun, 9 days ago, and no harvest logged')).toBeTruthy();
+    expect(within(row).getByText('Nothing logged for 4 weeks')).toBeTruthy();
+  });
+});

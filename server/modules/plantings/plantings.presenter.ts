@@ -1,8 +1,10 @@
 import { findCrop } from '#shared/crops/library';
+import { STAGE_FIELDS } from '#shared/schemas/plantings';
 import type { NextEventDto, PlantingCreateInput, PlantingDto } from '#shared/schemas/plantings';
 import type { ProgressSummaryDto } from '#shared/schemas/progress';
 import { dayMonth, dayRange } from '#shared/format/dates';
 import { requestLocale } from '../../lib/locale';
+import { plantingAttention } from '#shared/plantings/attention';
 import { addDays } from '#shared/thermal/index';
 import { packetEmergenceDays, plantingSeason } from '#shared/thermal/start-event';
 import type { Planting, Variety } from '../../db/models';
@@ -46,7 +48,14 @@ export function presentPlanting(p: Planting, garden: { latitude: number | null; 
     nextEvent: nextEvent(p, v, garden.today, progress),
     logCount: Number(p.get('logCount') ?? 0),
     progress,
+    attention: plantingAttention({ ...stages, recordedOn: [...STAGE_FIELDS.map((f) => stages[f] ?? null), dayOf(p.get('lastLogOn'))], maturity: progress?.maturity ?? null }, garden.today),
   };
+}
+
+/** A DATE column read through a literal: the driver may hand back text or a Date at UTC midnight. */
+function dayOf(value: unknown): string | null {
+  if (value instanceof Date) return value.toISOString().slice(0, 10);
+  return typeof value === 'string' && /^\d{4}-\d{2}-\d{2}/.test(value) ? value.slice(0, 10) : null;
 }
 
 export function seedLotLabel(lot: { supplier: string; lotNumber: string; packedForYear: number | null }): string {

@@ -22,6 +22,8 @@ export const plantingIncludes: Includeable[] = [
 ];
 
 const logCount = literal('(SELECT COUNT(*) FROM planting_logs AS l WHERE l.planting_id = `Planting`.`id`)');
+// The latest log entry's day, for the stale-planting flag (an index-only read of planting_logs_planting_date).
+const lastLogOn = literal('(SELECT MAX(l.entry_on) FROM planting_logs AS l WHERE l.planting_id = `Planting`.`id`)');
 
 const CACHED_SORT = { progress: 'percent', ready: 'ready_on', risk: 'bolt_rank' } as const;
 
@@ -79,7 +81,7 @@ export async function listPlantings(gardenId: number, q: PlantingListQuery) {
   ]);
   const ids = page.map((p) => p.id);
   if (!ids.length) return { rows: [], count };
-  const full = await Planting.findAll({ where: { id: ids }, include: plantingIncludes, attributes: { include: [[logCount, 'logCount']] } });
+  const full = await Planting.findAll({ where: { id: ids }, include: plantingIncludes, attributes: { include: [[logCount, 'logCount'], [lastLogOn, 'lastLogOn']] } });
   const byId = new Map(full.map((p) => [p.id, p]));
   return { rows: ids.map((id) => byId.get(id)!).filter(Boolean), count };
 }
@@ -88,7 +90,7 @@ export async function getPlanting(gardenId: number, plantingId: number, transact
   const planting = await Planting.findOne({
     where: { id: plantingId, gardenId },
     include: plantingIncludes,
-    attributes: { include: [[logCount, 'logCount']] },
+    attributes: { include: [[logCount, 'logCount'], [lastLogOn, 'lastLogOn']] },
     transaction,
   });
   if (!planting) throw AppError.notFound('That planting');

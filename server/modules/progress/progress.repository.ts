@@ -37,6 +37,9 @@ export interface GrowingRow {
   cropKey: string;
   bedId: number;
   bedName: string;
+  /** Every date recorded for it: stage dates and the latest log entry's (for the stale flag). */
+  recordedOn: (string | null)[];
+  firstHarvestOn: string | null;
   summary: ProgressSummaryDto | null;
 }
 
@@ -73,9 +76,13 @@ export class ProgressRepository {
 
   /** The garden's growing plantings with what Today shows of them, and their stored summaries for `day` where present. */
   async growing(gardenId: number, day: string): Promise<GrowingRow[]> {
-    const rows = await this.db.query<Omit<GrowingRow, 'summary'> & { summary: string | null }>(
+    const rows = await this.db.query<Omit<GrowingRow, 'summary' | 'recordedOn'> & { summary: string | null; recorded: string | null }>(
       `SELECT p.id AS plantingId, p.status, v.id AS varietyId, v.name AS varietyName, v.crop_key AS cropKey,
-              b.id AS bedId, b.name AS bedName, pp.summary_json AS summary
+              b.id AS bedId, b.name AS bedName, pp.summary_json AS summary,
+              DATE_FORMAT(p.first_harvest_on, '%Y-%m-%d') AS firstHarvestOn,
+              DATE_FORMAT(GREATEST(COALESCE(p.sown_on, '1000-01-01'), COALESCE(p.emerged_on, '1000-01-01'), COALESCE(p.thinned_on, '1000-01-01'),
+                COALESCE(p.transplanted_on, '1000-01-01'), COALESCE(p.last_harvest_on, '1000-01-01'), COALESCE(p.bolted_on, '1000-01-01'),
+                COALESCE((SELECT MAX(l.entry_on) FROM planting_logs l WHERE l.planting_id = p.id), '1000-01-01')), '%Y-%m-%d') AS recorded
          FROM plantings p
          JOIN varieties v ON v.id = p.variety_id
          JOIN beds b ON b.id = p.bed_id
@@ -84,7 +91,11 @@ export class ProgressRepository {
         ORDER BY p.start_on, p.id`,
       { replacements: [day, PROGRESS_FORMAT, gardenId], type: QueryTypes.SELECT },
     );
-    return rows.map((r) => ({ ...r, summary: r.summary === null ? null : (JSON.parse(r.summary) as ProgressSummaryDto) }));
+    return rows.map(({ recorded, ...r }) => ({
+      ...r,
+      recordedOn: [recorded === '1000-01-01' ? null : recorded, r.firstHarvestOn],
+      summary: r.summary === null ? null : (JSON.parse(r.summary) as ProgressSummaryDto),
+    }));
   }
 
   /** Plantings of the garden with no row for `day` (missing or from an earlier day). */

@@ -6,6 +6,7 @@ import type { Sequelize } from 'sequelize';
 import { TODAY_LIMIT } from '#shared/schemas/progress';
 import type { ProgressSummaryDto, TodayDto, TodayPlantingDto } from '#shared/schemas/progress';
 import { findCrop } from '#shared/crops/library';
+import { plantingAttention } from '#shared/plantings/attention';
 import { addDays } from '#shared/thermal/dates';
 import { tempIn } from '#shared/thermal/units';
 import { Garden } from '../../db/models';
@@ -100,7 +101,7 @@ export class ProgressService {
     const all = rows.flatMap((r) => {
       const progress = r.summary ?? computed.get(r.plantingId);
       if (!progress) return [];
-      return [{ plantingId: r.plantingId, crop: cropOf(r.cropKey), variety: { id: r.varietyId, name: r.varietyName }, bed: { id: r.bedId, name: r.bedName }, status: r.status, progress }];
+      return [{ plantingId: r.plantingId, crop: cropOf(r.cropKey), variety: { id: r.varietyId, name: r.varietyName }, bed: { id: r.bedId, name: r.bedName }, status: r.status, progress, attention: plantingAttention({ ...r, maturity: progress.maturity }, today) }];
     });
     const unit = garden.units;
     const toUnit = (c: number) => Math.round(tempIn(c, unit) * 100) / 100;

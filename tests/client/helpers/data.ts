@@ -46,6 +46,7 @@ export function aPlanting(overrides: Partial<PlantingDto> = {}): PlantingDto {
     season: '2025',
     nextEvent: { label: 'First harvest', on: '2025-05-27', basis: '55 days from sowing' },
     logCount: 14,
+    attention: { overdue: null, stale: null },
     ...overrides,
   };
 }
@@ -287,6 +288,7 @@ export function aToday(overrides: Partial<TodayDto> = {}): TodayDto {
         variety: { id: 7, name: 'Copperleaf Butterhead' },
         bed: { id: 3, name: 'North 1' },
         status: 'growing',
+        attention: { overdue: null, stale: null },
         progress: aProgressSummary(),
       },
       {
@@ -295,6 +297,7 @@ export function aToday(overrides: Partial<TodayDto> = {}): TodayDto {
         variety: { id: 12, name: 'Ember Globe' },
         bed: { id: 4, name: 'North 2' },
         status: 'growing',
+        attention: { overdue: null, stale: null },
         progress: aProgressSummary({
           plantingId: 9,
           accumulated: 402,

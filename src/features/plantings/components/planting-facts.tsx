@@ -3,11 +3,18 @@ import { DTM_FROM_WORDS } from '#shared/schemas/varieties';
 import type { DtmFrom } from '#shared/schemas/varieties';
 import { METHOD_WORDS, PLANTING_UNIT_WORDS, STAGE_FIELDS, STAGE_WORDS } from '#shared/schemas/plantings';
 import { StatusBadge } from '@/features/plantings/components/status-badge';
+import { AttentionFlags } from '@/features/plantings/components/attention-flags';
 import { formatDay } from '@/features/plantings/components/format-day';
 
 export function PlantingFacts({ planting: p }: { planting: PlantingDto }) {
   const rows: [string, React.ReactNode][] = [
-    ['Status', <StatusBadge key="s" status={p.status} />],
+    [
+      'Status',
+      <div key="s" className="flex flex-col items-start gap-1">
+        <StatusBadge status={p.status} />
+        <AttentionFlags attention={p.attention} />
+      </div>,
+    ],
     ['Bed', p.bed.name],
     ['Method', METHOD_WORDS[p.method]],
     ['Quantity', p.quantity === null ? '—' : `${p.quantity} ${PLANTING_UNIT_WORDS[p.quantityUnit]}`],

@@ -7,6 +7,7 @@ import { BoltRiskLabel } from '@/components/ui/bolt-risk-label';
 import { ProgressMeter } from '@/components/ui/progress-meter';
 import { CONTROL } from '@/features/plantings/components/field-styles';
 import { StatusBadge } from '@/features/plantings/components/status-badge';
+import { AttentionFlags } from '@/features/plantings/components/attention-flags';
 import { formatDay } from '@/features/plantings/components/format-day';
 
 export interface SortState {
@@ -92,7 +93,10 @@ function PlantingRow({ p, href }: RowProps) {
       </td>
       <td className="px-2 py-2 whitespace-nowrap">{started(p)}</td>
       <td className="px-2 py-2">
-        <StatusBadge status={p.status} />
+        <div className="flex flex-col items-start gap-1">
+          <StatusBadge status={p.status} />
+          <AttentionFlags attention={p.attention} compact />
+        </div>
       </td>
       <td className="min-w-36 px-2 py-2">{cells.progress}</td>
       <td className="px-2 py-2">{cells.ready}</td>
@@ -121,6 +125,9 @@ function PlantingCard({ p, href }: RowProps) {
           {p.crop.name}: {p.variety.name}
         </Link>
         <StatusBadge status={p.status} />
+      </div>
+      <div className="mt-1">
+        <AttentionFlags attention={p.attention} />
       </div>
       <dl className="mt-2 grid grid-cols-[auto_1fr] gap-x-3 gap-y-1 text-sm">
         {facts.map(([term, value]) => (

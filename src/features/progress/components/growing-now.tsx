@@ -1,3 +1,4 @@
+import { AttentionFlags } from '@/features/plantings/components/attention-flags';
 import { Link } from 'react-router-dom';
 import type { TodayDto } from '#shared/schemas/progress';
 import { formatReady } from '@/lib/format';
@@ -40,6 +41,7 @@ export function GrowingNow({ gardenId, today }: { gardenId: number; today: Today
                   {name}
                 </Link>
                 <p className="text-sm text-loam-soft">{p.bed.name}</p>
+                <AttentionFlags attention={p.attention} />
               </div>
               <div className="flex min-w-0 flex-col gap-1">
                 <ProgressMeter label={`Heat toward maturity of ${name}`} accumulated={p.progress.accumulated} target={p.progress.target} percent={p.progress.percent} unit={today.unit} />
