@@ -119,6 +119,32 @@ export const plantingListQuerySchema = z.strictObject({
 });
 export type PlantingListQuery = z.input<typeof plantingListQuerySchema>;
 
+/** A planting not yet saved, for the new-planting form's harvest preview (nothing is stored). */
+export const plantingPreviewQuerySchema = z.strictObject({
+  varietyId: z.coerce.number({ error: 'Choose a variety.' }).int().min(1, { error: 'Choose a variety.' }),
+  method: z.enum(PLANTING_METHODS, { error: 'Method must be direct sow, transplant or indoor start.' }),
+  sownOn: isoDateSchema('Sowing date').optional(),
+  transplantedOn: isoDateSchema('Transplant date').optional(),
+});
+export type PlantingPreviewQuery = z.infer<typeof plantingPreviewQuerySchema>;
+
+export interface PlantingPreviewDto {
+  /** The unit of `target` (°F-days or °C-days). */
+  unit: 'F' | 'C';
+  target: number | null;
+  /** Where the target comes from, in words. */
+  targetNote: string;
+  startEvent: { kind: 'sowing' | 'transplant'; on: string } | null;
+  /** Why there is no start yet ("No transplant date yet: …"), else null. */
+  startReason: string | null;
+  maturity: { p10: string | null; p50: string | null; p90: string | null; kind: 'analog' | 'forecast' | 'observed' | 'recorded' | 'none'; note: string };
+  /**
+   * For a crop that bolts: how many of the garden's past seasons, started this day, had high bolt
+   * risk in the harvest window; `warning` in words when that is half of them or more.
+   */
+  boltSeason: { highShare: number; years: number; warning: string | null } | null;
+}
+
 export const LOG_KINDS = ['watered', 'fed', 'thinned', 'observation', 'harvest', 'bolted', 'photo'] as const;
 export type LogKind = (typeof LOG_KINDS)[number];
 export const LOG_KIND_WORDS: Record<LogKind, string> = {

@@ -1,5 +1,5 @@
 import { Router } from 'express';
-import { logEntryCreateSchema, logListQuerySchema, plantingCreateSchema, plantingListQuerySchema, plantingUpdateSchema } from '#shared/schemas/plantings';
+import { logEntryCreateSchema, logListQuerySchema, plantingCreateSchema, plantingListQuerySchema, plantingPreviewQuerySchema, plantingUpdateSchema } from '#shared/schemas/plantings';
 import type { AppConfig } from '../../config';
 import { parseBody, parseQuery } from '../../lib/validate';
 import { mountRoutes, requireSignedIn } from '../../lib/routes';
@@ -56,6 +56,17 @@ export function plantingsRouter(config: AppConfig, table: RouteTableEntry[], pro
             const facts = { latitude: garden.latitude, today };
             return pageOf(rows.map((p) => presentPlanting(p, facts, summaries.get(p.id) ?? null)), count, q);
           });
+        },
+      },
+      {
+        method: 'get',
+        path: '/preview',
+        access: 'viewer',
+        handler: async (req, res) => {
+          const q = parseQuery(plantingPreviewQuerySchema, req.query);
+          await cache.send(req, res, 'planting-preview', () =>
+            progress.preview(req.membership!.gardenId, { varietyId: q.varietyId, method: q.method, sownOn: q.sownOn ?? null, transplantedOn: q.transplantedOn ?? null }),
+          );
         },
       },
       {

@@ -7,12 +7,13 @@ import { Op } from 'sequelize';
 import { addDays } from '#shared/thermal/dates';
 import { plantingProgress } from '#shared/thermal/planting-progress';
 import { startEvent } from '#shared/thermal/start-event';
+import { prepareSowingSweep, sowingWindowSweep } from '#shared/thermal/sowing-sweep';
 import type { DailyTemp } from '#shared/thermal/types';
 import { Bed, Garden, Planting, Variety } from '../../db/models';
 import { AppError } from '../../errors';
 import { localDate } from '../../lib/local-date';
 import type { WeatherService } from '../weather/weather.service';
-import { effectiveValues, listCrops } from '../crops/crops.service';
+import { effectiveValues, getCrop, listCrops } from '../crops/crops.service';
 import type { CropWithOverrides } from '../crops/crops.service';
 import { cropBoltTriggers, cropMethod, cropStressProfile } from '../crops/crop-thermal';
 import { varietyTarget } from '../varieties/variety-target';
@@ -113,4 +114,64 @@ function computeOne(garden: Garden, p: Planting, crop: CropWithOverrides, target
   });
   const boltNotes = !bolt ? [`${crop.crop.name} does not bolt within its garden season.`] : (bolt.notes.length ? bolt.notes : p.status === 'growing' ? [] : ['Bolt risk is judged while a planting is growing.']);
   return { ...base, event: start.event, progress, boltNotes };
+}
+
+export interface PreviewInput {
+  varietyId: number;
+  method: Planting['method'];
+  sownOn: string | null;
+  transplantedOn: string | null;
+}
+
+export interface PreviewComputation {
+  computed: Computed;
+  /** The garden's past seasons sown on the start day: share with high bolt risk in the harvest window. */
+  boltSeason: { highShare: number; years: number } | null;
+}
+
+/**
+ * What a planting not yet saved would do: the same progress computation as a stored one (the
+ * planting built in memory, never saved), and, for a crop that bolts, how often the garden's past
+ * seasons brought high bolt risk into the harvest window of a crop started that day.
+ */
+export async function previewProgress(weather: WeatherService, gardenId: number, input: PreviewInput): Promise<PreviewComputation> {
+  const garden = await Garden.findByPk(gardenId);
+  if (!garden) throw AppError.notFound('That garden');
+  const variety = await Variety.findOne({ where: { id: input.varietyId, gardenId } });
+  if (!variety) throw new AppError(400, 'validation_failed', 'Please check the fields: varietyId.', { varietyId: 'Choose a variety of this garden.' });
+  const crop = await getCrop(gardenId, variety.cropKey);
+  const w = await loadGardenWeather(weather, garden);
+  const start = input.method === 'direct-sow' ? input.sownOn : input.transplantedOn;
+  const planting = Planting.build({
+    gardenId,
+    bedId: 0,
+    varietyId: variety.id,
+    seedLotId: null,
+    method: input.method,
+    status: start && start <= w.today ? 'growing' : 'planned',
+    quantity: null,
+    quantityUnit: 'plants',
+    sownOn: input.sownOn,
+    emergedOn: null,
+    thinnedOn: null,
+    transplantedOn: input.transplantedOn,
+    firstHarvestOn: null,
+    lastHarvestOn: null,
+    boltedOn: null,
+    notes: '',
+  });
+  planting.variety = variety;
+  const e = startEvent(planting, variety).event;
+  const own = e?.packetDays ? { days: e.packetDays, from: e.kind } : undefined;
+  const target = await varietyTarget(garden, variety, effectiveValues(crop), async () => w.history, own);
+  const computed = computeOne(garden, planting, crop, target, w);
+  let boltSeason: PreviewComputation['boltSeason'] = null;
+  const effective = effectiveValues(crop);
+  const bolt = cropBoltTriggers(variety.cropKey, effective, crop.overrides, garden.units);
+  if (e && target.valueC !== null && garden.latitude !== null && bolt && Object.keys(bolt.triggers).length && w.history.length) {
+    const climatology = prepareSowingSweep({ history: w.history, latitude: garden.latitude, method: cropMethod(effective), triggers: bolt.triggers, boltTolerance: variety.boltTolerance ?? undefined });
+    const [candidate] = sowingWindowSweep(climatology, { from: e.on, to: e.on, target: target.valueC }).candidates;
+    if (candidate && candidate.analogYears > 0) boltSeason = { highShare: candidate.highBoltShare, years: candidate.analogYears };
+  }
+  return { computed, boltSeason };
 }

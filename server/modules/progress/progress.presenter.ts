@@ -5,6 +5,10 @@
 import type { DisplayUnit } from '#shared/schemas/gardens';
 import type { BoltLevelOrNone, ProgressDto, ProgressSummaryDto, StartEventKind, StressDto, TargetBasis } from '#shared/schemas/progress';
 import { dayMonth, dayRange } from '#shared/format/dates';
+import { countOf } from '#shared/format/count-words';
+import { requestLocale } from '../../lib/locale';
+import type { PlantingPreviewDto } from '#shared/schemas/plantings';
+import type { PreviewComputation } from './progress-loader';
 import type { PlantingProgress } from '#shared/thermal/planting-progress';
 import type { StartEvent } from '#shared/thermal/start-event';
 import type { DegreeDayMethod } from '#shared/thermal/types';
@@ -193,5 +197,38 @@ export function progressRow(c: Computed): ProgressRow {
     boltRank: BOLT_RANK[summary.boltLevel],
     summary,
     body: JSON.stringify(presentProgress(c)),
+  };
+}
+
+/** Half or more of the past seasons with high bolt risk at harvest is a warning; a quarter, a caution (common practice, no source). */
+export const BOLT_SEASON_WARN_SHARE = 0.5;
+export const BOLT_SEASON_CAUTION_SHARE = 0.25;
+
+/** The new-planting form's preview: the saved planting's computation, and the garden's bolt seasons. */
+export function presentPreview({ computed: c, boltSeason }: PreviewComputation): PlantingPreviewDto {
+  const p = c.progress;
+  const m = p?.maturity;
+  let season: PlantingPreviewDto['boltSeason'] = null;
+  if (boltSeason && c.event) {
+    const { highShare, years } = boltSeason;
+    const hot = Math.round(highShare * years);
+    const share = `in ${hot} of the last ${countOf(years, 'season')} here`;
+    const started = `${c.cropName} ${c.event.kind === 'sowing' ? 'sown' : 'set out'} on ${dayMonth(c.event.on, requestLocale())}`;
+    const warning =
+      highShare >= BOLT_SEASON_WARN_SHARE
+        ? `High bolt risk: ${started} would have met bolting heat or long days while ready to pick ${share}. Sow earlier or later, choose a bolt-tolerant variety, or plan shade.`
+        : highShare >= BOLT_SEASON_CAUTION_SHARE
+          ? `Some bolt risk: ${started} would have met bolting conditions while ready to pick ${share}.`
+          : null;
+    season = { highShare: r2(highShare), years, warning };
+  }
+  return {
+    unit: c.unit,
+    target: c.target === null ? null : dd(c.target, c.unit),
+    targetNote: [c.targetNote, c.event?.explanation].filter(Boolean).join(' '),
+    startEvent: c.event ? { kind: c.event.kind, on: c.event.on } : null,
+    startReason: c.startReason,
+    maturity: { p10: m?.p10 ?? null, p50: m?.p50 ?? null, p90: m?.p90 ?? null, kind: m?.kind ?? 'none', note: m?.note ?? c.startReason ?? '' },
+    boltSeason: season,
   };
 }

@@ -13,8 +13,10 @@ import { Garden } from '../../db/models';
 import { AppError } from '../../errors';
 import { localDate } from '../../lib/local-date';
 import type { WeatherService } from '../weather/weather.service';
-import { computeGardenProgress } from './progress-loader';
-import { progressRow } from './progress.presenter';
+import { computeGardenProgress, previewProgress } from './progress-loader';
+import type { PreviewInput } from './progress-loader';
+import type { PlantingPreviewDto } from '#shared/schemas/plantings';
+import { presentPreview, progressRow } from './progress.presenter';
 import { ProgressRepository } from './progress.repository';
 
 const BOLT_ORDER = { high: 0, elevated: 1, low: 2, none: 3 } as const;
@@ -90,6 +92,11 @@ export class ProgressService {
     const missing = plantingIds.filter((id) => !have.has(id));
     if (missing.length) for (const r of await this.computeAndStore(gardenId, missing)) have.set(r.plantingId, r.summary);
     return have;
+  }
+
+  /** What a planting not yet saved would do (the new-planting form's preview). */
+  async preview(gardenId: number, input: PreviewInput): Promise<PlantingPreviewDto> {
+    return presentPreview(await previewProgress(this.weather, gardenId, input));
   }
 
   /** Today's plantings and weather; `actions` are the garden's open alerts, filled in by the alerts module. */

@@ -22,6 +22,7 @@ import { FieldError, TextField } from '@/components/ui/text-field';
 import { useCreatePlanting } from '@/features/plantings/api/create-planting';
 import { useUpdatePlanting } from '@/features/plantings/api/update-planting';
 import { CONTROL } from '@/features/plantings/components/field-styles';
+import { HarvestPreview } from '@/features/plantings/components/harvest-preview';
 
 export interface PlantingChoices {
   beds: { id: number; name: string }[];
@@ -196,6 +197,15 @@ export function PlantingForm({
           {...register('transplantedOn', { setValueAs: dateOrNull })}
         />
       </div>
+      {!planting && (
+        <HarvestPreview
+          gardenId={gardenId}
+          varietyId={varietyId ? Number(varietyId) : null}
+          method={watch('method') ?? 'direct-sow'}
+          sownOn={watch('sownOn') || null}
+          transplantedOn={watch('transplantedOn') || null}
+        />
+      )}
       <details className="rounded-md border border-line px-4 py-2" open={planting ? STAGE_FIELDS.some((f) => f !== 'sownOn' && f !== 'transplantedOn' && planting[f]) : undefined}>
         <summary className="cursor-pointer py-1 font-semibold">More dates (emerged, harvested, bolted…)</summary>
         <div className="grid gap-4 py-3 sm:grid-cols-2">
