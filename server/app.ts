@@ -14,7 +14,7 @@ import { csrfGuard, noStore, requestId } from './lib/request-guards';
 import { overloadShed } from './lib/overload';
 import { ReadCache } from './lib/read-cache';
 import { accessContext, gardenIdOfPath } from './lib/garden-access';
-import { localeContext } from './lib/locale';
+import { localeContext, resolveDateTokens } from './lib/locale';
 import type { RouteTableEntry } from './lib/routes';
 import { absoluteTimeout, createSessionStore, sessionMiddleware } from './modules/auth/session';
 import { configurePassport } from './modules/auth/passport';
@@ -81,6 +81,8 @@ export function createWeatherService(config: AppConfig, sequelize: Sequelize, lo
 
 export function createApp({ config, sequelize, logger = createLogger(config.logLevel), clientDir, weather, worker, mailTransport }: AppDeps) {
   const app = express();
+  // Dates in stored text are worded for the reader on the way out (lib/locale.ts).
+  app.set('json replacer', resolveDateTokens);
   const weatherService = weather ?? createWeatherService(config, sequelize, logger);
   const eventWorker = worker ?? createWorker({ sequelize, logger });
   weatherService.onEventsCommitted(() => eventWorker.kick());

@@ -6,7 +6,7 @@
  */
 import { AsyncLocalStorage } from 'node:async_hooks';
 import type { NextFunction, Request, Response } from 'express';
-import { DEFAULT_LOCALE } from '#shared/format/dates';
+import { DEFAULT_LOCALE, resolveDates } from '#shared/format/dates';
 
 const store = new AsyncLocalStorage<string>();
 const known = new Map<string, string>();
@@ -50,4 +50,12 @@ export function localeContext(req: Request, _res: Response, next: NextFunction) 
 /** The language of the request being answered, or DEFAULT_LOCALE outside one. */
 export function requestLocale(): string {
   return store.getStore() ?? DEFAULT_LOCALE;
+}
+
+/**
+ * JSON.stringify replacer for every API answer (app.set('json replacer')): date tokens in stored
+ * text (shared/format/dates.ts) are worded in the reader's language on the way out.
+ */
+export function resolveDateTokens(_key: string, value: unknown): unknown {
+  return typeof value === 'string' && value.includes('⟦') ? resolveDates(value, requestLocale()) : value;
 }

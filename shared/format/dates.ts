@@ -81,3 +81,26 @@ export function fullRange(from: string, to: string, locales: Locales = DEFAULT_L
 export function instant(iso: string | Date, timeZone: string, locales: Locales = DEFAULT_LOCALE): string {
   return formatter(locales, { ...FULL, hour: 'numeric', minute: '2-digit' }, timeZone).format(typeof iso === 'string' ? new Date(iso) : iso);
 }
+
+/*
+ * Text the server words once and keeps (progress summaries, alert titles and reasons) cannot know
+ * who will read it. It carries its dates as tokens instead, and every way out resolves them in the
+ * reader's language: API answers (server/lib/locale.ts) and e-mail (DEFAULT_LOCALE).
+ */
+const TOKEN = /⟦(\d{4}-\d{2}-\d{2})(?:\/(\d{4}-\d{2}-\d{2}))?⟧/gu;
+
+/** A calendar day in stored text, shown as dayMonth when read. */
+export function dayToken(day: string): string {
+  return `⟦${day}⟧`;
+}
+
+/** A range of days in stored text, shown as dayRange when read. */
+export function rangeToken(from: string, to: string): string {
+  return from === to ? dayToken(from) : `⟦${from}/${to}⟧`;
+}
+
+/** The text with every date token worded in these languages. */
+export function resolveDates(text: string, locales: Locales = DEFAULT_LOCALE): string {
+  if (!text.includes('⟦')) return text;
+  return text.replace(TOKEN, (_m, from: string, to?: string) => (to ? dayRange(from, to, locales) : dayMonth(from, locales)));
+}

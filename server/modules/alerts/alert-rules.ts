@@ -6,7 +6,7 @@
  */
 import type { AlertSeverity, AlertType } from '#shared/schemas/alerts';
 import type { ProgressSummaryDto, StressDto } from '#shared/schemas/progress';
-import { dayMonth, dayRange } from '#shared/format/dates';
+import { dayToken, rangeToken } from '#shared/format/dates';
 import { addDays } from '#shared/thermal/dates';
 
 /** How far ahead a spell of bolt risk is worth acting on now. */
@@ -57,7 +57,7 @@ function bolt(p: PlantingForRules, today: string): AlertCandidate[] {
   const now = g.boltLevel === 'elevated' || g.boltLevel === 'high';
   if (!now && !highSoon) return [];
   const high = g.boltLevel === 'high' || highSoon;
-  const when = g.boltLevel === 'high' ? 'now' : highSoon ? `from ${dayMonth(g.boltHighFrom!)}` : 'now';
+  const when = g.boltLevel === 'high' ? 'now' : highSoon ? `from ${dayToken(g.boltHighFrom!)}` : 'now';
   return [{
     type: 'bolt-risk',
     plantingId: p.plantingId,
@@ -80,7 +80,7 @@ function stressSeverity(s: { kind: StressDto['kind']; severity: StressDto['sever
 }
 
 function stressTitle(s: { kind: StressDto['kind']; severity: StressDto['severity']; start: string; end: string }): string {
-  const when = dayRange(s.start, s.end);
+  const when = rangeToken(s.start, s.end);
   if (s.kind === 'frost') return `${s.severity === 'possible' ? 'Frost possible' : `${s.severity[0].toUpperCase()}${s.severity.slice(1)} freeze`} forecast ${when}`;
   if (s.kind === 'chilling') return `Cold nights forecast ${when}`;
   return `${s.kind === 'blossom-drop' ? 'Heat for blossoms' : 'Heat for pollination'} forecast ${when}`;
@@ -108,7 +108,7 @@ function window(p: PlantingForRules, today: string): AlertCandidate[] {
   const g = p.progress;
   const m = g.maturity;
   if (!m.p10 || m.p10 > today || m.kind === 'recorded' || m.kind === 'none') return [];
-  const range = m.p90 && m.p90 !== m.p10 ? `likely ready ${dayRange(m.p10, m.p90)}` : `ready from ${dayMonth(m.p10)}`;
+  const range = m.p90 && m.p90 !== m.p10 ? `likely ready ${rangeToken(m.p10, m.p90)}` : `ready from ${dayToken(m.p10)}`;
   const heat = g.target ? `${Math.round(g.accumulated)} of ${Math.round(g.target)} °${g.unit}-days (${Math.round(g.percent ?? 0)} %)` : `${Math.round(g.accumulated)} °${g.unit}-days`;
   return [{ type: 'harvest-window', plantingId: p.plantingId, firstOn: m.p10, endsOn: m.p90, severity: 'info', subject: p.label, title: 'Harvest window open', reasons: [`${heat}; ${range}`], action: ACTION.window, caution: null }];
 }
@@ -131,7 +131,7 @@ function gaps(gardenName: string, list: GardenGap[], today: string): AlertCandid
     severity: 'watch',
     subject: gardenName,
     title: `Weather missing for ${days} ${days === 1 ? 'day' : 'days'}`,
-    reasons: old.map((g) => (g.from === g.to ? `no temperatures for ${dayMonth(g.from)}` : `no temperatures for ${dayRange(g.from, g.to)} (${g.days} days)`)),
+    reasons: old.map((g) => (g.from === g.to ? `no temperatures for ${dayToken(g.from)}` : `no temperatures for ${rangeToken(g.from, g.to)} (${g.days} days)`)),
     action: ACTION.gap,
     caution: null,
   }];

@@ -4,7 +4,7 @@
  */
 import { ALERT_SEVERITY_WORDS, ALERT_TYPE_WORDS } from '#shared/schemas/alerts';
 import type { AlertSeverity, AlertType } from '#shared/schemas/alerts';
-import { dayMonth, dayRange } from '#shared/format/dates';
+import { dayMonth, dayRange, resolveDates } from '#shared/format/dates';
 
 export interface MailAlert {
   type: AlertType;
@@ -85,15 +85,18 @@ function page(subject: string, intro: string, body: string, ctx: MailContext, re
   ].join('\n');
 }
 
+/** Mail is worded once for everyone it goes to: stored dates in the default language. */
+const worded = (m: MailContent): MailContent => ({ subject: resolveDates(m.subject), text: resolveDates(m.text), html: resolveDates(m.html) });
+
 export function renderAlertMail(ctx: MailContext, alerts: MailAlert[]): MailContent {
   const subject = alerts.length === 1 ? `${heading(alerts[0])} · ${ctx.gardenName}` : `${alerts.length} new alerts · ${ctx.gardenName}`;
   const intro = alerts.length === 1 ? `There is a new alert for ${ctx.gardenName}.` : `There are ${alerts.length} new alerts for ${ctx.gardenName}.`;
   const reason = `You get this because you chose e-mail right away for ${ctx.gardenName}.`;
-  return {
+  return worded({
     subject,
     text: [`Hello ${ctx.memberName},`, '', intro, '', ...alerts.map((a) => alertText(a) + '\n'), footerText(ctx, reason)].join('\n'),
     html: page(subject, intro, alerts.map(alertHtml).join('\n'), ctx, reason),
-  };
+  });
 }
 
 export function renderDigest(ctx: MailContext, alerts: MailAlert[], date: string): MailContent {
@@ -101,9 +104,9 @@ export function renderDigest(ctx: MailContext, alerts: MailAlert[], date: string
   const subject = `${ctx.gardenName} on ${dayMonth(date)}: ${count}`;
   const intro = `Your daily summary for ${ctx.gardenName}: ${count}.`;
   const reason = `You get this because you chose a daily summary for ${ctx.gardenName}.`;
-  return {
+  return worded({
     subject,
     text: [`Hello ${ctx.memberName},`, '', intro, '', ...alerts.map((a) => alertText(a) + '\n'), footerText(ctx, reason)].join('\n'),
     html: page(subject, intro, alerts.map(alertHtml).join('\n'), ctx, reason),
-  };
+  });
 }

@@ -2,8 +2,7 @@ import { findCrop } from '#shared/crops/library';
 import { STAGE_FIELDS } from '#shared/schemas/plantings';
 import type { NextEventDto, PlantingCreateInput, PlantingDto } from '#shared/schemas/plantings';
 import type { ProgressSummaryDto } from '#shared/schemas/progress';
-import { dayMonth, dayRange } from '#shared/format/dates';
-import { requestLocale } from '../../lib/locale';
+import { dayToken, rangeToken } from '#shared/format/dates';
 import { plantingAttention } from '#shared/plantings/attention';
 import { addDays } from '#shared/thermal/index';
 import { packetEmergenceDays, plantingSeason } from '#shared/thermal/start-event';
@@ -28,7 +27,7 @@ export function nextEvent(p: Planting, v: Variety, today: string, progress: Prog
   if (!m || !m.p10) return null;
   if (m.kind === 'observed') return { label: 'Ready to harvest', on: m.p10, basis: 'Its degree-day target is reached in recorded weather.' };
   if (m.kind === 'forecast') return { label: 'Ready by the forecast', on: m.p10, basis: 'The forecast reaches its degree-day target.' };
-  const window = m.p90 ? dayRange(m.p10, m.p90, requestLocale()) : `${dayMonth(m.p10, requestLocale())} or later`;
+  const window = m.p90 ? rangeToken(m.p10, m.p90) : `${dayToken(m.p10)} or later`;
   return { label: 'Likely ready from', on: m.p10, basis: `Degree-day projection from this garden’s weather: ${window}.` };
 }
 

@@ -4,9 +4,8 @@
  */
 import type { DisplayUnit } from '#shared/schemas/gardens';
 import type { BoltLevelOrNone, ProgressDto, ProgressSummaryDto, StartEventKind, StressDto, TargetBasis } from '#shared/schemas/progress';
-import { dayMonth, dayRange } from '#shared/format/dates';
+import { dayToken, rangeToken } from '#shared/format/dates';
 import { countOf } from '#shared/format/count-words';
-import { requestLocale } from '../../lib/locale';
 import type { PlantingPreviewDto } from '#shared/schemas/plantings';
 import type { PreviewComputation } from './progress-loader';
 import type { PlantingProgress } from '#shared/thermal/planting-progress';
@@ -80,23 +79,23 @@ export function summarySentence(c: Computed): string {
   const m = p.maturity;
   const status = c.planting.status;
   if (status === 'harvested' || (status === 'bolted' && m.kind === 'recorded')) {
-    parts.push(`first harvest ${dayMonth(m.p50!)} after ${formatDegreeDays(p.accumulated, unit)}`);
+    parts.push(`first harvest ${dayToken(m.p50!)} after ${formatDegreeDays(p.accumulated, unit)}`);
   } else if (status === 'bolted') {
-    parts.push(`bolted ${c.planting.boltedOn ? dayMonth(c.planting.boltedOn) : ''} after ${formatDegreeDays(p.accumulated, unit)}, before any harvest`.replace('  ', ' '));
+    parts.push(`bolted ${c.planting.boltedOn ? dayToken(c.planting.boltedOn) : ''} after ${formatDegreeDays(p.accumulated, unit)}, before any harvest`.replace('  ', ' '));
   } else if (status === 'failed') {
     parts.push('failed');
   } else {
-    if (c.event.planned) parts.push(`planned for ${dayMonth(c.event.on)}`);
+    if (c.event.planned) parts.push(`planned for ${dayToken(c.event.on)}`);
     else parts.push(heat);
-    if (m.kind === 'recorded') parts.push(`harvesting since ${dayMonth(m.p50!)}`);
-    else if (m.kind === 'observed') parts.push(`reached its target on ${dayMonth(m.p50!)}: ready to harvest`);
-    else if (m.kind === 'forecast') parts.push(`the forecast reaches its target on ${dayMonth(m.p50!)}`);
-    else if (m.kind === 'analog' && m.p10 && m.p90) parts.push(`likely ready ${dayRange(m.p10, m.p90)}`);
+    if (m.kind === 'recorded') parts.push(`harvesting since ${dayToken(m.p50!)}`);
+    else if (m.kind === 'observed') parts.push(`reached its target on ${dayToken(m.p50!)}: ready to harvest`);
+    else if (m.kind === 'forecast') parts.push(`the forecast reaches its target on ${dayToken(m.p50!)}`);
+    else if (m.kind === 'analog' && m.p10 && m.p90) parts.push(`likely ready ${rangeToken(m.p10, m.p90)}`);
     else if (m.kind === 'analog') parts.push('may not reach its target this season');
     else parts.push(m.note.replace(/\.$/, '').replace(/^./, (x) => x.toLowerCase()));
     parts.push(...boltWords(c));
     const s = p.stress[0];
-    if (s) parts.push(`${stressTitle(s)} forecast ${dayRange(s.start, s.end)}`);
+    if (s) parts.push(`${stressTitle(s)} forecast ${rangeToken(s.start, s.end)}`);
   }
   const sentence = parts.join('; ');
   return sentence.charAt(0).toUpperCase() + sentence.slice(1) + '.';
@@ -110,7 +109,7 @@ function boltWords(c: Computed): string[] {
   const out = [`bolt risk ${b.level}${now && b.level !== 'low' ? `: ${now}` : ''}`];
   if (b.highFrom && b.level !== 'high') {
     const ahead = why(b.highReasons);
-    out.push(`high from ${dayMonth(b.highFrom)}${ahead ? `: ${ahead}` : ''}`);
+    out.push(`high from ${dayToken(b.highFrom)}${ahead ? `: ${ahead}` : ''}`);
   }
   return out;
 }
@@ -213,7 +212,7 @@ export function presentPreview({ computed: c, boltSeason }: PreviewComputation):
     const { highShare, years } = boltSeason;
     const hot = Math.round(highShare * years);
     const share = `in ${hot} of the last ${countOf(years, 'season')} here`;
-    const started = `${c.cropName} ${c.event.kind === 'sowing' ? 'sown' : 'set out'} on ${dayMonth(c.event.on, requestLocale())}`;
+    const started = `${c.cropName} ${c.event.kind === 'sowing' ? 'sown' : 'set out'} on ${dayToken(c.event.on)}`;
     const warning =
       highShare >= BOLT_SEASON_WARN_SHARE
         ? `High bolt risk: ${started} would have met bolting heat or long days while ready to pick ${share}. Sow earlier or later, choose a bolt-tolerant variety, or plan shade.`
