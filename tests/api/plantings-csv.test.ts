@@ -27,6 +27,29 @@ describe('plantings CSV', () => {
     expect(rows[0]).toMatchObject({ bed: `'=HYPERLINK("http://x.example")`, notes: "'@SUM(A1)\nsecond line", log_note: "'-2 frost marks" });
   });
 
+  it('when a cell holds line breaks, tabs or apostrophes, then every line is neutralised and quoted, and the file re-imports unchanged', async () => {
+    const { clients, base, garden } = await gardenWithClients(app);
+    const bed = await makeBed(garden.id, 'Bed one');
+    const variety = await makeVariety(garden.id, { name: 'Plain' });
+    // OWASP CSV injection: = + - @ tab CR start a formula; a bare LF or CR starts a new spreadsheet row.
+    const tricky = ['=1+1\n=2+2', "'\r=1+1", ' =1+1', "'=x", '\t=cmd', 'ok\r\n+1', "''keep"];
+    const made = [];
+    for (const [i, notes] of tricky.entries()) made.push(await makePlanting(garden.id, { bedId: bed.id, varietyId: variety.id, sownOn: `2025-04-${String(10 + i)}`, notes }));
+    await PlantingLog.create({ gardenId: garden.id, plantingId: made[0].id, entryOn: '2025-04-20', kind: 'observation', amount: null, amountUnit: null, note: '@x\r-y', photoId: null, createdBy: null });
+    const res = await clients.viewer.get(`${base}/plantings/export.csv`);
+    const text = res.text.replace(/^\uFEFF/, '');
+    // Outside quotes, the only line breaks are the CRLF record ends: one per planting row and the header.
+    const unquoted = text.replace(/"(?:[^"]|"")*"/g, '');
+    expect(unquoted.match(/\r\n|\r|\n/g)).toHaveLength(tricky.length + 1);
+    const rows = parse(text, { columns: true }) as Record<string, string>[];
+    expect(rows).toHaveLength(tricky.length);
+    for (const row of rows) for (const cell of Object.values(row)) for (const line of cell.split(/\r\n|\r|\n/)) expect(line).not.toMatch(/^[=+\-@\t\r]/);
+    const again = await clients.grower.post(`${base}/plantings/import`).attach('file', Buffer.from(res.text), 'export.csv');
+    expect(again.status).toBe(200);
+    expect(again.body.report).toEqual({ plantingsCreated: 0, plantingsUpdated: 0, plantingsUnchanged: tricky.length, logEntriesCreated: 0, logEntriesExisting: 1 });
+    for (const [i, p] of made.entries()) expect((await Planting.findByPk(p.id))!.notes).toBe(tricky[i]);
+  });
+
   it('when an exported file is imported again, then nothing changes; a new file is imported all at once', async () => {
     const { clients, base, garden } = await gardenWithClients(app);
     await makeBed(garden.id, 'North 1');

@@ -21,16 +21,27 @@ import { countOf } from '#shared/format/count-words';
 type Column = (typeof PLANTING_CSV_COLUMNS)[number];
 
 const FORMULA_START = /^[=+\-@\t\r]/;
+// A cell's lines, each with the break that ends it: a spreadsheet starts a new row at a bare CR or LF too.
+const LINES = /[^\r\n]*(?:\r\n|\r|\n|$)/g;
 
-/** OWASP CSV injection: a cell a spreadsheet would run as a formula is prefixed with a quote. */
+const eachLine = (cell: string, f: (line: string) => string) => (cell.match(LINES) ?? []).map(f).join('');
+
+/**
+ * OWASP CSV injection: every line of a cell that a spreadsheet would run as a formula (= + - @,
+ * tab or CR first) is prefixed with an apostrophe. A line that already starts with an apostrophe
+ * gets one more, so the import can take exactly one off and the file round-trips unchanged.
+ */
 export function neutralise(cell: string): string {
-  return FORMULA_START.test(cell) ? `'${cell}` : cell;
+  return eachLine(cell, (line) => (FORMULA_START.test(line) || line.startsWith("'") ? `'${line}` : line));
 }
 
-/** Undoes neutralise on import, so an exported file round-trips. */
-function unneutralise(cell: string): string {
-  return cell.startsWith("'") && FORMULA_START.test(cell.slice(1)) ? cell.slice(1) : cell;
+/** Undoes neutralise on import: one apostrophe off the start of each line that has one. */
+export function unneutralise(cell: string): string {
+  return eachLine(cell, (line) => (line.startsWith("'") ? line.slice(1) : line));
 }
+
+/** Free text keeps its spaces on import (a note may start with one); names and codes are trimmed. */
+const FREE_TEXT: ReadonlySet<string> = new Set(['notes', 'log_note']);
 
 const cropName = new Map(CROP_LIBRARY.map((c) => [c.key, c.name]));
 
@@ -78,7 +89,8 @@ export async function exportPlantingsCsv(gardenId: number): Promise<string> {
     for (const r of withLogs) rows.push(PLANTING_CSV_COLUMNS.map((c) => neutralise(r[c])));
   }
   // RFC 4180: CRLF line ends, fields with commas, quotes or line breaks quoted, quotes doubled.
-  return stringify([[...PLANTING_CSV_COLUMNS], ...rows], { record_delimiter: 'windows', bom: true });
+  // A bare CR or LF inside a field is quoted as well (csv-stringify quotes only its own record delimiter).
+  return stringify([[...PLANTING_CSV_COLUMNS], ...rows], { record_delimiter: 'windows', bom: true, quoted_match: /[\r\n]/ });
 }
 
 interface ParsedRow {
@@ -184,7 +196,12 @@ export async function importPlantingsCsv(gardenId: number, userId: number, buffe
 
   const rows: ParsedRow[] = [];
   for (const { line, cells: raw } of records) {
-    const cells = Object.fromEntries(PLANTING_CSV_COLUMNS.map((c) => [c, unneutralise((raw[c] ?? '').trim())])) as Record<Column, string>;
+    const cells = Object.fromEntries(
+      PLANTING_CSV_COLUMNS.map((c) => {
+        const cell = unneutralise(raw[c] ?? '');
+        return [c, FREE_TEXT.has(c) ? cell : cell.trim()];
+      }),
+    ) as Record<Column, string>;
     const bad = (column: Column, message: string) => problems.push({ line, column, message });
     const bed = bedByName.get(cells.bed.toLowerCase());
     if (!bed) bad('bed', `No bed named "${cells.bed}" in this garden.`);
