@@ -62,6 +62,13 @@ export function isDatabaseDown(err: unknown): boolean {
 interface BodyParserError extends Error {
   type?: string;
   status?: number;
+  /** zlib's code when a body said it was compressed and was not (Z_DATA_ERROR; brotli's ERR__ERROR_FORMAT_…). */
+  code?: string;
+}
+
+/** A body that could not be read as its headers described it: the client's fault, worth one log line. */
+function unreadableBody(err: BodyParserError): boolean {
+  return (typeof err.code === 'string' && /^(Z_|ERR__ERROR_|ERR_BROTLI)/.test(err.code)) || err.type === 'request.aborted' || err.type === 'stream.encoding.set';
 }
 
 export function errorHandler(logger: Logger): ErrorRequestHandler {
@@ -75,6 +82,11 @@ export function errorHandler(logger: Logger): ErrorRequestHandler {
     else if (bp.type === 'entity.parse.failed') appErr = new AppError(400, 'malformed_json', 'The request body is not valid JSON.');
     else if (bp.type === 'encoding.unsupported' || bp.type === 'charset.unsupported')
       appErr = new AppError(415, 'unsupported_media_type', 'The request body encoding is not supported.');
+    else if (unreadableBody(bp)) {
+      appErr = new AppError(400, 'malformed_body', 'The request body could not be read: it does not match its Content-Encoding.');
+      logger.warn('unreadable request body', { requestId, method: req.method, path: req.path, encoding: req.headers['content-encoding'], cause: bp.code ?? bp.type });
+    } else if (typeof bp.status === 'number' && bp.status >= 400 && bp.status < 500 && bp.type)
+      appErr = new AppError(bp.status, 'bad_request', 'The request could not be read.');
     else if (isDatabaseDown(err))
       appErr = new AppError(503, 'database_unavailable', 'The database is not reachable right now. Please try again shortly.', undefined, {
         'Retry-After': '5',

@@ -14,6 +14,17 @@ describe('bad input and headers', () => {
     expect(res.body.error.requestId).toBe(res.headers['x-request-id']);
   });
 
+  it('when a body claims a compression it does not have, then 400 malformed_body before sign-in, and one log line, no stack', async () => {
+    for (const encoding of ['gzip', 'deflate', 'br']) {
+      const res = await request(app).post('/api/auth/login').set('Content-Type', 'application/json').set('Content-Encoding', encoding).send('{"email":"a@b.c","password":"x"}');
+      expect(res.status, encoding).toBe(400);
+      expect(res.body.error.code).toBe('malformed_body');
+      expect(JSON.stringify(res.body)).not.toMatch(/at .*\.ts|zlib|node_modules/);
+    }
+    const unknown = await request(app).post('/api/auth/login').set('Content-Type', 'application/json').set('Content-Encoding', 'x-lzma').send('{}');
+    expect(unknown.status).toBe(415);
+  });
+
   it('when the body is 200 kB, then 413', async () => {
     const res = await request(app)
       .post('/api/auth/register')
