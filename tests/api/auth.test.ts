@@ -35,6 +35,20 @@ describe('registration and sign-in', () => {
     expect((await a.get('/api/auth/me')).body.user.email).toBe(email);
   });
 
+  it('when a new password is long enough but easy to guess, then registration refuses it under the password field and creates nothing', async () => {
+    // Weak ones found by probing the running app; the strength estimate is zxcvbn-ts with its common-password and English lists.
+    for (const weak of ['1234567890', 'aaaaaaaaaa', 'password12', ' '.repeat(10), 'heatclock-demo', 'own e-mail']) {
+      const email = uniqueEmail('weak');
+      const password = weak === 'own e-mail' ? email : weak;
+      const res = await agent(app).post('/api/auth/register').send({ email, password, name: 'Mara Quill', gardenName: 'Back plot' });
+      expect(res.status, password).toBe(400);
+      expect(res.body.error.fields.password, password).toMatch(/^This password is too easy to guess\./);
+      expect(await User.count({ where: { email } })).toBe(0);
+    }
+    const ok = await agent(app).post('/api/auth/register').send({ email: uniqueEmail('strong'), password: 'tomato violin harbour seven', name: 'Mara Quill', gardenName: 'Back plot' });
+    expect(ok.status).toBe(201);
+  });
+
   it('when an e-mail is registered twice, then the second gets 409 naming the e-mail field', async () => {
     const email = uniqueEmail('dup');
     await agent(app).post('/api/auth/register').send({ email, password: PASSWORD, name: 'A', gardenName: 'G' });

@@ -14,6 +14,7 @@ import { presentGarden } from '../gardens/gardens.presenter';
 import { MariaDbRateLimitStore } from './rate-limit-store';
 import { INVALID_CREDENTIALS, registerUser } from './auth.service';
 import { presentUser } from './auth.presenter';
+import { assertStrongPassword } from './password-strength';
 
 /** Passport ≥ 0.6 regenerates the session at login (new id); save it before answering. */
 function signIn(req: Request, user: UserDto): Promise<void> {
@@ -60,6 +61,7 @@ export function authRouter(deps: { sequelize: Sequelize; config: AppConfig; pass
         access: 'public',
         handler: async (req, res) => {
           const input = parseBody(registerSchema, req.body);
+          assertStrongPassword(input.password, input);
           const { user, garden } = await registerUser(sequelize, input);
           await signIn(req, presentUser(user));
           res.status(201).json({ user: presentUser(user), garden: presentGarden(garden, 'owner') });
