@@ -24,6 +24,11 @@ const envSchema = z.object({
   SESSION_ABSOLUTE_HOURS: z.coerce.number().int().positive().default(7 * 24),
   LOGIN_MAX_FAILURES: z.coerce.number().int().positive().default(8),
   LOGIN_WINDOW_MINUTES: z.coerce.number().positive().default(15),
+  // Per address, whatever the e-mail: a flood of made-up e-mails meets this one.
+  LOGIN_MAX_FAILURES_PER_IP: z.coerce.number().int().positive().default(60),
+  REGISTER_MAX_PER_IP: z.coerce.number().int().positive().default(10),
+  REGISTER_MAX_PER_EMAIL: z.coerce.number().int().positive().default(3),
+  REGISTER_WINDOW_MINUTES: z.coerce.number().positive().default(60),
   TRUST_PROXY: z.string().optional(),
   COOKIE_SECURE: z.enum(['true', 'false']).optional(),
   LOG_LEVEL: z.enum(['silent', 'error', 'warn', 'info', 'debug']).optional(),
@@ -70,6 +75,10 @@ export interface AppConfig {
   sessionAbsoluteMs: number;
   loginMaxFailures: number;
   loginWindowMs: number;
+  loginMaxFailuresPerIp: number;
+  registerMaxPerIp: number;
+  registerMaxPerEmail: number;
+  registerWindowMs: number;
   trustProxy: string | undefined;
   /** Secure cookies need HTTPS; a production server bound to loopback is assumed to be a local demo unless told otherwise. */
   cookieSecure: boolean;
@@ -187,6 +196,10 @@ export function loadConfig(source: NodeJS.ProcessEnv = process.env): AppConfig {
     sessionAbsoluteMs: e.SESSION_ABSOLUTE_HOURS * 3_600_000,
     loginMaxFailures: e.LOGIN_MAX_FAILURES,
     loginWindowMs: e.LOGIN_WINDOW_MINUTES * 60_000,
+    loginMaxFailuresPerIp: e.LOGIN_MAX_FAILURES_PER_IP,
+    registerMaxPerIp: e.REGISTER_MAX_PER_IP,
+    registerMaxPerEmail: e.REGISTER_MAX_PER_EMAIL,
+    registerWindowMs: e.REGISTER_WINDOW_MINUTES * 60_000,
     trustProxy: e.TRUST_PROXY,
     cookieSecure: e.COOKIE_SECURE ? e.COOKIE_SECURE === 'true' : e.NODE_ENV === 'production' && !/^(127\.|localhost$|::1$)/.test(e.HOST),
     logLevel: e.LOG_LEVEL ?? (e.NODE_ENV === 'test' ? 'silent' : 'info'),

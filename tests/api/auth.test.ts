@@ -116,6 +116,40 @@ describe('registration and sign-in', () => {
     expect((await agent(limited).post('/api/auth/login').send({ email: other.email, password: PASSWORD })).status).toBe(200);
   });
 
+  it('when one address fails sign-ins with many made-up e-mails, or signs up again and again, then it is limited per address as well', async () => {
+    // Behind a proxy the address is the X-Forwarded-For one: a fresh invented address per run keeps the shared counts apart.
+    const limited = testApp({ trustProxy: 'loopback', loginMaxFailuresPerIp: 4, registerMaxPerIp: 2, registerMaxPerEmail: 100 });
+    const ip = `198.51.100.${1 + Math.floor(Math.random() * 250)}`;
+    for (let i = 0; i < 4; i++) {
+      expect((await agent(limited).post('/api/auth/login').set('X-Forwarded-For', ip).send({ email: uniqueEmail('ghost'), password: 'not the password' })).status).toBe(401);
+    }
+    const user = await createUser();
+    const blocked = await agent(limited).post('/api/auth/login').set('X-Forwarded-For', ip).send({ email: user.email, password: PASSWORD });
+    expect(blocked.status).toBe(429);
+    expect(blocked.body.error.message).toMatch(/^Too many sign-in attempts from your network\. Try again in \d+ seconds\.$/);
+    // Another address is not affected.
+    expect((await agent(limited).post('/api/auth/login').set('X-Forwarded-For', '203.0.113.9').send({ email: user.email, password: PASSWORD })).status).toBe(200);
+
+    const signUp = () => agent(limited).post('/api/auth/register').set('X-Forwarded-For', ip).send({ email: uniqueEmail('flood'), password: 'tomato violin harbour seven', name: 'Flood', gardenName: 'Plot' });
+    expect((await signUp()).status).toBe(201);
+    expect((await signUp()).status).toBe(201);
+    const third = await signUp();
+    expect(third.status).toBe(429);
+    expect(Number(third.headers['retry-after'])).toBeGreaterThan(0);
+  });
+
+  it('when more password hashes are asked for at once than the queue holds, then the extra ones get 503 with Retry-After, and the rest finish', async () => {
+    // Made-up e-mails cost a hash too (the same time as a wrong password), so they queue with the rest.
+    const attempts = await Promise.all(Array.from({ length: 40 }, () => agent(app).post('/api/auth/login').send({ email: uniqueEmail('queue'), password: 'not the password' })));
+    const statuses = attempts.map((r) => r.status);
+    // 4 hashing and 16 waiting at most (server/modules/auth/password.ts); every other attempt is refused at once.
+    expect(statuses.filter((s) => s === 401).length).toBeGreaterThanOrEqual(20);
+    const refused = attempts.filter((r) => r.status === 503);
+    expect(refused.length).toBeGreaterThan(0);
+    for (const r of refused) expect(r.headers['retry-after']).toBe('2');
+    expect(statuses.every((s) => s === 401 || s === 503)).toBe(true);
+  });
+
   it('when sessions older than the absolute lifetime come back, then they are signed out', async () => {
     const short = testApp({ sessionAbsoluteMs: 50 });
     const user = await createUser();

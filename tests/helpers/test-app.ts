@@ -21,7 +21,9 @@ const services: WeatherService[] = [];
  */
 export function testDb() {
   if (!shared) {
-    const config = loadConfig({ ...process.env, NODE_ENV: 'test' });
+    // Every test signs up and fails sign-ins from 127.0.0.1, and the counts live in the shared test
+    // database: per-address limits are raised here; the tests of the limits set their own.
+    const config = loadConfig({ LOGIN_MAX_FAILURES_PER_IP: '100000', REGISTER_MAX_PER_IP: '100000', REGISTER_MAX_PER_EMAIL: '100000', ...process.env, NODE_ENV: 'test' });
     const sequelize = createSequelize(config.db);
     initModels(sequelize);
     const fake = startFakeWeather('error');

@@ -31,25 +31,39 @@ export function authRouter(deps: { sequelize: Sequelize; config: AppConfig; pass
   const { sequelize, config, passport, table } = deps;
   const router = Router();
 
-  const loginLimiter = rateLimit({
-    windowMs: config.loginWindowMs,
-    limit: config.loginMaxFailures,
-    skipSuccessfulRequests: true,
-    standardHeaders: 'draft-8',
-    legacyHeaders: false,
-    store: new MariaDbRateLimitStore(sequelize, 'login:'),
-    keyGenerator: (req) => `${String(req.body?.email ?? '').trim().toLowerCase()}|${ipKeyGenerator(req.ip ?? '')}`,
-    handler: (_req, res, _next, options) => {
-      const retry = res.getHeader('Retry-After');
-      res.status(options.statusCode).json({
-        error: {
-          code: 'rate_limited',
-          message: `Too many sign-in attempts. Try again in ${retry ?? Math.ceil(options.windowMs / 1000)} seconds.`,
-          requestId: res.locals.requestId,
-        },
-      });
-    },
-  });
+  const emailOf = (req: Request) => String(req.body?.email ?? '').trim().toLowerCase();
+  const ipOf = (req: Request) => ipKeyGenerator(req.ip ?? '');
+  /** One limiter, counted in MariaDB so every instance sees the same attempts. */
+  const limiter = (o: { prefix: string; windowMs: number; limit: number; key: (req: Request) => string; failuresOnly: boolean; what: string }) =>
+    rateLimit({
+      windowMs: o.windowMs,
+      limit: o.limit,
+      skipSuccessfulRequests: o.failuresOnly,
+      standardHeaders: 'draft-8',
+      legacyHeaders: false,
+      store: new MariaDbRateLimitStore(sequelize, o.prefix),
+      keyGenerator: o.key,
+      handler: (_req, res, _next, options) => {
+        const retry = res.getHeader('Retry-After');
+        res.status(options.statusCode).json({
+          error: {
+            code: 'rate_limited',
+            message: `Too many ${o.what}. Try again in ${retry ?? Math.ceil(options.windowMs / 1000)} seconds.`,
+            requestId: res.locals.requestId,
+          },
+        });
+      },
+    });
+  // Sign-in failures per e-mail and address (a guessed password), and per address alone (made-up e-mails).
+  const loginLimiters = [
+    limiter({ prefix: 'login:', windowMs: config.loginWindowMs, limit: config.loginMaxFailures, key: (req) => `${emailOf(req)}|${ipOf(req)}`, failuresOnly: true, what: 'sign-in attempts' }),
+    limiter({ prefix: 'login-ip:', windowMs: config.loginWindowMs, limit: config.loginMaxFailuresPerIp, key: ipOf, failuresOnly: true, what: 'sign-in attempts from your network' }),
+  ];
+  // Every registration counts, per address and per e-mail.
+  const registerLimiters = [
+    limiter({ prefix: 'register-ip:', windowMs: config.registerWindowMs, limit: config.registerMaxPerIp, key: ipOf, failuresOnly: false, what: 'new accounts from your network' }),
+    limiter({ prefix: 'register:', windowMs: config.registerWindowMs, limit: config.registerMaxPerEmail, key: emailOf, failuresOnly: false, what: 'sign-ups with this e-mail' }),
+  ];
 
   mountRoutes(
     router,
@@ -59,6 +73,7 @@ export function authRouter(deps: { sequelize: Sequelize; config: AppConfig; pass
         method: 'post',
         path: '/register',
         access: 'public',
+        before: registerLimiters,
         handler: async (req, res) => {
           const input = parseBody(registerSchema, req.body);
           assertStrongPassword(input.password, input);
@@ -76,7 +91,7 @@ export function authRouter(deps: { sequelize: Sequelize; config: AppConfig; pass
             req.body = parseBody(loginSchema, req.body);
             next();
           },
-          loginLimiter,
+          ...loginLimiters,
         ],
         handler: (req: Request, res: Response, next: NextFunction) => {
           passport.authenticate('local', (err: unknown, user: UserDto | false) => {

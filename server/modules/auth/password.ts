@@ -1,11 +1,23 @@
 import { randomBytes, scrypt as scryptCb, timingSafeEqual } from 'node:crypto';
 import type { ScryptOptions } from 'node:crypto';
+import { Bounded } from '../../lib/bounded';
 
 // OWASP Password Storage Cheat Sheet lists scrypt N=2^15, r=8, p=3 as a minimum configuration.
 const PARAMS = { N: 2 ** 15, r: 8, p: 3 };
 const KEYLEN = 64;
 
+/**
+ * scrypt runs on libuv's thread pool (4 threads by default), shared with file and DNS work. At most
+ * 4 hashes at once and 16 waiting: a normal sign-in behind a flood waits for at most 5 hashes'
+ * time per thread (about 0.5 s), and a flood beyond that is answered 503 at once.
+ */
+export const hashing = new Bounded(4, 16, 'sign-ins and sign-ups');
+
 function scrypt(password: string, salt: Buffer, opts: ScryptOptions): Promise<Buffer> {
+  return hashing.run(() => scryptNow(password, salt, opts));
+}
+
+function scryptNow(password: string, salt: Buffer, opts: ScryptOptions): Promise<Buffer> {
   return new Promise((resolve, reject) =>
     scryptCb(password.normalize('NFKC'), salt, KEYLEN, { ...opts, maxmem: 128 * opts.N! * opts.r! * 2 }, (err, key) =>
       err ? reject(err) : resolve(key),
