@@ -8,6 +8,7 @@ import type { AppConfig } from '../../config';
 import { Planting, PlantingLog, PlantingPhoto, User } from '../../db/models';
 import { AppError } from '../../errors';
 import { inTransaction } from '../../lib/transaction';
+import type { Transaction } from 'sequelize';
 
 const ACCEPTED = new Set(['image/jpeg', 'image/png', 'image/webp']);
 /** Longest edge kept: plenty for a bed photo on any screen, a fraction of a phone camera's file. */
@@ -56,8 +57,10 @@ export async function cleanImage(buffer: Buffer, uploads: Uploads) {
   }
 }
 
-async function plantingOf(gardenId: number, plantingId: number) {
-  const planting = await Planting.findOne({ where: { id: plantingId, gardenId }, attributes: ['id'] });
+async function plantingOf(gardenId: number, plantingId: number, transaction?: Transaction) {
+  // In a transaction the row is locked for share: a delete of the planting waits for this insert
+  // (and then removes its file too), or this insert waits for the delete and answers 404.
+  const planting = await Planting.findOne({ where: { id: plantingId, gardenId }, attributes: ['id'], transaction, ...(transaction ? { lock: transaction.LOCK.SHARE } : {}) });
   if (!planting) throw AppError.notFound('That planting');
   return planting;
 }
@@ -92,6 +95,7 @@ export async function savePhoto(
   await writeFile(file, data, { flag: 'wx', mode: 0o600 });
   try {
     const id = await inTransaction(PlantingPhoto.sequelize!, async (transaction) => {
+      await plantingOf(input.gardenId, input.plantingId, transaction);
       const photo = await PlantingPhoto.create(
         {
           gardenId: input.gardenId,

@@ -82,16 +82,23 @@ export async function deleteSeedLot(gardenId: number, seedLotId: number) {
   await unreferencedOr409(
     () =>
       inTransaction(SeedLot.sequelize!, async (transaction) => {
+        // The lot first, so a germination test being added either lands before (and goes with it) or gets 404.
+        const locked = await SeedLot.findOne({ where: { id: lot.id, gardenId }, transaction, lock: transaction.LOCK.UPDATE });
+        if (!locked) throw AppError.notFound('That seed lot');
         await GerminationTest.destroy({ where: { seedLotId: lot.id }, transaction });
-        await lot.destroy({ transaction });
+        await locked.destroy({ transaction });
       }),
     'A planting sown from this lot was just recorded; it keeps the lot on record.',
   );
 }
 
 export async function addGerminationTest(gardenId: number, seedLotId: number, input: GerminationTestCreateInput) {
-  const lot = await getSeedLot(gardenId, seedLotId);
-  return inTransaction(SeedLot.sequelize!, (transaction) => GerminationTest.create({ gardenId, seedLotId: lot.id, notes: '', ...input }, { transaction }));
+  return inTransaction(SeedLot.sequelize!, async (transaction) => {
+    // Locked for share: a delete of the lot waits for this test, or this test waits and answers 404.
+    const lot = await SeedLot.findOne({ where: { id: seedLotId, gardenId }, attributes: ['id'], transaction, lock: transaction.LOCK.SHARE });
+    if (!lot) throw AppError.notFound('That seed lot');
+    return GerminationTest.create({ gardenId, seedLotId: lot.id, notes: '', ...input }, { transaction });
+  });
 }
 
 export async function deleteGerminationTest(gardenId: number, seedLotId: number, testId: number) {
