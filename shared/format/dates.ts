@@ -42,8 +42,9 @@ function asUtc(day: string): Date {
 const DAY_MONTH: Intl.DateTimeFormatOptions = { day: 'numeric', month: 'short' };
 const FULL: Intl.DateTimeFormatOptions = { day: 'numeric', month: 'short', year: 'numeric' };
 
-// A range whose ends differ only in the day reads "14–22 Jun": the dash closed up between digits.
-const closeUp = (s: string) => s.replace(/(\d)\s*[–-]\s*(\d)/u, '$1–$2');
+// A range within one month reads "14–22 Jun": the dash closed up between the day numbers. Across
+// months or years Intl's spaced dash stays ("28 Dec 2026 – 3 Jan 2027").
+const closeUp = (s: string, from: string, to: string) => (from.slice(0, 7) === to.slice(0, 7) ? s.replace(/(\d)\s*[–-]\s*(\d)/u, '$1–$2') : s);
 
 /** "14 Jun" (or "Jun 14", in the reader's order). */
 export function dayMonth(day: string, locales: Locales = DEFAULT_LOCALE): string {
@@ -68,16 +69,16 @@ export function dayInContext(day: string, today: string, locales: Locales = DEFA
 /** "14–22 Jun", "28 May – 3 Jun", or one day when both ends are the same. */
 export function dayRange(from: string, to: string, locales: Locales = DEFAULT_LOCALE): string {
   if (from === to) return dayMonth(from, locales);
-  return closeUp(formatter(locales, DAY_MONTH).formatRange(asUtc(from), asUtc(to)));
+  return closeUp(formatter(locales, DAY_MONTH).formatRange(asUtc(from), asUtc(to)), from, to);
 }
 
 /** "14–22 Jun 2026", "28 Dec 2025 – 3 Jan 2026": a range with its year. */
 export function fullRange(from: string, to: string, locales: Locales = DEFAULT_LOCALE): string {
   if (from === to) return fullDate(from, locales);
-  return closeUp(formatter(locales, FULL).formatRange(asUtc(from), asUtc(to)));
+  return closeUp(formatter(locales, FULL).formatRange(asUtc(from), asUtc(to)), from, to);
 }
 
-/** "14 Jun 2026, 06:10": an instant in the garden's own time zone. */
+/** "14 Jun 2026, 6:10" (the locale's clock): an instant in the garden's own time zone. */
 export function instant(iso: string | Date, timeZone: string, locales: Locales = DEFAULT_LOCALE): string {
   return formatter(locales, { ...FULL, hour: 'numeric', minute: '2-digit' }, timeZone).format(typeof iso === 'string' ? new Date(iso) : iso);
 }

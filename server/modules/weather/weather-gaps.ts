@@ -1,4 +1,5 @@
 /** Gap rules of the weather pipeline, free of I/O so they can be tested and reused on their own. */
+import { dayToken } from '#shared/format/dates';
 import { addDays, daysBetween } from '#shared/thermal/dates';
 
 export interface Gap {
@@ -60,7 +61,7 @@ export function planFills(known: ReadonlyMap<string, KnownDay>, from: string, to
         tmax: tenth(before.tmax + (after.tmax - before.tmax) * f),
         tmin: tenth(before.tmin + (after.tmin - before.tmin) * f),
         source: 'filled',
-        note: `Linear interpolation between ${before.date} and ${after.date}`,
+        note: `Linear interpolation between the readings of ${dayToken(before.date)} and ${dayToken(after.date)}`,
       });
     }
   }

@@ -1,3 +1,4 @@
+import { resolveDates } from '#shared/format/dates';
 import { beforeEach, describe, expect, it } from 'vitest';
 import { QueryTypes } from 'sequelize';
 import { agent, testApp, testDb, testWeather } from '../../helpers/test-app';
@@ -133,7 +134,9 @@ describe('weather pipeline', () => {
     const stored = new Map((await rows(cellId)).map((r) => [r.date, r]));
     const filled = stored.get('2026-06-15')!;
     expect(filled.source).toBe('filled');
-    expect(filled.note).toBe('Linear interpolation between 2026-06-14 and 2026-06-16');
+    // Stored with date tokens; every answer words them in the reader's language (shared/format/dates.ts).
+    expect(filled.note).toBe('Linear interpolation between the readings of ⟦2026-06-14⟧ and ⟦2026-06-16⟧');
+    expect(resolveDates(filled.note!, 'en-GB')).toBe('Linear interpolation between the readings of 14 Jun and 16 Jun');
     const lo = stored.get('2026-06-14')!;
     const hi = stored.get('2026-06-16')!;
     expect(Number(filled.tmax)).toBeCloseTo(Math.round(((Number(lo.tmax) + Number(hi.tmax)) / 2) * 10) / 10, 5);
