@@ -86,6 +86,7 @@ export function createApp({ config, sequelize, logger = createLogger(config.logL
   const weatherService = weather ?? createWeatherService(config, sequelize, logger);
   const eventWorker = worker ?? createWorker({ sequelize, logger });
   weatherService.onEventsCommitted(() => eventWorker.kick());
+  app.locals.sequelize = sequelize;
   app.locals.weather = weatherService;
   const progress = new ProgressService(sequelize, weatherService);
   app.locals.progress = progress;

@@ -4,6 +4,8 @@ import type { DisplayUnit } from '#shared/schemas/gardens';
 import { AppError } from '../errors';
 import { Membership } from '../db/models';
 import { accessContext, readAccess } from './garden-access';
+import { idempotency } from './idempotency';
+import type { Sequelize } from 'sequelize';
 
 /**
  * Every API route is declared with the access it needs; the middleware follows from the
@@ -102,13 +104,17 @@ function accessMiddleware(access: Access): RequestHandler[] {
   return [gardenAccess(access)];
 }
 
+const GARDEN_ROLES: readonly Access[] = ['viewer', 'grower', 'owner'];
+
 export function mountRoutes(router: Router, base: string, specs: RouteSpec[], table: RouteTableEntry[]) {
   for (const spec of specs) {
     const full = spec.path === '/' ? base : base + spec.path;
-    if (full.includes(':gardenId') !== ['viewer', 'grower', 'owner'].includes(spec.access)) {
+    if (full.includes(':gardenId') !== GARDEN_ROLES.includes(spec.access)) {
       throw new Error(`Route ${spec.method.toUpperCase()} ${full}: garden routes need a garden role and only they`);
     }
-    router[spec.method](full, ...accessMiddleware(spec.access), ...(spec.before ?? []), spec.handler);
+    // Creates in a garden take an Idempotency-Key: a double tap or a retry makes one record.
+    const once = spec.method === 'post' && GARDEN_ROLES.includes(spec.access) ? [idempotency((req) => req.app.locals.sequelize as Sequelize)] : [];
+    router[spec.method](full, ...accessMiddleware(spec.access), ...(spec.before ?? []), ...once, spec.handler);
     table.push({ method: spec.method, path: full, access: spec.access });
   }
 }

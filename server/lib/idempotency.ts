@@ -1,0 +1,115 @@
+/**
+ * Idempotency-Key on creates (IETF draft-ietf-httpapi-idempotency-key-header): a double tap or a
+ * retry after no answer creates one record. The first request with a key stores it (hashed with
+ * the user, method and path) as pending; its successful answer is stored before it is sent, for
+ * 24 hours. The same key again gets that answer replayed (Idempotent-Replayed: true); while the
+ * first is still running, 409 and Retry-After; with a different body, 422. A failed first attempt
+ * leaves nothing behind, so the retry runs afresh.
+ */
+import { createHash } from 'node:crypto';
+import type { RequestHandler, Response } from 'express';
+import { QueryTypes, UniqueConstraintError } from 'sequelize';
+import type { Sequelize } from 'sequelize';
+import { AppError } from '../errors';
+
+export const IDEMPOTENCY_TTL_MS = 24 * 60 * 60_000;
+const KEY = /^[\x21-\x7e]{8,200}$/;
+
+const sha256 = (x: string | Buffer) => createHash('sha256').update(x).digest('hex');
+
+/** What the request asks for: its JSON body, or a multipart body's fields and file contents. */
+function fingerprint(req: Parameters<RequestHandler>[0]): string {
+  const file = (req as { file?: { buffer?: Buffer } }).file;
+  return sha256(JSON.stringify({ body: req.body ?? null, file: file?.buffer ? sha256(file.buffer) : null }));
+}
+
+interface Row {
+  fingerprint: string;
+  state: 'pending' | 'done';
+  status: number | null;
+  body: string | null;
+  expired: number;
+}
+
+let sweeps = 0;
+
+export function idempotency(db: (req: Parameters<RequestHandler>[0]) => Sequelize): RequestHandler {
+  return async (req, res, next) => {
+    const key = req.get('Idempotency-Key');
+    if (key === undefined) return next();
+    try {
+      if (!KEY.test(key)) {
+        throw new AppError(400, 'validation_failed', 'Please check the fields: Idempotency-Key.', {
+          'Idempotency-Key': 'The Idempotency-Key header must be 8 to 200 visible characters.',
+        });
+      }
+      const sequelize = db(req);
+      const userId = (req.user as { id?: number } | undefined)?.id ?? 0;
+      const scope = sha256(`${userId}|${req.method}|${req.baseUrl}${req.path}|${key}`);
+      const print = fingerprint(req);
+      const expiresAt = new Date(Date.now() + IDEMPOTENCY_TTL_MS);
+      if (++sweeps % 200 === 0) await sequelize.query('DELETE FROM idempotency_keys WHERE expires_at < UTC_TIMESTAMP(3) LIMIT 1000');
+      for (let attempt = 0; ; attempt++) {
+        try {
+          await sequelize.query('INSERT INTO idempotency_keys (scope_hash, fingerprint, state, expires_at) VALUES (?, ?, ?, ?)', {
+            replacements: [scope, print, 'pending', expiresAt],
+          });
+          break;
+        } catch (err) {
+          if (!(err instanceof UniqueConstraintError) || attempt > 0) throw err;
+          const [row] = await sequelize.query<Row>(
+            'SELECT fingerprint, state, status, body, expires_at < UTC_TIMESTAMP(3) AS expired FROM idempotency_keys WHERE scope_hash = ?',
+            { replacements: [scope], type: QueryTypes.SELECT },
+          );
+          if (!row) continue; // the first attempt failed and let go of the key: run afresh
+          if (row.expired) {
+            await sequelize.query('DELETE FROM idempotency_keys WHERE scope_hash = ? AND expires_at < UTC_TIMESTAMP(3)', { replacements: [scope] });
+            continue;
+          }
+          if (row.fingerprint !== print) {
+            throw new AppError(422, 'idempotency_key_reused', 'This Idempotency-Key was already used for a different request.', {
+              'Idempotency-Key': 'Use a new key for a new entry.',
+            });
+          }
+          if (row.state === 'pending') {
+            throw new AppError(409, 'request_in_progress', 'The same entry is still being saved. Wait a moment; it will not be saved twice.', undefined, { 'Retry-After': '1' });
+          }
+          res.set('Idempotent-Replayed', 'true');
+          res.status(row.status ?? 200).json(row.body === null ? null : JSON.parse(row.body));
+          return;
+        }
+      }
+      remember(res, sequelize, scope);
+      next();
+    } catch (err) {
+      next(err);
+    }
+  };
+}
+
+/** Keeps a successful answer before sending it; lets go of the key when the request fails. */
+function remember(res: Response, sequelize: Sequelize, scope: string) {
+  const send = res.json.bind(res);
+  let settled = false;
+  res.json = (body: unknown) => {
+    settled = true;
+    if (res.statusCode >= 200 && res.statusCode < 300) {
+      sequelize
+        .query('UPDATE idempotency_keys SET state = ?, status = ?, body = ? WHERE scope_hash = ?', { replacements: ['done', res.statusCode, JSON.stringify(body ?? null), scope] })
+        .then(
+          () => send(body),
+          // The record exists; only its replay is lost. Let the key go so a retry is not stuck on 409.
+          () => sequelize.query('DELETE FROM idempotency_keys WHERE scope_hash = ?', { replacements: [scope] }).finally(() => send(body)),
+        );
+    } else {
+      void sequelize.query('DELETE FROM idempotency_keys WHERE scope_hash = ?', { replacements: [scope] }).finally(() => send(body));
+    }
+    return res;
+  };
+  res.on('finish', () => {
+    if (!settled) void sequelize.query('DELETE FROM idempotency_keys WHERE scope_hash = ?', { replacements: [scope] }).catch(() => undefined);
+  });
+  res.on('close', () => {
+    if (!settled && !res.writableFinished) void sequelize.query('DELETE FROM idempotency_keys WHERE scope_hash = ?', { replacements: [scope] }).catch(() => undefined);
+  });
+}
