@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { nameSchema } from './records';
 
 export const emailSchema = z
   .string({ error: 'E-mail is required.' })
@@ -25,12 +26,8 @@ export const registerSchema = z
   .object({
     email: emailSchema,
     password: passwordSchema,
-    name: z.string({ error: 'Your name is required.' }).trim().min(1, 'Your name is required.').max(120),
-    gardenName: z
-      .string({ error: 'Garden name is required.' })
-      .trim()
-      .min(1, 'Garden name is required.')
-      .max(120, 'Garden name must be at most 120 characters.'),
+    name: nameSchema('Your name', 120),
+    gardenName: nameSchema('Garden name', 120),
   })
   .strict();
 export type RegisterInput = z.infer<typeof registerSchema>;

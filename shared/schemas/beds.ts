@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { notesSchema, nullableNumber, pageQueryShape } from './records';
+import { nameSchema, notesSchema, nullableNumber, pageQueryShape } from './records';
 import type { Page } from './records';
 
 export const BED_KINDS = ['bed', 'raised-bed', 'plot', 'row', 'container'] as const;
@@ -14,7 +14,7 @@ export const BED_KIND_WORDS: Record<BedKind, string> = {
 };
 
 export const bedCreateSchema = z.strictObject({
-  name: z.string({ error: 'Name is required.' }).trim().min(1, 'Name is required.').max(80, 'Name must be at most 80 characters.'),
+  name: nameSchema('Name', 80),
   kind: z.enum(BED_KINDS, { error: 'Kind must be bed, raised bed, plot, row or container.' }),
   lengthM: nullableNumber('Length', 0.1, 1000, ' m').optional(),
   widthM: nullableNumber('Width', 0.1, 1000, ' m').optional(),

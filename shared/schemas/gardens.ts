@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { nameSchema } from './records';
 
 export const ROLES = ['owner', 'grower', 'viewer'] as const;
 export type Role = (typeof ROLES)[number];
@@ -23,7 +24,7 @@ export const timeZoneSchema = z
 
 export const gardenUpdateSchema = z
   .object({
-    name: z.string().trim().min(1, 'Garden name is required.').max(120, 'Garden name must be at most 120 characters.'),
+    name: nameSchema('Garden name', 120),
     latitude: z
       .number({ error: 'Latitude must be a number.' })
       .min(-90, 'Latitude must be between -90 and 90.')

@@ -17,6 +17,28 @@ export const idParamSchema = z
 export const isoDateSchema = (what: string) =>
   z.iso.date({ error: `${what} must be a date (YYYY-MM-DD).` }).refine((d) => d >= '1900-01-01' && d <= '2199-12-31', `${what} is out of range.`);
 
+/**
+ * Characters a name must not hold: control characters (NUL, line breaks, …), bidirectional
+ * overrides and isolates that reorder what is shown (U+202A–U+202E, U+2066–U+2069, Trojan Source,
+ * CVE-2021-42574), and unpaired surrogates, which are not text at all and cannot be stored.
+ */
+const HIDDEN = /[\p{Cc}\u202A-\u202E\u2066-\u2069]/u;
+const LONE_SURROGATE = /[\uD800-\uDBFF](?![\uDC00-\uDFFF])|(?<![\uD800-\uDBFF])[\uDC00-\uDFFF]/;
+
+/** A name a person reads and others must tell apart: NFC, trimmed, no hidden characters, 1–max long. */
+export const nameSchema = (what: string, max: number) =>
+  z
+    .string({ error: `${what} is required.` })
+    .refine((s) => !LONE_SURROGATE.test(s), `${what} contains a broken character; type it again.`)
+    .transform((s) => s.normalize('NFC').trim())
+    .pipe(
+      z
+        .string()
+        .min(1, `${what} is required.`)
+        .max(max, `${what} must be at most ${max} characters.`)
+        .refine((s) => !HIDDEN.test(s), `${what} cannot contain control characters or hidden direction marks.`),
+    );
+
 export const notesSchema = z.string({ error: 'Notes must be text.' }).max(2000, 'Notes must be at most 2000 characters.');
 
 export const optionalText = (what: string, max: number) =>

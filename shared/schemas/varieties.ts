@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { CROP_KEYS } from '#shared/crops/library';
-import { notesSchema, nullableInt, nullableNumber, pageQueryShape } from './records';
+import { nameSchema, notesSchema, nullableInt, nullableNumber, pageQueryShape } from './records';
 import type { Page } from './records';
 import type { TraitGuidance } from '#shared/crops/guidance';
 import type { DegreeDayBasis } from '#shared/crops/basis';
@@ -33,7 +33,7 @@ const varietyShape = {
   cropKey: z
     .string({ error: 'Crop is required.' })
     .refine((k) => CROP_KEYS.includes(k), 'Choose a crop from the library.'),
-  name: z.string({ error: 'Name is required.' }).trim().min(1, 'Name is required.').max(100, 'Name must be at most 100 characters.'),
+  name: nameSchema('Name', 100),
   dtmDays: nullableInt('Days to maturity', 1, 400, ' days'),
   dtmFrom: z.enum(DTM_FROM, { error: 'Say what the days to maturity count from: sowing, emergence or transplant.' }),
   emergenceDaysMin: nullableInt('Days to emergence (fewest)', 1, 60, ' days'),
@@ -129,7 +129,7 @@ export interface VarietyDto {
   gddTargetBasis: DegreeDayBasis | null;
   notes: string;
   guidance: TraitGuidance[];
-  /** Only on the single-variety answer: the derivation reads the garden's weather history. */
+  /** On the list and the single-variety answers; the list works out a page's targets in one pass. */
   gddTarget?: GddTargetDto;
 }
 
