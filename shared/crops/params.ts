@@ -14,7 +14,7 @@ export const CONFIDENCE_WORDS: Record<Confidence, string> = {
   H: 'High confidence: primary source or verified formula',
   M: 'Medium confidence: secondary source',
   L: 'Low confidence: weak source',
-  'from memory': 'Low confidence: from memory, no source read',
+  'from memory': 'Low confidence: a commonly given figure, not yet checked against a published table',
 };
 
 export const SEASONS = ['cool', 'warm'] as const;

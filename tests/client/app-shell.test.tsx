@@ -1,7 +1,7 @@
 // @vitest-environment jsdom
 import { describe, expect, it } from 'vitest';
-import { screen, within } from '@testing-library/react';
-import { http, HttpResponse } from 'msw';
+import { fireEvent, screen, waitFor, within } from '@testing-library/react';
+import { delay, http, HttpResponse } from 'msw';
 import { seen, server, setupClientTests } from './helpers/msw-server';
 import { aGarden, grower } from './helpers/data';
 import { memberOf, quietToday, renderApp, signedInAs } from './helpers/render-app';
@@ -142,5 +142,103 @@ describe('app shell', () => {
 
     expect(await screen.findByRole('heading', { name: 'Sign in' })).toBeTruthy();
     expect(router.state.location.pathname).toBe('/sign-in');
+  });
+
+  it('when a garden opens, then its navigation lists Today, Plantings and Alerts first and the switcher carries the full name', async () => {
+    server.use(signedInAs(grower), ...memberOf([north, south]), quietToday);
+    renderApp('/g/1');
+
+    await screen.findByRole('heading', { name: 'Today', level: 1 });
+    const nav = screen.getByRole('navigation', { name: 'Garden' });
+    const pages = within(nav).getAllByRole('link').map((link) => link.textContent);
+    expect(pages.slice(0, 3)).toEqual(['Today', 'Plantings', 'Alerts']);
+    expect(pages).toEqual(expect.arrayContaining(['Varieties', 'Seed lots', 'Beds', 'Crops', 'Weather', 'Garden settings']));
+    const switcher = screen.getByRole('combobox', { name: 'Garden' });
+    await waitFor(() => expect(switcher.getAttribute('title')).toBe('Hollowbrook Teaching Garden (Owner)'));
+    expect(screen.getByRole('link', { name: 'Skip to main content' }).getAttribute('href')).toBe('#main');
+  });
+
+  it('when the grower opens More, then it offers the other pages and the account, and Escape closes it back onto the button', async () => {
+    server.use(signedInAs(grower), ...memberOf([north]), quietToday);
+    const { user } = renderApp('/g/1');
+
+    const more = await within(await screen.findByRole('navigation', { name: 'Garden' })).findByRole('button', { name: 'More' });
+    expect(more.getAttribute('aria-expanded')).toBe('false');
+    expect(document.getElementById(more.getAttribute('aria-controls')!)).toBeNull();
+    await user.click(more);
+
+    expect(more.getAttribute('aria-expanded')).toBe('true');
+    const panel = within(document.getElementById(more.getAttribute('aria-controls')!)!);
+    expect(panel.getAllByRole('link').map((link) => link.textContent)).toEqual([
+      'Varieties',
+      'Seed lots',
+      'Beds',
+      'Crops',
+      'Weather',
+      'Garden settings',
+      'Test mailbox',
+    ]);
+    expect(panel.getByRole('button', { name: 'Sign out' })).toBeTruthy();
+    expect(panel.getByText('Mara Quill')).toBeTruthy();
+
+    await user.keyboard('{Escape}');
+    expect(more.getAttribute('aria-expanded')).toBe('false');
+    expect(document.activeElement).toBe(more);
+  });
+
+  it('when a page is chosen in More, then it opens, is marked current, and the list closes', async () => {
+    server.use(signedInAs(grower), ...memberOf([north]), quietToday);
+    const { user, router } = renderApp('/g/1');
+
+    const more = await within(await screen.findByRole('navigation', { name: 'Garden' })).findByRole('button', { name: 'More' });
+    await user.click(more);
+    const panel = document.getElementById(more.getAttribute('aria-controls')!)!;
+    await user.click(within(panel).getByRole('link', { name: 'Garden settings' }));
+
+    expect(await screen.findByRole('heading', { name: 'Garden settings', level: 1 })).toBeTruthy();
+    expect(router.state.location.pathname).toBe('/g/1/settings');
+    expect(more.getAttribute('aria-expanded')).toBe('false');
+    expect(screen.getByRole('link', { name: 'Garden settings' }).getAttribute('aria-current')).toBe('page');
+  });
+
+  it('when the grower taps outside the open More list, then it closes', async () => {
+    server.use(signedInAs(grower), ...memberOf([north]), quietToday);
+    const { user } = renderApp('/g/1');
+
+    const more = await within(await screen.findByRole('navigation', { name: 'Garden' })).findByRole('button', { name: 'More' });
+    await user.click(more);
+    fireEvent.pointerDown(screen.getByRole('heading', { name: 'Today', level: 1 }));
+
+    expect(more.getAttribute('aria-expanded')).toBe('false');
+  });
+
+  it('while the session is being checked, then the wait is shown in the page frame, not alone at the edge', async () => {
+    server.use(
+      http.get('/api/auth/me', async () => {
+        await delay('infinite');
+        return HttpResponse.json({ user: grower });
+      }),
+    );
+    renderApp('/g/1');
+
+    const waiting = await screen.findByRole('status');
+    expect(waiting.textContent).toBe('Checking your session…');
+    expect(waiting.closest('main')).toBeTruthy();
+    expect(screen.getByRole('banner').textContent).toContain('Heatclock');
+  });
+
+  it('while the sign-in page checks the session, then the wait is shown in the same page frame', async () => {
+    server.use(
+      http.get('/api/auth/me', async () => {
+        await delay('infinite');
+        return HttpResponse.json({ user: null });
+      }),
+    );
+    renderApp('/sign-in');
+
+    const waiting = await screen.findByRole('status');
+    expect(waiting.textContent).toBe('Checking your session…');
+    expect(waiting.closest('main')).toBeTruthy();
+    expect(screen.getByRole('banner').textContent).toContain('Heatclock');
   });
 });

@@ -14,11 +14,12 @@ export function HeatclockMark({ className = 'size-8' }: { className?: string }) 
   );
 }
 
-export function Wordmark() {
+/** `compact` is for the phone's top bar: the mark alone below 768 px (the name stays for screen readers). */
+export function Wordmark({ compact = false }: { compact?: boolean }) {
   return (
-    <span className="inline-flex items-center gap-2 text-xl font-bold tracking-tight text-loam">
-      <HeatclockMark />
-      <span>Heatclock</span>
+    <span className="inline-flex shrink-0 items-center gap-2 text-xl font-bold tracking-tight text-loam">
+      <HeatclockMark className={compact ? 'size-7 md:size-8' : 'size-8'} />
+      <span className={compact ? 'sr-only md:not-sr-only' : undefined}>Heatclock</span>
     </span>
   );
 }

@@ -1,6 +1,6 @@
 import { Link, Navigate, useNavigate, useSearchParams } from 'react-router-dom';
 import { safeNextPath } from '@/lib/safe-redirect';
-import { Loading } from '@/components/ui/loading';
+import { PageLoading } from '@/components/ui/loading';
 import { useMe } from '@/features/auth/api/get-me';
 import { AuthFrame } from '@/features/auth/components/auth-frame';
 import { RegisterForm } from '@/features/auth/components/register-form';
@@ -11,7 +11,7 @@ export function RegisterPage() {
   const [params] = useSearchParams();
   const nextParam = params.get('next');
 
-  if (me.isPending) return <Loading label="Checking your session…" />;
+  if (me.isPending) return <PageLoading label="Checking your session…" />;
   if (me.data) return <Navigate to={safeNextPath(nextParam)} replace />;
 
   return (

@@ -1,6 +1,6 @@
 import { Link, Navigate, useNavigate, useSearchParams } from 'react-router-dom';
 import { safeNextPath } from '@/lib/safe-redirect';
-import { Loading } from '@/components/ui/loading';
+import { PageLoading } from '@/components/ui/loading';
 import { useMe } from '@/features/auth/api/get-me';
 import { AuthFrame } from '@/features/auth/components/auth-frame';
 import { SignInForm } from '@/features/auth/components/sign-in-form';
@@ -12,7 +12,7 @@ export function SignInPage() {
   const nextParam = params.get('next');
   const next = safeNextPath(nextParam);
 
-  if (me.isPending) return <Loading label="Checking your session…" />;
+  if (me.isPending) return <PageLoading label="Checking your session…" />;
   if (me.data) return <Navigate to={next} replace />;
 
   return (

@@ -1,23 +1,19 @@
 import { useEffect } from 'react';
-import { NavLink, Outlet, useOutletContext, useParams } from 'react-router-dom';
+import { Outlet, useOutletContext, useParams } from 'react-router-dom';
 import type { GardenDto } from '#shared/schemas/gardens';
 import { isApiError } from '@/lib/api-client';
 import { parseId } from '@/lib/ids';
 import { rememberGarden } from '@/lib/last-garden';
-import { Button } from '@/components/ui/button';
 import { Loading } from '@/components/ui/loading';
+import { LoadProblem } from '@/components/ui/load-problem';
 import { NotFoundMessage } from '@/components/ui/not-found-message';
-import { Notice } from '@/components/ui/notice';
 import { Wordmark } from '@/components/ui/wordmark';
 import { useMe } from '@/features/auth/api/get-me';
 import { SignOutButton } from '@/features/auth/components/sign-out-button';
 import { MailboxLink } from '@/features/notifications/components/mailbox-link';
 import { useGarden } from '@/features/gardens/api/get-garden';
 import { GardenSwitcher } from '@/features/gardens/components/garden-switcher';
-import { AlertsNavLink } from '@/features/alerts/components/alerts-nav-link';
-
-const NAV_LINK =
-  'inline-flex min-h-11 items-center border-b-4 border-transparent px-1 font-semibold hover:border-line aria-[current=page]:border-leaf';
+import { GardenNav } from '@/app/routes/gardens/garden-nav';
 
 /** Pages below the layout read the garden from here instead of fetching it again. */
 export function useCurrentGarden(): GardenDto {
@@ -35,41 +31,38 @@ function GardenContent({ gardenId }: { gardenId: number }) {
   if (garden.isPending) return <Loading label="Loading the garden…" />;
   if (garden.isError) {
     if (isApiError(garden.error, 404)) return <NotFoundMessage what="garden" />;
-    return (
-      <div className="flex flex-col items-start gap-3">
-        <Notice tone="error" title="The garden could not be loaded" live="alert">
-          {garden.error.message}
-        </Notice>
-        <Button variant="quiet" onClick={() => garden.refetch()}>
-          Try again
-        </Button>
-      </div>
-    );
+    return <LoadProblem error={garden.error} what="the garden" onRetry={() => garden.refetch()} retrying={garden.isFetching} />;
   }
   return <Outlet context={garden.data} />;
 }
 
+/**
+ * Below 768 px: a one-row top bar pinned to the top (mark, garden) and the pages in a tab bar
+ * pinned to the bottom, the account inside its "More". From 768 px: the header with every page.
+ */
 export function GardenLayout() {
   const params = useParams();
   const gardenId = parseId(params.gardenId);
   const me = useMe();
+  const hasNav = gardenId !== null;
 
   return (
     <div className="min-h-dvh">
       <a
         href="#main"
-        className="sr-only focus:not-sr-only focus:absolute focus:top-2 focus:left-2 focus:z-10 focus:rounded-md focus:bg-paper-raised focus:px-4 focus:py-2"
+        className="sr-only focus:not-sr-only focus:fixed focus:top-2 focus:left-2 focus:z-40 focus:rounded-md focus:bg-paper-raised focus:px-4 focus:py-2"
       >
         Skip to main content
       </a>
-      <header className="border-b border-line bg-paper-sunk">
-        <div className="mx-auto flex max-w-5xl flex-wrap items-center gap-x-6 gap-y-3 px-4 py-3">
-          <Wordmark />
-          <div className="order-3 w-full sm:order-none sm:w-auto">
+      <header className="sticky top-0 z-30 border-b border-line bg-paper-sunk md:static">
+        <div className="mx-auto flex max-w-5xl items-center gap-3 px-4 py-2 md:flex-wrap md:gap-x-5 md:py-3 lg:gap-x-6">
+          <Wordmark compact />
+          <div className="min-w-0 flex-1 md:flex-none">
             <GardenSwitcher currentId={gardenId} />
           </div>
-          <div className="ml-auto flex min-w-0 items-center gap-3">
-            <span className="truncate text-sm" title={me.data?.email}>
+          {/* On a phone the account sits in the tab bar's "More"; without a garden there is no tab bar. */}
+          <div className={`ml-auto min-w-0 items-center gap-3 ${hasNav ? 'hidden md:flex' : 'flex'}`}>
+            <span className="hidden truncate text-sm lg:inline" title={me.data?.email}>
               <span className="sr-only">Signed in as </span>
               {me.data?.name}
             </span>
@@ -77,58 +70,15 @@ export function GardenLayout() {
             <SignOutButton />
           </div>
         </div>
-        {gardenId !== null && (
-          <nav aria-label="Garden" className="mx-auto max-w-5xl px-4">
-            <ul className="flex flex-wrap gap-x-6">
-              <li>
-                <NavLink end to={`/g/${gardenId}`} className={NAV_LINK}>
-                  Today
-                </NavLink>
-              </li>
-              <li>
-                <AlertsNavLink gardenId={gardenId} className={NAV_LINK} />
-              </li>
-              <li>
-                <NavLink to={`/g/${gardenId}/plantings`} className={NAV_LINK}>
-                  Plantings
-                </NavLink>
-              </li>
-              <li>
-                <NavLink to={`/g/${gardenId}/varieties`} className={NAV_LINK}>
-                  Varieties
-                </NavLink>
-              </li>
-              <li>
-                <NavLink to={`/g/${gardenId}/seed-lots`} className={NAV_LINK}>
-                  Seed lots
-                </NavLink>
-              </li>
-              <li>
-                <NavLink to={`/g/${gardenId}/beds`} className={NAV_LINK}>
-                  Beds
-                </NavLink>
-              </li>
-              <li>
-                <NavLink to={`/g/${gardenId}/crops`} className={NAV_LINK}>
-                  Crops
-                </NavLink>
-              </li>
-              <li>
-                <NavLink to={`/g/${gardenId}/weather`} className={NAV_LINK}>
-                  Weather
-                </NavLink>
-              </li>
-              <li>
-                <NavLink to={`/g/${gardenId}/settings`} className={NAV_LINK}>
-                  Garden settings
-                </NavLink>
-              </li>
-            </ul>
-          </nav>
-        )}
+        {hasNav && <GardenNav gardenId={gardenId} userName={me.data?.name} />}
       </header>
-      <main id="main" tabIndex={-1} className="mx-auto max-w-5xl px-4 py-6 focus:outline-none">
-        {gardenId === null ? <NotFoundMessage what="garden" /> : <GardenContent gardenId={gardenId} />}
+      {/* Room at the bottom on a phone so the tab bar never covers the end of a page. */}
+      <main
+        id="main"
+        tabIndex={-1}
+        className={`mx-auto max-w-5xl px-4 pt-6 focus:outline-none md:pb-6 ${hasNav ? 'pb-[calc(6rem+env(safe-area-inset-bottom))]' : 'pb-6'}`}
+      >
+        {hasNav ? <GardenContent gardenId={gardenId} /> : <NotFoundMessage what="garden" />}
       </main>
     </div>
   );

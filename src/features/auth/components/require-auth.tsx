@@ -3,8 +3,8 @@ import { useQueryClient } from '@tanstack/react-query';
 import { Navigate, Outlet, useLocation } from 'react-router-dom';
 import { isApiError } from '@/lib/api-client';
 import { signInPathFor } from '@/lib/safe-redirect';
-import { Loading } from '@/components/ui/loading';
-import { Notice } from '@/components/ui/notice';
+import { PageLoading } from '@/components/ui/loading';
+import { LoadProblem } from '@/components/ui/load-problem';
 import { authKeys } from '@/features/auth/api/auth-keys';
 import { useMe } from '@/features/auth/api/get-me';
 
@@ -31,13 +31,11 @@ export function RequireAuth() {
   const location = useLocation();
   useSignedOutOnExpiredSession();
 
-  if (me.isPending) return <Loading label="Checking your session…" />;
+  if (me.isPending) return <PageLoading label="Checking your session…" />;
   if (me.isError) {
     return (
       <div className="mx-auto max-w-xl p-6">
-        <Notice tone="error" title="Heatclock is not answering" live="alert">
-          {me.error.message}
-        </Notice>
+        <LoadProblem error={me.error} what="your session" onRetry={() => me.refetch()} retrying={me.isFetching} />
       </div>
     );
   }

@@ -4,7 +4,9 @@ import { ROLE_WORDS } from '@/lib/format';
 import { useGardens } from '@/features/gardens/api/get-gardens';
 
 const SELECT =
-  'min-h-10 w-full min-w-0 rounded-md border border-line bg-paper-raised px-2 py-1.5 text-loam sm:w-auto sm:max-w-xs';
+  'min-h-11 w-full min-w-0 truncate rounded-md border border-line bg-paper-raised px-2 py-1.5 text-loam md:w-auto md:max-w-56 lg:max-w-xs';
+
+const gardenWords = (garden: { name: string; role: keyof typeof ROLE_WORDS }) => `${garden.name} (${ROLE_WORDS[garden.role]})`;
 
 /** Switching garden keeps the grower on the same kind of page (overview stays overview). */
 export function GardenSwitcher({ currentId }: { currentId: number | null }) {
@@ -14,11 +16,13 @@ export function GardenSwitcher({ currentId }: { currentId: number | null }) {
   const location = useLocation();
   const samePage = location.pathname.replace(/^\/g\/[^/]+/, '');
 
-  const isMember = gardens.data?.some((garden) => garden.id === currentId) ?? false;
+  const current = gardens.data?.find((garden) => garden.id === currentId);
+  const isMember = current !== undefined;
 
   return (
     <div className="flex min-w-0 items-center gap-2">
-      <label htmlFor={id} className="shrink-0 text-sm font-semibold">
+      {/* On a phone the chosen garden's name needs the room; the label is still read out. */}
+      <label htmlFor={id} className="sr-only shrink-0 text-sm font-semibold md:not-sr-only">
         Garden
       </label>
       {/* One select element throughout, so focus and references survive the list arriving. */}
@@ -26,6 +30,8 @@ export function GardenSwitcher({ currentId }: { currentId: number | null }) {
         id={id}
         className={SELECT}
         disabled={!gardens.isSuccess}
+        // A long name is cut short on a phone; the whole of it shows on hover and in the picker.
+        title={current ? gardenWords(current) : undefined}
         value={isMember ? String(currentId) : ''}
         onChange={(event) => navigate(`/g/${event.target.value}${samePage}`)}
       >
@@ -38,7 +44,7 @@ export function GardenSwitcher({ currentId }: { currentId: number | null }) {
         )}
         {gardens.data?.map((garden) => (
           <option key={garden.id} value={garden.id}>
-            {`${garden.name} (${ROLE_WORDS[garden.role]})`}
+            {gardenWords(garden)}
           </option>
         ))}
       </select>
