@@ -1,8 +1,8 @@
 import { useSearchParams } from 'react-router-dom';
 import { ALERT_STATUSES, ALERT_TYPES } from '#shared/schemas/alerts';
 import type { AlertDto, AlertListQuery, AlertStatus } from '#shared/schemas/alerts';
-import { Button } from '@/components/ui/button';
 import { Loading } from '@/components/ui/loading';
+import { LoadProblem } from '@/components/ui/load-problem';
 import { Notice } from '@/components/ui/notice';
 import { useCurrentGarden } from '@/app/routes/gardens/garden-layout';
 import { useAlerts } from '@/features/alerts/api/get-alerts';
@@ -74,14 +74,7 @@ export function AlertsPage() {
       <AlertFilters query={query} onChange={setQuery} />
       {alerts.isPending && <Loading label="Loading alerts…" />}
       {alerts.isError && (
-        <div className="flex flex-col items-start gap-3">
-          <Notice tone="error" title="Alerts could not be loaded — try again" live="alert">
-            {alerts.error.message}
-          </Notice>
-          <Button variant="quiet" onClick={() => alerts.refetch()} disabled={alerts.isFetching}>
-            Try again
-          </Button>
-        </div>
+        <LoadProblem error={alerts.error} what="alerts" onRetry={() => alerts.refetch()} retrying={alerts.isFetching} />
       )}
       {alerts.data && (alerts.data.items.length ? <AlertSections alerts={alerts.data.items} status={query.status} /> : <p>{noneWords(query)}</p>)}
     </div>

@@ -1,4 +1,5 @@
 import { Loading } from '@/components/ui/loading';
+import { LoadProblem } from '@/components/ui/load-problem';
 import { Notice } from '@/components/ui/notice';
 import { useCurrentGarden } from '@/app/routes/gardens/garden-layout';
 import { useCrops } from '@/features/crops/api/get-crops';
@@ -16,7 +17,7 @@ export function CropsPage() {
         Values that are commonly given rather than checked against a published table, or of low confidence, are starting points: your own records will tell you more.
       </p>
       {crops.isPending && <Loading label="Loading the crop library…" />}
-      {crops.isError && <Notice tone="error">{crops.error.message}</Notice>}
+      {crops.isError && <LoadProblem error={crops.error} what="the crop library" onRetry={() => crops.refetch()} retrying={crops.isFetching} />}
       {garden.role === 'owner' ? (
         <Notice tone="info" title="Your garden’s own values">
           As the owner you can set a value for this garden where your own records or local advice differ. The shared default stays

@@ -1,7 +1,6 @@
 import { Navigate } from 'react-router-dom';
-import { Button } from '@/components/ui/button';
 import { Loading } from '@/components/ui/loading';
-import { Notice } from '@/components/ui/notice';
+import { LoadProblem } from '@/components/ui/load-problem';
 import { Wordmark } from '@/components/ui/wordmark';
 import { lastGarden } from '@/lib/last-garden';
 import { useMe } from '@/features/auth/api/get-me';
@@ -26,14 +25,7 @@ export function FirstGardenPage() {
       <Wordmark />
       <main className="flex w-full flex-col items-start gap-4">
         {gardens.isError ? (
-          <>
-            <Notice tone="error" title="Your gardens could not be loaded" live="alert">
-              {gardens.error.message}
-            </Notice>
-            <Button variant="quiet" onClick={() => gardens.refetch()}>
-              Try again
-            </Button>
-          </>
+          <LoadProblem error={gardens.error} what="your gardens" onRetry={() => gardens.refetch()} retrying={gardens.isFetching} />
         ) : (
           <>
             <h1 className="text-2xl font-bold">No gardens yet</h1>

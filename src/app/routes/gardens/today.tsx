@@ -5,9 +5,8 @@ import type { AlertDto } from '#shared/schemas/alerts';
 import type { GardenDto } from '#shared/schemas/gardens';
 import { TODAY_LIMIT } from '#shared/schemas/progress';
 import type { TodayDto } from '#shared/schemas/progress';
-import { Button } from '@/components/ui/button';
+import { LoadProblem } from '@/components/ui/load-problem';
 import { Loading } from '@/components/ui/loading';
-import { Notice } from '@/components/ui/notice';
 import { formatWeekdayDayMonth } from '@/lib/format';
 import { useCurrentGarden } from '@/app/routes/gardens/garden-layout';
 import { useAlerts } from '@/features/alerts/api/get-alerts';
@@ -29,19 +28,6 @@ function Section({ id, title, children }: { id: string; title: string; children:
   );
 }
 
-function LoadFailed({ title, message, retrying, onRetry }: { title: string; message: string; retrying: boolean; onRetry: () => void }) {
-  return (
-    <div className="flex flex-col items-start gap-3">
-      <Notice tone="error" title={title} live="alert">
-        {message}
-      </Notice>
-      <Button variant="quiet" onClick={onRetry} disabled={retrying}>
-        Try again
-      </Button>
-    </div>
-  );
-}
-
 /**
  * The open alerts in full first; Today's actions are made from them, so only those not shown
  * above are listed after (all of them when the alerts cannot be loaded).
@@ -51,7 +37,7 @@ function Attention({ garden, today, open }: { garden: GardenDto; today: TodayDto
   return (
     <>
       {open.isError && (
-        <LoadFailed title="Alerts could not be loaded — try again" message={open.error.message} retrying={open.isFetching} onRetry={() => open.refetch()} />
+        <LoadProblem error={open.error} what="alerts" retrying={open.isFetching} onRetry={() => open.refetch()} />
       )}
       {alerts.length > 0 && <AlertCards alerts={alerts} gardenId={garden.id} timeZone={garden.timeZone} canAcknowledge={garden.role !== 'viewer'} />}
       <NeedsAttention gardenId={garden.id} today={today} shownAlertIds={alerts.map((a) => a.id)} />
@@ -69,7 +55,7 @@ function TodaySections({ garden }: { garden: GardenDto }) {
   // One wait for both, so the actions never show before the alerts that replace them.
   if (today.isPending || open.isPending) return <Loading label="Loading today’s figures…" />;
   if (today.isError) {
-    return <LoadFailed title="Today could not be loaded — try again" message={today.error.message} retrying={today.isFetching} onRetry={() => today.refetch()} />;
+    return <LoadProblem error={today.error} what="today" retrying={today.isFetching} onRetry={() => today.refetch()} />;
   }
   return (
     <>

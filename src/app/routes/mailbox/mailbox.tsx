@@ -2,6 +2,7 @@ import { Link } from 'react-router-dom';
 import { isApiError } from '@/lib/api-client';
 import { Button } from '@/components/ui/button';
 import { Loading } from '@/components/ui/loading';
+import { LoadProblem } from '@/components/ui/load-problem';
 import { Notice } from '@/components/ui/notice';
 import { Wordmark } from '@/components/ui/wordmark';
 import { useMailbox } from '@/features/notifications/api/get-mailbox';
@@ -26,9 +27,7 @@ export function MailboxPage() {
               This server sends real e-mail, so there is no local mailbox to show.
             </Notice>
           ) : (
-            <Notice tone="error" title="The messages could not be loaded" live="alert">
-              {mailbox.error.message}
-            </Notice>
+            <LoadProblem error={mailbox.error} what="the messages" onRetry={() => mailbox.refetch()} retrying={mailbox.isFetching} />
           ))}
         {mailbox.isSuccess && (
           <>

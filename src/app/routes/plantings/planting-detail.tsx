@@ -2,12 +2,13 @@ import { useState } from 'react';
 import { Link, useNavigate, useParams } from 'react-router-dom';
 import { ArrowLeft, Pencil } from 'lucide-react';
 import type { PlantingDto } from '#shared/schemas/plantings';
+import { unitSystemOf } from '#shared/units/measures';
 import { isApiError } from '@/lib/api-client';
 import { parseId } from '@/lib/ids';
 import { Button } from '@/components/ui/button';
 import { ConfirmDelete } from '@/components/ui/confirm-delete';
 import { Loading } from '@/components/ui/loading';
-import { Notice } from '@/components/ui/notice';
+import { LoadProblem } from '@/components/ui/load-problem';
 import { NotFoundMessage } from '@/components/ui/not-found-message';
 import { useCurrentGarden } from '@/app/routes/gardens/garden-layout';
 import { usePlantingChoices } from '@/app/routes/plantings/use-planting-choices';
@@ -19,7 +20,7 @@ import { PlantingForm } from '@/features/plantings/components/planting-form';
 import { PlantingLog } from '@/features/plantings/components/planting-log';
 import { PlantingPhotos } from '@/features/plantings/components/planting-photos';
 import { QuickLog } from '@/features/plantings/components/quick-log';
-import { todayIn } from '@/features/plantings/components/today';
+import { todayIn } from '@/lib/garden-day';
 import { PlantingProgress } from '@/features/progress/components/planting-progress';
 
 const count = (n: number, one: string, many: string) => `${n} ${n === 1 ? one : many}`;
@@ -31,7 +32,7 @@ function EditPlanting({ planting, today, onDone }: { planting: PlantingDto; toda
   const garden = useCurrentGarden();
   const loaded = usePlantingChoices(garden.id);
   if (loaded.status === 'pending') return <Loading label="Loading beds and varieties…" />;
-  if (loaded.status === 'error') return <Notice tone="error">Beds, varieties or seed lots could not be loaded.</Notice>;
+  if (loaded.status === 'error') return <LoadProblem error={loaded.error} what="the beds, varieties and seed lots" onRetry={loaded.retry} retrying={loaded.retrying} />;
   return (
     <section aria-labelledby="edit-planting" className="rounded-lg border border-line bg-paper-raised p-4">
       <h2 id="edit-planting" className="mb-3 text-lg font-bold">
@@ -75,7 +76,7 @@ function Detail({ plantingId }: { plantingId: number }) {
   if (planting.isPending) return <Loading label="Loading the planting…" />;
   if (planting.isError) {
     if (isApiError(planting.error, 404)) return <NotFoundMessage />;
-    return <Notice tone="error" live="alert">{planting.error.message}</Notice>;
+    return <LoadProblem error={planting.error} what="the planting" onRetry={() => planting.refetch()} retrying={planting.isFetching} />;
   }
   const p = planting.data;
   const today = todayIn(garden.timeZone);
@@ -103,7 +104,7 @@ function Detail({ plantingId }: { plantingId: number }) {
       </section>
       <div className="grid gap-5 lg:grid-cols-2">
         <div className="flex flex-col gap-5">
-          {canEdit && <QuickLog gardenId={garden.id} plantingId={p.id} today={today} />}
+          {canEdit && <QuickLog key={p.id} gardenId={garden.id} planting={p} today={today} units={garden.units} />}
           <section aria-labelledby="facts" className="flex flex-col gap-2">
             <h2 id="facts" className="text-lg font-bold">Facts</h2>
             <PlantingFacts planting={p} />
@@ -112,7 +113,7 @@ function Detail({ plantingId }: { plantingId: number }) {
         <div className="flex flex-col gap-5">
           <section aria-labelledby="log" className="flex flex-col gap-2">
             <h2 id="log" className="text-lg font-bold">Log ({count(p.logCount, 'entry', 'entries')})</h2>
-            <PlantingLog gardenId={garden.id} plantingId={p.id} canEdit={canEdit} />
+            <PlantingLog gardenId={garden.id} plantingId={p.id} canEdit={canEdit} system={unitSystemOf(garden.units)} />
           </section>
           <section aria-labelledby="photos" className="flex flex-col gap-2">
             <h2 id="photos" className="text-lg font-bold">Photos</h2>

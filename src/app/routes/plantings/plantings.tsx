@@ -1,22 +1,25 @@
 import { useState } from 'react';
-import { useNavigate } from 'react-router-dom';
+import { useNavigate, useSearchParams } from 'react-router-dom';
+import { useQuery } from '@tanstack/react-query';
 import { Download, FileUp, Plus, X } from 'lucide-react';
 import { CROP_LIBRARY } from '#shared/crops/library';
 import { PLANTING_STATUSES, STATUS_WORDS } from '#shared/schemas/plantings';
 import type { PlantingListQuery, PlantingStatus } from '#shared/schemas/plantings';
 import { Button } from '@/components/ui/button';
 import { Loading } from '@/components/ui/loading';
+import { LoadProblem } from '@/components/ui/load-problem';
 import { Notice } from '@/components/ui/notice';
 import { useCurrentGarden } from '@/app/routes/gardens/garden-layout';
 import { usePlantings } from '@/features/plantings/api/get-plantings';
-import { useBeds } from '@/features/beds/api/get-beds';
+import { bedsQueryOptions, useBeds } from '@/features/beds/api/get-beds';
+import { parseId } from '@/lib/ids';
 import { useVarieties } from '@/features/varieties/api/get-varieties';
 import { PlantingForm } from '@/features/plantings/components/planting-form';
 import { PlantingImportForm } from '@/features/plantings/components/planting-import-form';
 import { PlantingsTable } from '@/features/plantings/components/plantings-table';
 import type { SortState } from '@/features/plantings/components/plantings-table';
 import { CONTROL } from '@/features/plantings/components/field-styles';
-import { todayIn } from '@/features/plantings/components/today';
+import { todayIn } from '@/lib/garden-day';
 import { usePlantingChoices } from '@/app/routes/plantings/use-planting-choices';
 import { countOf } from '#shared/format/count-words';
 
@@ -26,7 +29,7 @@ function NewPlanting({ gardenId, today, onClose }: { gardenId: number; today: st
   const navigate = useNavigate();
   const loaded = usePlantingChoices(gardenId);
   if (loaded.status === 'pending') return <Loading label="Loading beds and varieties…" />;
-  if (loaded.status === 'error') return <Notice tone="error">Beds, varieties or seed lots could not be loaded.</Notice>;
+  if (loaded.status === 'error') return <LoadProblem error={loaded.error} what="the beds, varieties and seed lots" onRetry={loaded.retry} retrying={loaded.retrying} />;
   return (
     <section aria-labelledby="new-planting" className="rounded-lg border border-line bg-paper-raised p-4">
       <div className="mb-3 flex items-center justify-between">
@@ -61,8 +64,19 @@ function ImportPlantings({ gardenId, today, onClose }: { gardenId: number; today
   return <PlantingImportForm gardenId={gardenId} example={example} year={today.slice(0, 4)} onClose={onClose} />;
 }
 
+/** The name of the bed the list is narrowed to (`?bed=<id>`, as each bed's card links); the beds are asked for only then. */
+function useBedFilter(gardenId: number) {
+  const [params, setParams] = useSearchParams();
+  const bedId = parseId(params.get('bed') ?? undefined);
+  const beds = useQuery({ ...bedsQueryOptions(gardenId), enabled: bedId !== null });
+  const name = beds.data?.items.find((b) => b.id === bedId)?.name;
+  const clear = () => setParams((p) => { p.delete('bed'); return p; });
+  return { bedId, name, clear };
+}
+
 export function PlantingsPage() {
   const garden = useCurrentGarden();
+  const bed = useBedFilter(garden.id);
   const canEdit = garden.role !== 'viewer';
   const today = todayIn(garden.timeZone);
   const [adding, setAdding] = useState(false);
@@ -72,15 +86,16 @@ export function PlantingsPage() {
   const [q, setQ] = useState('');
   const [sort, setSort] = useState<SortState>({ sort: 'sown', order: 'desc' });
   const [page, setPage] = useState(1);
-  const query: PlantingListQuery = { status: status || undefined, crop: crop || undefined, q: q || undefined, ...sort, page, pageSize: PAGE_SIZE };
+  const query: PlantingListQuery = { bedId: bed.bedId ?? undefined, status: status || undefined, crop: crop || undefined, q: q || undefined, ...sort, page, pageSize: PAGE_SIZE };
   const plantings = usePlantings(garden.id, query);
   const pages = plantings.data ? Math.max(1, Math.ceil(plantings.data.total / PAGE_SIZE)) : 1;
+  const heading = bed.bedId === null ? 'Plantings' : `Plantings in ${bed.name ?? 'this bed'}`;
 
   return (
     <div className="flex flex-col gap-4">
-      <title>{`Plantings · ${garden.name} · Heatclock`}</title>
+      <title>{`${heading} · ${garden.name} · Heatclock`}</title>
       <div className="flex flex-wrap items-center justify-between gap-3">
-        <h1 className="text-2xl font-bold sm:text-3xl">Plantings</h1>
+        <h1 className="text-2xl font-bold sm:text-3xl">{heading}</h1>
         <div className="flex flex-wrap gap-2">
           <a href={`/api/gardens/${garden.id}/plantings/export.csv`} className="inline-flex min-h-11 items-center gap-2 rounded-md border border-line bg-paper-raised px-4 font-semibold" download>
             <Download className="size-5" aria-hidden="true" /> Export CSV
@@ -101,6 +116,11 @@ export function PlantingsPage() {
         <Notice tone="info" title="Read only">
           Viewers see every planting but cannot change them.
         </Notice>
+      )}
+      {bed.bedId !== null && (
+        <Button variant="quiet" className="self-start" onClick={() => { bed.clear(); setPage(1); }}>
+          <X className="size-5" aria-hidden="true" /> Show plantings in every bed
+        </Button>
       )}
       {importing && <ImportPlantings gardenId={garden.id} today={today} onClose={() => setImporting(false)} />}
       {adding && <NewPlanting gardenId={garden.id} today={today} onClose={() => setAdding(false)} />}
@@ -129,7 +149,7 @@ export function PlantingsPage() {
         </label>
       </form>
       {plantings.isPending && <Loading label="Loading plantings…" />}
-      {plantings.isError && <Notice tone="error" live="alert">{plantings.error.message}</Notice>}
+      {plantings.isError && <LoadProblem error={plantings.error} what="the plantings" onRetry={() => plantings.refetch()} retrying={plantings.isFetching} />}
       {plantings.data && (
         <>
           <p className="text-sm text-loam-soft" role="status">

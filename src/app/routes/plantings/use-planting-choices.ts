@@ -8,13 +8,25 @@ const lotLabel = (l: SeedLotDto) =>
   [l.lotNumber && `Lot ${l.lotNumber}`, l.packedForYear && `packed for ${l.packedForYear}`].filter(Boolean).join(', ') || 'Unlabelled lot';
 
 /** The garden's beds, varieties and seed lots as the planting form offers them; composed here because features do not import each other. */
-export type PlantingChoicesState = { status: 'pending' } | { status: 'error' } | { status: 'success'; choices: PlantingChoices };
+export type PlantingChoicesState =
+  | { status: 'pending' }
+  /** The first failure of the three; `retry` asks again for each that failed. */
+  | { status: 'error'; error: unknown; retry: () => void; retrying: boolean }
+  | { status: 'success'; choices: PlantingChoices };
 
 export function usePlantingChoices(gardenId: number): PlantingChoicesState {
   const beds = useBeds(gardenId);
   const varieties = useVarieties(gardenId);
   const lots = useSeedLots(gardenId);
-  if (beds.isError || varieties.isError || lots.isError) return { status: 'error' };
+  const failed = [beds, varieties, lots].filter((q) => q.isError);
+  if (failed.length) {
+    return {
+      status: 'error',
+      error: failed[0].error,
+      retry: () => failed.forEach((q) => void q.refetch()),
+      retrying: failed.some((q) => q.isFetching),
+    };
+  }
   if (!beds.data || !varieties.data || !lots.data) return { status: 'pending' };
   return {
     status: 'success',

@@ -4,10 +4,12 @@ import { CROP_LIBRARY } from '#shared/crops/library';
 import { Button } from '@/components/ui/button';
 import { Loading } from '@/components/ui/loading';
 import { Notice } from '@/components/ui/notice';
+import { LoadProblem } from '@/components/ui/load-problem';
 import { useCurrentGarden } from '@/app/routes/gardens/garden-layout';
 import { useVarieties } from '@/features/varieties/api/get-varieties';
 import { VarietyCard } from '@/features/varieties/components/variety-card';
 import { VarietyForm } from '@/features/varieties/components/variety-form';
+import { TraitLegend } from '@/features/varieties/components/trait-legend';
 
 export function VarietiesPage() {
   const garden = useCurrentGarden();
@@ -26,7 +28,7 @@ export function VarietiesPage() {
         )}
       </div>
       {garden.role === 'viewer' && <Notice tone="info" title="Read only">Viewers see the varieties but cannot change them.</Notice>}
-      {adding && <VarietyForm gardenId={garden.id} onSaved={() => setAdding(false)} onCancel={() => setAdding(false)} />}
+      {adding && <VarietyForm gardenId={garden.id} units={garden.units} onSaved={() => setAdding(false)} onCancel={() => setAdding(false)} />}
       <label className="flex max-w-xs flex-col gap-1">
         <span className="font-semibold">Crop</span>
         <select className="min-h-11 rounded-md border border-line bg-paper-raised px-3" value={crop} onChange={(e) => setCrop(e.target.value)}>
@@ -35,12 +37,15 @@ export function VarietiesPage() {
         </select>
       </label>
       {varieties.isPending && <Loading label="Loading varieties…" />}
-      {varieties.isError && <Notice tone="error">{varieties.error.message}</Notice>}
+      {varieties.isError && <LoadProblem error={varieties.error} what="the varieties" onRetry={() => varieties.refetch()} retrying={varieties.isFetching} />}
       {varieties.data && (
         varieties.data.items.length ? (
-          <div className="grid gap-3 md:grid-cols-2">
-            {varieties.data.items.map((v) => <VarietyCard key={v.id} gardenId={garden.id} variety={v} units={garden.units} canEdit={garden.role !== 'viewer'} />)}
-          </div>
+          <>
+            <TraitLegend varieties={varieties.data.items} />
+            <div className="grid items-start gap-3 md:grid-cols-2">
+              {varieties.data.items.map((v) => <VarietyCard key={v.id} gardenId={garden.id} variety={v} units={garden.units} canEdit={garden.role !== 'viewer'} />)}
+            </div>
+          </>
         ) : <p>No varieties yet.</p>
       )}
     </div>

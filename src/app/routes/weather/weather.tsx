@@ -1,7 +1,7 @@
 import { Link } from 'react-router-dom';
 import { Settings } from 'lucide-react';
-import { Button } from '@/components/ui/button';
 import { Loading } from '@/components/ui/loading';
+import { LoadProblem } from '@/components/ui/load-problem';
 import { Notice } from '@/components/ui/notice';
 import { useWeather } from '@/features/weather/api/get-weather';
 import { StationUploadForm } from '@/features/weather/components/station-upload-form';
@@ -9,7 +9,7 @@ import { WeatherChartPanel } from '@/features/weather/components/weather-chart-p
 import { WeatherRunsTable } from '@/features/weather/components/weather-runs-table';
 import { WeatherStatus } from '@/features/weather/components/weather-status';
 import { WeatherTable } from '@/features/weather/components/weather-table';
-import { formatDayRange } from '@/features/weather/utils/format-weather';
+import { formatFullRange } from '@/lib/format';
 import { useCurrentGarden } from '@/app/routes/gardens/garden-layout';
 
 export function WeatherPage() {
@@ -29,14 +29,7 @@ export function WeatherPage() {
 
       {weather.isPending && <Loading label="Loading the weather…" />}
       {weather.isError && (
-        <div className="flex flex-col items-start gap-3">
-          <Notice tone="error" title="The weather could not be loaded" live="alert">
-            {weather.error.message}
-          </Notice>
-          <Button variant="quiet" onClick={() => weather.refetch()}>
-            Try again
-          </Button>
-        </div>
+        <LoadProblem error={weather.error} what="the weather" onRetry={() => weather.refetch()} retrying={weather.isFetching} />
       )}
       {weather.isSuccess && (
         <>
@@ -72,7 +65,7 @@ export function WeatherPage() {
               <WeatherTable weather={weather.data} />
             </>
           ) : (
-            <p>No temperatures yet for {formatDayRange(weather.data.from, weather.data.to)}.</p>
+            <p>No temperatures yet for {formatFullRange(weather.data.from, weather.data.to)}.</p>
           )}
 
           {canEdit && <StationUploadForm key={garden.id} gardenId={garden.id} gardenUnit={garden.units} />}

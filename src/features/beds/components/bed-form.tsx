@@ -1,9 +1,15 @@
+import { useMemo } from 'react';
 import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import type { z } from 'zod';
 import { BED_KINDS, BED_KIND_WORDS, bedCreateSchema } from '#shared/schemas/beds';
 import type { BedCreateInput, BedDto } from '#shared/schemas/beds';
+import { nullableNumber } from '#shared/schemas/records';
+import { M_PER_FOOT, measureSymbol, toShown, toStored } from '#shared/units/measures';
+import type { UnitSystem } from '#shared/units/measures';
+import { ApiError } from '@/lib/api-client';
 import { applyServerFieldErrors } from '@/lib/form-errors';
+import { mutationProblem } from '@/lib/problems';
 import { changedValues } from '@/lib/changed-values';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
@@ -13,19 +19,62 @@ import { useUpdateBed } from '@/features/beds/api/update-bed';
 
 const numberOrNull = (v: unknown) => (typeof v === 'string' && v.trim() === '' ? null : Number(v));
 const CONTROL = 'min-h-11 w-full rounded-md border border-line bg-paper-raised px-3 py-2';
-const FIELDS = ['name', 'kind', 'lengthM', 'widthM', 'notes'] as const;
+const FIELDS = ['name', 'kind', 'length', 'width', 'notes'] as const;
 
-/** Adds a bed, or with `bed` edits that one and sends only the fields that changed. */
-export function BedForm({ gardenId, bed, onDone }: { gardenId: number; bed?: BedDto; onDone?: () => void }) {
+// The server's bounds on a side (shared/schemas/beds.ts), in metres.
+const SIDE_MIN_M = 0.1;
+const SIDE_MAX_M = 1000;
+
+/**
+ * The bed form's fields: length and width typed in the garden's unit (ft or m), checked against
+ * the server's bounds in that unit ("at least 0.4 ft"), so nobody typing feet reads metres.
+ */
+function bedFormSchema(system: UnitSystem) {
+  // Rounded inwards to a tenth of a foot, so every value the form accepts the server accepts too.
+  const inShown = (m: number, round: (x: number) => number) => (system === 'us' ? round((m / M_PER_FOOT) * 10) / 10 : m);
+  const side = (what: string) => nullableNumber(what, inShown(SIDE_MIN_M, Math.ceil), inShown(SIDE_MAX_M, Math.floor), ` ${measureSymbol('bed', system)}`).optional();
+  return bedCreateSchema.omit({ lengthM: true, widthM: true }).extend({ length: side('Length'), width: side('Width') });
+}
+type BedFormSchema = ReturnType<typeof bedFormSchema>;
+type BedFormValues = z.output<BedFormSchema>;
+
+const shownSide = (m: number | null | undefined, system: UnitSystem) => (m == null ? null : toShown('bed', m, system));
+const storedSide = (shown: number | null | undefined, system: UnitSystem) => (shown == null ? shown : toStored('bed', shown, system));
+
+/** The form's values as the API takes them: sides back in metres, under the API's names. */
+function toInput<T extends Partial<BedFormValues>>({ length, width, ...rest }: T, system: UnitSystem): Omit<T, 'length' | 'width'> & Pick<BedCreateInput, 'lengthM' | 'widthM'> {
+  return {
+    ...rest,
+    ...(length !== undefined && { lengthM: storedSide(length, system) }),
+    ...(width !== undefined && { widthM: storedSide(width, system) }),
+  };
+}
+
+const SERVER_FIELDS: Record<string, string> = { lengthM: 'length', widthM: 'width' };
+
+/** A server refusal with its field messages moved from the API's names to this form's. */
+function underFormFields(error: unknown): unknown {
+  if (!(error instanceof ApiError)) return error;
+  const fields = Object.fromEntries(Object.entries(error.fields).map(([name, message]) => [SERVER_FIELDS[name] ?? name, message]));
+  return new ApiError({ status: error.status, code: error.code, message: error.message, fields, requestId: error.requestId, details: error.details });
+}
+
+/**
+ * Adds a bed, or with `bed` edits that one and sends only the fields that changed. Sides are
+ * typed in the garden's unit (`system`) and stored in metres.
+ */
+export function BedForm({ gardenId, bed, system, onDone }: { gardenId: number; bed?: BedDto; system: UnitSystem; onDone?: () => void }) {
   const create = useCreateBed(gardenId);
   const update = useUpdateBed(gardenId, bed?.id ?? 0);
   const mutation = bed ? update : create;
-  const { register, handleSubmit, formState, setError, reset } = useForm<z.input<typeof bedCreateSchema>, unknown, BedCreateInput>({
-    resolver: zodResolver(bedCreateSchema),
+  const schema = useMemo(() => bedFormSchema(system), [system]);
+  const { register, handleSubmit, formState, setError, reset } = useForm<z.input<BedFormSchema>, unknown, BedFormValues>({
+    resolver: zodResolver(schema),
     defaultValues: bed
-      ? { name: bed.name, kind: bed.kind, lengthM: bed.lengthM, widthM: bed.widthM, notes: bed.notes }
-      : { name: '', kind: 'bed', lengthM: null, widthM: null, notes: '' },
+      ? { name: bed.name, kind: bed.kind, length: shownSide(bed.lengthM, system), width: shownSide(bed.widthM, system), notes: bed.notes }
+      : { name: '', kind: 'bed', length: null, width: null, notes: '' },
   });
+  const symbol = measureSymbol('bed', system);
   const e = formState.errors;
   // Read while rendering: react-hook-form only tracks the parts of formState that are read.
   const dirtyFields = formState.dirtyFields;
@@ -33,10 +82,10 @@ export function BedForm({ gardenId, bed, onDone }: { gardenId: number; bed?: Bed
     const changes = changedValues(values, dirtyFields);
     // Nothing changed: close without asking the server to rewrite the same values.
     if (bed && !Object.keys(changes).length) return onDone?.();
-    const saving = bed ? update.mutateAsync(changes) : create.mutateAsync(values);
+    const saving = bed ? update.mutateAsync(toInput(changes, system)) : create.mutateAsync(toInput(values, system));
     return saving.then(
       () => (bed ? onDone?.() : reset()),
-      (error: unknown) => applyServerFieldErrors(error, setError, FIELDS),
+      (error: unknown) => applyServerFieldErrors(underFormFields(error), setError, FIELDS),
     );
   });
   const title = bed ? `Edit bed ${bed.name}` : 'New bed';
@@ -53,10 +102,10 @@ export function BedForm({ gardenId, bed, onDone }: { gardenId: number; bed?: Bed
         </select>
         {e.kind?.message && <FieldError>{e.kind.message}</FieldError>}
       </div>
-      <TextField label="Length" unit="m" inputMode="decimal" error={e.lengthM?.message} {...register('lengthM', { setValueAs: numberOrNull })} />
-      <TextField label="Width" unit="m" inputMode="decimal" error={e.widthM?.message} {...register('widthM', { setValueAs: numberOrNull })} />
+      <TextField label={`Length (${symbol})`} inputMode="decimal" error={e.length?.message} {...register('length', { setValueAs: numberOrNull })} />
+      <TextField label={`Width (${symbol})`} inputMode="decimal" error={e.width?.message} {...register('width', { setValueAs: numberOrNull })} />
       <TextField label="Notes" className="sm:col-span-2" error={e.notes?.message} {...register('notes')} />
-      {mutation.isError && !Object.keys(e).length && <div className="sm:col-span-2"><Notice tone="error" live="alert">{mutation.error.message}</Notice></div>}
+      {mutation.isError && !Object.keys(e).length && <div className="sm:col-span-2"><Notice tone="error" live="alert">{mutationProblem(mutation.error)}</Notice></div>}
       <div className="flex flex-wrap gap-2">
         <Button type="submit" disabled={formState.isSubmitting}>{bed ? 'Save changes' : 'Add bed'}</Button>
         {bed && <Button variant="quiet" onClick={onDone}>Cancel</Button>}

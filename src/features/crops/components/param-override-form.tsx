@@ -6,6 +6,7 @@ import { cropOverridesUpdateSchema } from '#shared/schemas/crops';
 import type { CropParamDto } from '#shared/schemas/crops';
 import type { DisplayUnit } from '#shared/schemas/gardens';
 import { cDaysToFDays, cToF, fDaysToCDays, fToC } from '#shared/thermal/units';
+import { mutationProblem } from '@/lib/problems';
 import { Button } from '@/components/ui/button';
 import { FieldError } from '@/components/ui/text-field';
 import { useUpdateCropOverrides } from '@/features/crops/api/update-crop-overrides';
@@ -51,7 +52,7 @@ function valuesWith(params: readonly CropParamDto[], key: CropParamKey, value: u
 /** The server's message for this field, else its first one: a change may break a pair with another field. */
 function serverProblem(error: Error, key: CropParamKey): string {
   const fields = (error as { fields?: Record<string, string> }).fields ?? {};
-  return fields[`params.${key}.value`] ?? Object.values(fields)[0] ?? error.message;
+  return fields[`params.${key}.value`] ?? Object.values(fields)[0] ?? mutationProblem(error, 'your value is kept');
 }
 
 /**

@@ -6,6 +6,7 @@ import type { z } from 'zod';
 import { gardenUpdateSchema } from '#shared/schemas/gardens';
 import type { GardenDto, GardenUpdateInput } from '#shared/schemas/gardens';
 import { applyServerFieldErrors } from '@/lib/form-errors';
+import { mutationProblem } from '@/lib/problems';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { FieldError, TextField } from '@/components/ui/text-field';
@@ -86,7 +87,7 @@ export function GardenSettingsForm({ garden }: { garden: GardenDto }) {
     } catch (error) {
       const { placed, leftover } = applyServerFieldErrors(error, setError, FIELDS);
       if (placed === 0 || leftover.length > 0) {
-        setProblem([error instanceof Error ? error.message : 'The settings could not be saved.', ...leftover].join(' '));
+        setProblem([mutationProblem(error, 'your changes are kept'), ...leftover].join(' '));
       }
     }
   });
@@ -123,7 +124,7 @@ export function GardenSettingsForm({ garden }: { garden: GardenDto }) {
         </div>
         <TextField
           label="Elevation (m)"
-          hint="Metres above sea level. Leave blank if you don’t know it."
+          hint={`Metres above sea level${garden.units === 'F' ? ' (1 m is 3.28 ft)' : ''}. Leave blank if you don’t know it.`}
           unit="m"
           autoComplete="off"
           className="sm:max-w-xs"

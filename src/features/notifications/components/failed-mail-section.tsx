@@ -1,5 +1,5 @@
 import { MailWarning } from 'lucide-react';
-import { Notice } from '@/components/ui/notice';
+import { LoadProblem } from '@/components/ui/load-problem';
 import { useFailedMail } from '@/features/notifications/api/get-failed-mail';
 
 /** For owners: alert e-mails that never arrived, so a mistyped address can be put right. */
@@ -11,7 +11,7 @@ export function FailedMailSection({ gardenId }: { gardenId: number }) {
         E-mail that could not be delivered
       </h2>
       {failed.isPending && <p>Checking…</p>}
-      {failed.isError && <Notice tone="error">The list of undelivered e-mail could not be loaded — try again later.</Notice>}
+      {failed.isError && <LoadProblem compact error={failed.error} what="the list of undelivered e-mail" onRetry={() => failed.refetch()} retrying={failed.isFetching} />}
       {failed.data && failed.data.length === 0 && <p>Every alert e-mail of this garden has been delivered or is on its way.</p>}
       {failed.data && failed.data.length > 0 && (
         <ul className="flex flex-col gap-2">

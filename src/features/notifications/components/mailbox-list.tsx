@@ -1,6 +1,5 @@
 import type { CapturedMailDto } from '#shared/schemas/notifications';
-
-const when = (iso: string) => new Intl.DateTimeFormat(navigator.languages, { dateStyle: 'medium', timeStyle: 'short' }).format(new Date(iso));
+import { formatLocalInstant } from '@/lib/format';
 
 /** One captured message: the plain text always, the HTML part in a sandbox that runs no scripts. */
 function Message({ mail }: { mail: CapturedMailDto }) {
@@ -9,7 +8,7 @@ function Message({ mail }: { mail: CapturedMailDto }) {
       <article className="flex flex-col gap-2">
         <h2 className="text-lg font-bold">{mail.subject || '(no subject)'}</h2>
         <p className="text-sm text-loam-soft">
-          To {mail.to} · received <time dateTime={mail.receivedAt}>{when(mail.receivedAt)}</time>
+          To {mail.to} · received <time dateTime={mail.receivedAt}>{formatLocalInstant(mail.receivedAt)}</time>
         </p>
         <details>
           <summary className="cursor-pointer font-semibold">Plain text</summary>

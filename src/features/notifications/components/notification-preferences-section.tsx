@@ -6,6 +6,7 @@ import { DELIVERIES, DELIVERY_WORDS, notificationPreferenceInputSchema } from '#
 import type { NotificationPreferenceDto, NotificationPreferenceInput } from '#shared/schemas/notifications';
 import { ApiError } from '@/lib/api-client';
 import { Button } from '@/components/ui/button';
+import { LoadProblem } from '@/components/ui/load-problem';
 import { Loading } from '@/components/ui/loading';
 import { Notice } from '@/components/ui/notice';
 import { FieldError } from '@/components/ui/text-field';
@@ -122,9 +123,7 @@ export function NotificationPreferencesSection({ gardenId }: { gardenId: number 
       </h2>
       {prefs.isPending && <Loading label="Loading your e-mail settings…" />}
       {prefs.isError && (
-        <Notice tone="error" title="Your e-mail settings could not be loaded" live="alert">
-          {prefs.error.message}
-        </Notice>
+        <LoadProblem error={prefs.error} what="your e-mail settings" onRetry={() => prefs.refetch()} retrying={prefs.isFetching} />
       )}
       {/* Keyed so another garden starts from its own stored values. */}
       {item && <PreferencesForm key={item.gardenId} item={item} />}

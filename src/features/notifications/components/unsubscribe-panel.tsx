@@ -1,5 +1,6 @@
 import { isApiError } from '@/lib/api-client';
 import { Button } from '@/components/ui/button';
+import { LoadProblem } from '@/components/ui/load-problem';
 import { Loading } from '@/components/ui/loading';
 import { Notice } from '@/components/ui/notice';
 import { useUnsubscribeInfo } from '@/features/notifications/api/get-unsubscribe';
@@ -10,6 +11,10 @@ export function UnsubscribePanel({ token }: { token: string }) {
   const info = useUnsubscribeInfo(token);
   const stop = useUnsubscribe(token);
   if (info.isPending) return <Loading label="Checking the link…" />;
+  // No answer, or the server too busy: the link may well work; say so and offer to ask again.
+  if (info.isError && !(isApiError(info.error) && info.error.status >= 400 && info.error.status < 500 && info.error.status !== 429)) {
+    return <LoadProblem error={info.error} what="this link" onRetry={() => info.refetch()} retrying={info.isFetching} />;
+  }
   if (info.isError) {
     const used = isApiError(info.error, 410);
     return (

@@ -10,6 +10,7 @@ import {
 } from '#shared/schemas/plantings';
 import type { ImportReport } from '#shared/schemas/plantings';
 import type { ApiError } from '@/lib/api-client';
+import { mutationProblem } from '@/lib/problems';
 import { FILE_INPUT_CLASS, UploadButton } from '@/components/ui/upload-button';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
@@ -79,7 +80,7 @@ function Failure({ error }: { error: ApiError }) {
   return (
     <Notice tone="error" title="Nothing was imported" live="alert">
       <p>
-        {error.message}
+        {mutationProblem(error, 'the chosen file is kept')}
         {rows.length > 0 && ' Fix these rows in the file and upload it again; no planting is saved until the whole file is right.'}
       </p>
       {rows.length > 0 && <RowReport rows={rows} />}

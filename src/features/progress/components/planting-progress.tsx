@@ -1,9 +1,7 @@
-import { RotateCw } from 'lucide-react';
 import type { ProgressDto } from '#shared/schemas/progress';
 import { degreeDayUnit } from '@/lib/format';
-import { Button } from '@/components/ui/button';
+import { LoadProblem } from '@/components/ui/load-problem';
 import { Loading } from '@/components/ui/loading';
-import { Notice } from '@/components/ui/notice';
 import { useProgress } from '@/features/progress/api/get-progress';
 import { ProgressChartPanel } from '@/features/progress/components/progress-chart-panel';
 import { ProgressSummary } from '@/features/progress/components/progress-summary';
@@ -18,16 +16,7 @@ export function PlantingProgress({ gardenId, plantingId }: { gardenId: number; p
   const progress = useProgress(gardenId, plantingId);
   if (progress.isPending) return <Loading label="Loading progress…" />;
   if (progress.isError) {
-    return (
-      <div className="flex flex-col items-start gap-3">
-        <Notice tone="error" title="Progress could not be loaded — try again" live="alert">
-          {progress.error.message}
-        </Notice>
-        <Button variant="quiet" onClick={() => progress.refetch()} disabled={progress.isFetching}>
-          <RotateCw className="size-5" aria-hidden="true" /> Try again
-        </Button>
-      </div>
-    );
+    return <LoadProblem error={progress.error} what="progress" onRetry={() => progress.refetch()} retrying={progress.isFetching} />;
   }
   return (
     <div className="flex flex-col gap-4">

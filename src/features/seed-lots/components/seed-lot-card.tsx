@@ -3,7 +3,9 @@ import { CircleCheck, CircleHelp, Hourglass, TriangleAlert, FlaskConical, Pencil
 import type { GerminationTestDto, SeedLotDto, ViabilityStatus } from '#shared/schemas/seed-lots';
 import { Button } from '@/components/ui/button';
 import { ConfirmDelete } from '@/components/ui/confirm-delete';
+import { LoadProblem } from '@/components/ui/load-problem';
 import { Loading } from '@/components/ui/loading';
+import { loadProblem, mutationProblem } from '@/lib/problems';
 import { FieldError } from '@/components/ui/text-field';
 import { useAddGerminationTest } from '@/features/seed-lots/api/add-germination-test';
 import { useDeleteGerminationTest } from '@/features/seed-lots/api/delete-germination-test';
@@ -11,6 +13,7 @@ import { useDeleteSeedLot } from '@/features/seed-lots/api/delete-seed-lot';
 import { useSeedLot } from '@/features/seed-lots/api/get-seed-lot';
 import { useSeedsToSow } from '@/features/seed-lots/api/get-seeds-to-sow';
 import { SeedLotForm } from '@/features/seed-lots/components/seed-lot-form';
+import { formatDayInContext, formatFullDate } from '@/lib/format';
 
 const VIABILITY: Record<ViabilityStatus, { word: string; icon: typeof CircleCheck }> = {
   tested: { word: 'Tested', icon: FlaskConical },
@@ -42,7 +45,7 @@ function GerminationTestForm({ gardenId, lotId, today }: { gardenId: number; lot
       <div className="col-span-3 flex flex-wrap items-center gap-2">
         <Button type="submit" variant="quiet" disabled={add.isPending || germinated === ''}>Save test</Button>
         {Object.values(fields).map((m) => <FieldError key={m}>{m}</FieldError>)}
-        {add.isError && !Object.keys(fields).length && <FieldError>{add.error.message}</FieldError>}
+        {add.isError && !Object.keys(fields).length && <FieldError>{mutationProblem(add.error)}</FieldError>}
       </div>
     </form>
   );
@@ -62,8 +65,8 @@ function SeedsToSow({ gardenId, lot }: { gardenId: number; lot: SeedLotDto }) {
       <label className="flex flex-col gap-1"><span className="font-semibold">Field emergence, %</span><input inputMode="numeric" className={INPUT} value={emergence} onChange={(e) => setEmergence(e.target.value)} /></label>
       <p className="col-span-2" role="status">
         {!valid ? 'Enter a whole number of plants and an emergence from 1 to 100 %.' : result.data ? (
-          <>Sow <strong>{result.data.seeds} seeds</strong> ({result.data.germinationPercent.toFixed(0)} % germination in the test of {result.data.basedOn.testedOn}, {emergence} % field emergence).</>
-        ) : result.isError ? result.error.message : 'Working it out…'}
+          <>Sow <strong>{result.data.seeds} seeds</strong> ({result.data.germinationPercent.toFixed(0)} % germination in the test of {formatFullDate(result.data.basedOn.testedOn)}, {emergence} % field emergence).</>
+        ) : result.isError ? loadProblem(result.error) : 'Working it out…'}
       </p>
     </div>
   );
@@ -71,16 +74,17 @@ function SeedsToSow({ gardenId, lot }: { gardenId: number; lot: SeedLotDto }) {
 
 function TestRow({ gardenId, lotId, test: t }: { gardenId: number; lotId: number; test: GerminationTestDto }) {
   const remove = useDeleteGerminationTest(gardenId, lotId, t.id);
+  const on = formatFullDate(t.testedOn);
   return (
     <li className="flex flex-wrap items-center justify-between gap-2 py-1">
       <span>
-        {t.testedOn}: {Math.round(t.percent)} % ({t.germinated} of {t.seedsTested} seeds)
+        <time dateTime={t.testedOn}>{on}</time>: {Math.round(t.percent)} % ({t.germinated} of {t.seedsTested} seeds)
         {t.notes && ` · ${t.notes}`}
       </span>
       <ConfirmDelete
         compact
-        label={`Delete the germination test of ${t.testedOn}`}
-        question={`Delete the test of ${t.testedOn}?`}
+        label={`Delete the germination test of ${on}`}
+        question={`Delete the test of ${on}?`}
         consequence="Its counts are removed for good; the lot’s viability and seeds to sow then follow the test before it, if any."
         confirmLabel="Delete test"
         onConfirm={() => remove.mutate()}
@@ -95,7 +99,7 @@ function TestRow({ gardenId, lotId, test: t }: { gardenId: number; lotId: number
 function GerminationTests({ gardenId, lotId }: { gardenId: number; lotId: number }) {
   const lot = useSeedLot(gardenId, lotId);
   if (lot.isPending) return <Loading label="Loading the tests…" />;
-  if (lot.isError) return <FieldError>{lot.error.message}</FieldError>;
+  if (lot.isError) return <LoadProblem compact error={lot.error} what="the tests" onRetry={() => lot.refetch()} retrying={lot.isFetching} />;
   const tests = lot.data.tests ?? [];
   if (!tests.length) return <p className="text-sm text-loam-soft">No germination tests yet.</p>;
   return (
@@ -139,7 +143,7 @@ export function SeedLotCard({
       </header>
       <p className="text-sm">
         Quantity: {lot.quantity === null ? '—' : `${lot.quantity} ${lot.quantityUnit === 'grams' ? 'g' : 'seeds'}`}
-        {lot.latestTest && ` · Last test: ${Math.round(lot.latestTest.percent)} % (${lot.latestTest.germinated} of ${lot.latestTest.seedsTested}) on ${lot.latestTest.testedOn}`}
+        {lot.latestTest && ` · Last test: ${Math.round(lot.latestTest.percent)} % (${lot.latestTest.germinated} of ${lot.latestTest.seedsTested}) on ${formatDayInContext(lot.latestTest.testedOn, today)}`}
       </p>
       <p className="flex gap-2 rounded-md bg-paper-sunk px-3 py-2 text-sm">
         <Icon className="size-4 shrink-0" aria-hidden="true" />

@@ -4,6 +4,7 @@ import type { z } from 'zod';
 import { QUANTITY_UNITS, seedLotCreateSchema } from '#shared/schemas/seed-lots';
 import type { SeedLotCreateInput, SeedLotDto } from '#shared/schemas/seed-lots';
 import { applyServerFieldErrors } from '@/lib/form-errors';
+import { mutationProblem } from '@/lib/problems';
 import { changedValues } from '@/lib/changed-values';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
@@ -92,7 +93,7 @@ export function SeedLotForm({
       <TextField label="Storage notes" error={e.storageNotes?.message} {...register('storageNotes')} />
       {mutation.isError && !Object.keys(e).length && (
         <div className="sm:col-span-2">
-          <Notice tone="error" title="The seed lot was not saved" live="alert">{mutation.error.message}</Notice>
+          <Notice tone="error" title="The seed lot was not saved" live="alert">{mutationProblem(mutation.error)}</Notice>
         </div>
       )}
       <div className="flex flex-wrap gap-2">

@@ -4,13 +4,14 @@ import { UNITS } from '#shared/schemas/gardens';
 import type { DisplayUnit } from '#shared/schemas/gardens';
 import type { WeatherImportResult } from '#shared/schemas/weather';
 import type { ApiError } from '@/lib/api-client';
-import { UNIT_WORDS } from '@/lib/format';
+import { formatFullRange, UNIT_WORDS } from '@/lib/format';
+import { mutationProblem } from '@/lib/problems';
 import { FILE_INPUT_CLASS, UploadButton } from '@/components/ui/upload-button';
 import { Notice } from '@/components/ui/notice';
 import { RowReport } from '@/components/ui/row-report';
 import { FieldError } from '@/components/ui/text-field';
 import { useImportWeatherCsv } from '@/features/weather/api/import-weather-csv';
-import { formatCount, formatDayRange } from '@/features/weather/utils/format-weather';
+import { formatCount } from '@/features/weather/utils/format-weather';
 
 const MAX_BYTES = 2 * 1024 * 1024;
 
@@ -40,7 +41,7 @@ function ImportOutcome({ result }: { result: WeatherImportResult }) {
       </Notice>
     );
   }
-  const span = result.from && result.to ? ` (${formatDayRange(result.from, result.to)})` : '';
+  const span = result.from && result.to ? ` (${formatFullRange(result.from, result.to)})` : '';
   return (
     <Notice tone="success" title="Station readings imported" live="status">
       {formatCount(result.rowsInFile, 'day', 'days')} read from the file{span}: {result.rowsAdded} new,{' '}
@@ -63,7 +64,7 @@ function ImportFailure({ error }: { error: ApiError }) {
   }
   return (
     <Notice tone="error" title="Nothing was imported" live="alert">
-      {error.message}
+      {mutationProblem(error, 'the chosen file is kept')}
     </Notice>
   );
 }

@@ -1,10 +1,10 @@
 import { CircleCheck, CircleX, LoaderCircle, TriangleAlert } from 'lucide-react';
 import type { JobRunDto } from '#shared/schemas/weather';
-import { Button } from '@/components/ui/button';
+import { LoadProblem } from '@/components/ui/load-problem';
 import { Loading } from '@/components/ui/loading';
-import { Notice } from '@/components/ui/notice';
 import { useWeatherRuns } from '@/features/weather/api/get-weather-runs';
-import { formatDuration, formatInstant } from '@/features/weather/utils/format-weather';
+import { formatDuration } from '@/features/weather/utils/format-weather';
+import { formatInstant } from '@/lib/format';
 
 const STATUS: Record<string, { words: string; icon: typeof CircleCheck; tone: string; spin?: boolean }> = {
   running: { words: 'Running', icon: LoaderCircle, tone: 'text-loam-soft', spin: true },
@@ -55,14 +55,7 @@ export function WeatherRunsTable({ gardenId, timeZone }: { gardenId: number; tim
       </div>
       {runs.isPending && <Loading label="Loading the fetch history…" />}
       {runs.isError && (
-        <div className="flex flex-col items-start gap-2">
-          <Notice tone="error" title="The fetch history could not be loaded">
-            {runs.error.message}
-          </Notice>
-          <Button variant="quiet" onClick={() => runs.refetch()}>
-            Try again
-          </Button>
-        </div>
+        <LoadProblem error={runs.error} what="the fetch history" onRetry={() => runs.refetch()} retrying={runs.isFetching} />
       )}
       {runs.isSuccess && runs.data.length === 0 && <p>No fetches yet.</p>}
       {runs.isSuccess && runs.data.length > 0 && (
