@@ -20,6 +20,30 @@ export function dayTicks(from: string, to: string, today: string, step: number):
   return ticks;
 }
 
+/**
+ * A tick step in whole weeks (at least one) that puts at most `maxTicks` ticks across the range,
+ * so dates stay apart on a narrow chart.
+ */
+export function weekStepFor(from: string, to: string, maxTicks: number): number {
+  const days = toDayNumber(to) - toDayNumber(from) + 1;
+  return Math.max(1, Math.ceil(days / Math.max(1, maxTicks) / 7)) * 7;
+}
+
+/**
+ * Label baselines for lines at `ys` (pixels, any order): each as close to its line as it can be,
+ * at least `gap` apart, all within `[top, bottom]` when they fit. Returned in the order given.
+ */
+export function spreadLabels(ys: number[], gap: number, [top, bottom]: [number, number]): number[] {
+  const order = ys.map((y, i) => ({ y: y + 4, i })).sort((a, b) => a.y - b.y);
+  const placed = order.map((o) => o.y);
+  for (let k = 0; k < placed.length; k++) placed[k] = Math.max(placed[k], top, k ? placed[k - 1] + gap : -Infinity);
+  // Pushed past the bottom: walk back up, keeping the gap.
+  for (let k = placed.length - 1; k >= 0; k--) placed[k] = Math.min(placed[k], k === placed.length - 1 ? bottom : placed[k + 1] - gap);
+  const out = new Array<number>(ys.length);
+  order.forEach((o, k) => (out[o.i] = placed[k]));
+  return out;
+}
+
 /** Where each (highest-first) label goes, so lines close together do not print over each other. */
 export function placeThresholdLabels<T extends { value: number }>(sorted: T[], domain: [number, number]) {
   const close = (domain[1] - domain[0]) * 0.1;

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { testApp } from '../helpers/test-app';
+import { testApp, testDb } from '../helpers/test-app';
+import { giveGardenWeather, steadyDays } from '../helpers/garden-weather';
 import { gardenWithClients, makeLot, makeVariety, makePlanting } from '../helpers/garden-records';
 import { createGarden } from '../helpers/factories';
 import { fToC } from '#shared/thermal/index';
@@ -132,5 +133,57 @@ describe('a grower’s degree-day target keeps the method it was set in', () => 
     const v = await makeVariety(garden.id, { cropKey: 'spinach', gddTargetOverrideC: 450 });
     const t = (await clients.viewer.get(`${base}/varieties/${v.id}`)).body.variety.gddTarget;
     expect(t).toMatchObject({ valueC: 450, basis: 'override', stale: false });
+  });
+});
+
+describe('the varieties list carries each degree-day target', () => {
+  /** How many SQL statements one request runs (this file's requests run one at a time). */
+  async function queriesOf(run: () => Promise<unknown>) {
+    const { sequelize } = testDb();
+    let n = 0;
+    const count = () => {
+      n++;
+    };
+    sequelize.addHook('beforeQuery', 'count-queries', count);
+    try {
+      await run();
+    } finally {
+      sequelize.removeHook('beforeQuery', 'count-queries');
+    }
+    return n;
+  }
+
+  it('when a garden has weather history, then every listed variety has its target, an override as the grower set it', async () => {
+    const { clients, base, garden } = await gardenWithClients(app);
+    await giveGardenWeather(testDb().sequelize, garden, steadyDays('2022-01-01', '2024-12-31', 24, 12));
+    const derived = await makeVariety(garden.id, { name: 'Derived leaf', dtmDays: 40 });
+    const own = await makeVariety(garden.id, { name: 'Own leaf', cropKey: 'lettuce', gddTargetOverrideC: 520 });
+    await makePlanting(garden.id, { varietyId: derived.id, sownOn: '2024-04-10' });
+    const items = (await clients.viewer.get(`${base}/varieties`).expect(200)).body.items as Array<{ id: number; gddTarget: { valueC: number; basis: string } }>;
+    const byId = new Map(items.map((v) => [v.id, v.gddTarget]));
+    // Lettuce counts from base 40 °F (4.4 °C) with no upper limit: days of 24/12 °C give 18 − 4.4 °C-days each.
+    expect(byId.get(derived.id)).toMatchObject({ basis: 'derived', valueC: expect.closeTo(40 * (18 - fToC(40)), 1) });
+    expect(byId.get(own.id)).toMatchObject({ basis: 'override', valueC: 520 });
+  });
+
+  it('when the list grows from two varieties to eight, then it takes the same number of queries', async () => {
+    const { clients, base, garden } = await gardenWithClients(app);
+    await giveGardenWeather(testDb().sequelize, garden, steadyDays('2023-01-01', '2024-12-31', 22, 10));
+    const add = async (n: number) => {
+      for (let i = 0; i < n; i++) {
+        const v = await makeVariety(garden.id);
+        await makePlanting(garden.id, { varietyId: v.id });
+      }
+    };
+    await add(2);
+    const few = await queriesOf(() => clients.viewer.get(`${base}/varieties`).expect(200));
+    await add(6);
+    let listed = 0;
+    const many = await queriesOf(async () => {
+      listed = (await clients.viewer.get(`${base}/varieties`).expect(200)).body.items.filter((v: { gddTarget?: unknown }) => v.gddTarget).length;
+    });
+    expect(listed).toBe(8);
+    expect(few).toBeGreaterThan(0);
+    expect(many).toBe(few);
   });
 });

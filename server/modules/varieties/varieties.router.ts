@@ -6,10 +6,10 @@ import type { RouteTableEntry } from '../../lib/routes';
 import { recordId } from '../records/params';
 import { pageOf } from '../records/paging';
 import { getGarden } from '../gardens/gardens.service';
-import { effectiveCrops, effectiveValues, getCrop } from '../crops/crops.service';
+import { cropOrNotFound, effectiveCrops, effectiveValues, getCrop } from '../crops/crops.service';
 import { createVariety, deleteVariety, getVariety, listVarieties, updateVariety } from './varieties.service';
 import { presentVariety } from './varieties.presenter';
-import { varietyTarget } from './variety-target';
+import { varietyTarget, varietyTargets } from './variety-target';
 import type { WeatherService } from '../weather/weather.service';
 import type { ReadCache } from '../../lib/read-cache';
 
@@ -33,8 +33,10 @@ export function varietiesRouter(table: RouteTableEntry[], weather: WeatherServic
           const { gardenId } = req.membership!;
           const q = parseQuery(varietyListQuerySchema, req.query);
           await cache.send(req, res, 'varieties', async () => {
-            const [{ rows, count }, crops] = await Promise.all([listVarieties(gardenId, q), effectiveCrops(gardenId)]);
-            return pageOf(rows.map((v) => presentVariety(v, crops.get(v.cropKey)?.season ?? 'cool')), count, q);
+            const [{ rows, count }, crops, garden] = await Promise.all([listVarieties(gardenId, q), effectiveCrops(gardenId), getGarden(gardenId)]);
+            const cropOf = (v: { cropKey: string }) => crops.get(v.cropKey) ?? effectiveValues({ crop: cropOrNotFound(v.cropKey), overrides: new Map() });
+            const targets = await varietyTargets(garden, rows, cropOf, (g) => weather.gardenHistory(g));
+            return pageOf(rows.map((v) => presentVariety(v, cropOf(v).season, targets.get(v.id))), count, q);
           });
         },
       },

@@ -8,8 +8,7 @@ import { formatDegreeDays } from '#shared/thermal/units';
 import type { CropParamValues } from '#shared/crops/params';
 import { dayOfYear, degreeDayTargetFromDtm, isSouthern } from '#shared/thermal/index';
 import { packetEmergenceDays, startEvent } from '#shared/thermal/start-event';
-import { dayMonth } from '#shared/format/dates';
-import { requestLocale } from '../../lib/locale';
+import { dayToken } from '#shared/format/dates';
 import type { DailyTemp } from '#shared/thermal/index';
 import type { GddTargetDto } from '#shared/schemas/varieties';
 import { Planting } from '../../db/models';
@@ -33,8 +32,16 @@ const DEFAULT_WINDOWS = {
  * so starts in November and January make a window across New Year (southern summers), not one
  * across the whole year.
  */
-async function ownWindow(variety: Variety): Promise<{ from: string; to: string } | null> {
-  const rows = await Planting.findAll({ where: { varietyId: variety.id }, attributes: ['method', 'status', 'sownOn', 'emergedOn', 'transplantedOn'], raw: true });
+type StartRow = Pick<Planting, 'varietyId' | 'method' | 'status' | 'sownOn' | 'emergedOn' | 'transplantedOn'>;
+const START_COLUMNS = ['varietyId', 'method', 'status', 'sownOn', 'emergedOn', 'transplantedOn'] as const;
+
+async function startRowsOf(varietyIds: number[]): Promise<StartRow[]> {
+  if (!varietyIds.length) return [];
+  return Planting.findAll({ where: { varietyId: varietyIds }, attributes: [...START_COLUMNS], raw: true });
+}
+
+async function ownWindow(variety: Variety, preloaded?: StartRow[]): Promise<{ from: string; to: string } | null> {
+  const rows = preloaded ?? (await startRowsOf([variety.id]));
   const starts = rows
     .map((p) => startEvent(p, variety).event?.on)
     .filter((d): d is string => !!d)
@@ -94,20 +101,47 @@ export async function varietyTarget(
   crop: CropParamValues,
   loadHistory: (garden: Garden) => Promise<DailyTemp[]>,
   forPlanting?: { days: number; from: 'sowing' | 'transplant' },
+  startRows?: StartRow[],
 ): Promise<GddTargetDto> {
   const own = override(variety, crop, garden.units);
   if (own && 'use' in own) return own.use;
-  const derived = await packetTarget(garden, variety, crop, loadHistory, forPlanting);
+  const derived = await packetTarget(garden, variety, crop, loadHistory, forPlanting, startRows);
   if (!own) return derived;
   return { ...derived, explanation: `${own.setAside} ${derived.explanation}`, basisNote: own.setAside, stale: true };
 }
 
-async function packetTarget(garden: Garden, variety: Variety, crop: CropParamValues, loadHistory: (garden: Garden) => Promise<DailyTemp[]>, forPlanting?: { days: number; from: 'sowing' | 'transplant' }): Promise<GddTargetDto> {
+/**
+ * The targets of a page of varieties in one pass: the garden's history is read once and the
+ * plantings of all of them in one query, so a list costs the same few queries however long it is.
+ */
+export async function varietyTargets(
+  garden: Garden,
+  varieties: Variety[],
+  cropOf: (variety: Variety) => CropParamValues,
+  loadHistory: (garden: Garden) => Promise<DailyTemp[]>,
+): Promise<Map<number, GddTargetDto>> {
+  const needsHistory = varieties.some((v) => v.dtmDays !== null);
+  const [history, rows] = await Promise.all([needsHistory ? loadHistory(garden) : Promise.resolve([]), startRowsOf(varieties.map((v) => v.id))]);
+  const byVariety = new Map<number, StartRow[]>(varieties.map((v) => [v.id, []]));
+  for (const row of rows) byVariety.get(row.varietyId)?.push(row);
+  const once = async () => history;
+  const targets = await Promise.all(varieties.map((v) => varietyTarget(garden, v, cropOf(v), once, undefined, byVariety.get(v.id))));
+  return new Map(varieties.map((v, i) => [v.id, targets[i]]));
+}
+
+async function packetTarget(
+  garden: Garden,
+  variety: Variety,
+  crop: CropParamValues,
+  loadHistory: (garden: Garden) => Promise<DailyTemp[]>,
+  forPlanting?: { days: number; from: 'sowing' | 'transplant' },
+  startRows?: StartRow[],
+): Promise<GddTargetDto> {
   if (variety.dtmDays === null) return none('Add the packet’s days to maturity to derive a degree-day target.');
   const history = await loadHistory(garden);
   if (!history.length) return none('No past weather for this garden yet: the target is derived once its history has been fetched.');
   const hemisphere = isSouthern(garden.latitude ?? 0) ? 'S' : 'N';
-  const own = await ownWindow(variety);
+  const own = await ownWindow(variety, startRows);
   const window = own ?? DEFAULT_WINDOWS[crop.season][hemisphere];
   const emergence = packetEmergenceDays(variety) ?? undefined;
   try {
@@ -124,7 +158,7 @@ async function packetTarget(garden: Garden, variety: Variety, crop: CropParamVal
       valueC: t.target,
       basis: 'derived',
       countsFrom: t.countsFrom,
-      explanation: `${t.days} days from ${t.countsFrom === 'transplant' ? 'transplanting' : 'sowing'}, measured in this garden’s past weather over ${from} (${dayMonth(`2001-${window.from}`, requestLocale())} to ${dayMonth(`2001-${window.to}`, requestLocale())}, ${t.samples} samples).`,
+      explanation: `${t.days} days from ${t.countsFrom === 'transplant' ? 'transplanting' : 'sowing'}, measured in this garden’s past weather over ${from} (${dayToken(`2001-${window.from}`)} to ${dayToken(`2001-${window.to}`)}, ${t.samples} samples).`,
       p10C: t.p10,
       p90C: t.p90,
       stale: false,

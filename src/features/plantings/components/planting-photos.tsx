@@ -1,14 +1,17 @@
-import { useState } from 'react';
-import { ImagePlus } from 'lucide-react';
+import { useId, useRef } from 'react';
+import { useForm } from 'react-hook-form';
 import type { PhotoDto } from '#shared/schemas/plantings';
-import { Button } from '@/components/ui/button';
+import { ApiError } from '@/lib/api-client';
+import { mutationProblem } from '@/lib/problems';
 import { ConfirmDelete } from '@/components/ui/confirm-delete';
 import { Loading } from '@/components/ui/loading';
 import { Notice } from '@/components/ui/notice';
+import { FieldError } from '@/components/ui/text-field';
+import { FILE_INPUT_CLASS, UploadButton } from '@/components/ui/upload-button';
 import { usePhotos } from '@/features/plantings/api/get-photos';
 import { useUploadPhoto } from '@/features/plantings/api/upload-photo';
 import { useDeletePhoto } from '@/features/plantings/api/delete-photo';
-import { formatDay } from '@/features/plantings/components/format-day';
+import { formatFullDate } from '@/lib/format';
 import { CONTROL } from '@/features/plantings/components/field-styles';
 
 function Photo({ gardenId, photo: p, canEdit }: { gardenId: number; photo: PhotoDto; canEdit: boolean }) {
@@ -16,16 +19,16 @@ function Photo({ gardenId, photo: p, canEdit }: { gardenId: number; photo: Photo
   return (
     <li className="flex flex-col gap-1">
       <figure>
-        <img src={p.url} alt={p.caption || `Photo of ${formatDay(p.takenOn)}`} width={p.width} height={p.height} loading="lazy" className="h-auto w-full rounded-md border border-line" />
+        <img src={p.url} alt={p.caption || `Photo of ${formatFullDate(p.takenOn)}`} width={p.width} height={p.height} loading="lazy" className="h-auto w-full rounded-md border border-line" />
         <figcaption className="text-sm">
-          {formatDay(p.takenOn)}
+          {formatFullDate(p.takenOn)}
           {p.caption && ` · ${p.caption}`}
         </figcaption>
       </figure>
       {canEdit && (
         <ConfirmDelete
           compact
-          label={`Delete the photo of ${formatDay(p.takenOn)}`}
+          label={`Delete the photo of ${formatFullDate(p.takenOn)}`}
           question="Delete this photo?"
           consequence="The picture and its entry in the log are removed for good."
           confirmLabel="Delete photo"
@@ -38,12 +41,104 @@ function Photo({ gardenId, photo: p, canEdit }: { gardenId: number; photo: Photo
   );
 }
 
+const PHOTO_TYPES = ['image/jpeg', 'image/png', 'image/webp'];
+
+interface PhotoValues {
+  file: FileList | null;
+  caption: string;
+}
+
+function checkPhoto(files: FileList | null): true | string {
+  const file = files?.[0];
+  if (!file) return 'Choose a photo to add.';
+  if (!PHOTO_TYPES.includes(file.type)) return 'Choose a JPEG, PNG or WebP picture.';
+  return true;
+}
+
+/** The picker looks and behaves like the station upload: the same file field and button, cleared once a photo is saved. */
+function PhotoUploadForm({ gardenId, plantingId }: { gardenId: number; plantingId: number }) {
+  const id = useId();
+  const formRef = useRef<HTMLFormElement>(null);
+  const upload = useUploadPhoto(gardenId, plantingId);
+  const {
+    register,
+    handleSubmit,
+    reset,
+    formState: { errors },
+  } = useForm<PhotoValues>({ defaultValues: { file: null, caption: '' } });
+
+  const onSubmit = handleSubmit((values) => {
+    const file = values.file?.[0];
+    if (!file) return;
+    upload.mutate(
+      { file, caption: values.caption.trim() },
+      {
+        onSuccess: () => {
+          // The native reset empties the file picker itself; the form's state follows.
+          formRef.current?.reset();
+          reset();
+        },
+      },
+    );
+  });
+
+  const serverFields = upload.error instanceof ApiError ? upload.error.fields : {};
+  const fileError = errors.file?.message ?? serverFields.photo;
+  const captionError = errors.caption?.message ?? serverFields.caption;
+
+  return (
+    <form ref={formRef} onSubmit={onSubmit} noValidate aria-label="Add a photo" className="flex flex-col gap-4">
+      <div className="flex flex-col gap-1">
+        <label htmlFor={`${id}-file`} className="font-semibold">
+          Photo
+        </label>
+        <input
+          id={`${id}-file`}
+          type="file"
+          accept={PHOTO_TYPES.join(',')}
+          capture="environment"
+          aria-invalid={fileError ? true : undefined}
+          aria-describedby={[`${id}-privacy`, fileError ? `${id}-file-error` : null].filter(Boolean).join(' ')}
+          className={FILE_INPUT_CLASS}
+          {...register('file', { validate: checkPhoto })}
+        />
+        {fileError && <FieldError id={`${id}-file-error`}>{fileError}</FieldError>}
+      </div>
+      <div className="flex flex-col gap-1">
+        <label htmlFor={`${id}-caption`} className="font-semibold">
+          Caption (optional)
+        </label>
+        <input
+          id={`${id}-caption`}
+          aria-invalid={captionError ? true : undefined}
+          aria-describedby={captionError ? `${id}-caption-error` : undefined}
+          className={`${CONTROL} max-w-md`}
+          {...register('caption', { maxLength: { value: 300, message: 'The caption must be at most 300 characters.' } })}
+        />
+        {captionError && <FieldError id={`${id}-caption-error`}>{captionError}</FieldError>}
+      </div>
+      <div>
+        <UploadButton pending={upload.isPending} label="Add photo" pendingLabel="Uploading…" />
+      </div>
+      <p id={`${id}-privacy`} className="text-sm text-loam-soft">
+        Location and camera details are removed from photos when they are saved.
+      </p>
+      {upload.isSuccess && (
+        <Notice tone="success" title="Photo added" live="status">
+          It is in the photos above and in the planting’s log.
+        </Notice>
+      )}
+      {upload.isError && (
+        <Notice tone="error" title="The photo was not added" live="alert">
+          {mutationProblem(upload.error, 'the chosen photo is kept')}
+        </Notice>
+      )}
+    </form>
+  );
+}
+
 export function PlantingPhotos({ gardenId, plantingId, canEdit }: { gardenId: number; plantingId: number; canEdit: boolean }) {
   const photos = usePhotos(gardenId, plantingId);
-  const upload = useUploadPhoto(gardenId, plantingId);
-  const [file, setFile] = useState<File | null>(null);
-  const [caption, setCaption] = useState('');
-
   return (
     <div className="flex flex-col gap-3">
       {photos.isPending && <Loading label="Loading photos…" />}
@@ -56,34 +151,7 @@ export function PlantingPhotos({ gardenId, plantingId, canEdit }: { gardenId: nu
           ))}
         </ul>
       )}
-      {canEdit && (
-        <form
-          className="flex flex-col gap-2"
-          onSubmit={(e) => {
-            e.preventDefault();
-            if (file) upload.mutate({ file, caption }, { onSuccess: () => { setFile(null); setCaption(''); e.currentTarget?.reset(); } });
-          }}
-        >
-          <label className="flex flex-col gap-1">
-            <span className="font-semibold">Photo</span>
-            <input type="file" accept="image/jpeg,image/png,image/webp" capture="environment" onChange={(e) => setFile(e.target.files?.[0] ?? null)} className="min-h-11" />
-          </label>
-          <label className="flex flex-1 flex-col gap-1">
-            <span className="font-semibold">Caption (optional)</span>
-            <input value={caption} onChange={(e) => setCaption(e.target.value)} className={CONTROL} />
-          </label>
-          <Button type="submit" variant="quiet" disabled={!file || upload.isPending}>
-            <ImagePlus className="size-5" aria-hidden="true" />
-            {upload.isPending ? 'Uploading…' : 'Add photo'}
-          </Button>
-        </form>
-      )}
-      {upload.isError && (
-        <Notice tone="error" title="The photo was not added" live="alert">
-          {upload.error.message}
-        </Notice>
-      )}
-      {canEdit && <p className="text-sm text-loam-soft">Location and camera details are removed from photos when they are saved.</p>}
+      {canEdit && <PhotoUploadForm gardenId={gardenId} plantingId={plantingId} />}
     </div>
   );
 }

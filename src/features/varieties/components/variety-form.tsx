@@ -1,11 +1,15 @@
 import { useForm } from 'react-hook-form';
+import type { FieldErrors, Resolver } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import type { z } from 'zod';
 import { CROP_LIBRARY } from '#shared/crops/library';
 import { DTM_FROM, DTM_FROM_WORDS, RATING_WORDS, TRAIT_WORDS, VARIETY_TRAITS, varietyCreateSchema } from '#shared/schemas/varieties';
 import type { VarietyCreateInput, VarietyDto } from '#shared/schemas/varieties';
 import type { DisplayUnit } from '#shared/schemas/gardens';
+import { unitSystemOf } from '#shared/units/measures';
+import type { UnitSystem } from '#shared/units/measures';
 import { applyServerFieldErrors } from '@/lib/form-errors';
+import { mutationProblem } from '@/lib/problems';
 import { changedValues } from '@/lib/changed-values';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
@@ -13,6 +17,7 @@ import { FieldError, TextField } from '@/components/ui/text-field';
 import { useCreateVariety } from '@/features/varieties/api/create-variety';
 import { useUpdateVariety } from '@/features/varieties/api/update-variety';
 import { targetWords } from '@/features/varieties/components/target-words';
+import { MEASURE_FIELDS, measureProblem, measureUnit, shownValue, storedValue } from '@/features/varieties/utils/variety-measures';
 
 type FormInput = z.input<typeof varietyCreateSchema>;
 const numberOrNull = (v: unknown) => (v === '' || v === undefined || v === null ? null : Number(v));
@@ -24,9 +29,34 @@ const EMPTY: FormInput = {
   traits: [], containerFriendly: false, sunHours: null, waterCmPerWeek: null, sowDepthCm: null, spacingCm: null, thinSpacingCm: null, gddTargetOverrideC: null, notes: '',
 };
 
-function valuesOf(v: VarietyDto): FormInput {
+/** The form holds lengths as typed (inches in a °F garden); these two convert at its edges. */
+function withMeasures<T extends Partial<Record<(typeof MEASURE_FIELDS)[number], unknown>>>(values: T, convert: (n: number | null) => number | null): T {
+  const out = { ...values };
+  for (const f of MEASURE_FIELDS) out[f] = convert((values[f] ?? null) as number | null) as T[typeof f];
+  return out;
+}
+
+function valuesOf(v: VarietyDto, system: UnitSystem): FormInput {
   const { id: _id, crop, guidance: _guidance, gddTarget: _target, gddTargetBasis: _basis, ...fields } = v;
-  return { ...fields, cropKey: crop.key };
+  return withMeasures({ ...fields, cropKey: crop.key }, (cm) => shownValue(cm, system));
+}
+
+/**
+ * Checks lengths in the unit typed, so a °F garden's message reads in inches, then the whole
+ * variety against the shared schema in the centimetres it is stored in.
+ */
+function varietyResolver(system: UnitSystem): Resolver<FormInput, unknown, VarietyCreateInput> {
+  const schema = zodResolver(varietyCreateSchema);
+  return async (values, context, options) => {
+    const result = await schema(withMeasures(values, (n) => storedValue(n, system)), context, options);
+    const measureErrors: FieldErrors<FormInput> = {};
+    for (const f of MEASURE_FIELDS) {
+      const message = measureProblem(f, (values[f] ?? null) as number | null, system);
+      if (message) measureErrors[f] = { type: 'range', message };
+    }
+    if (!Object.keys(measureErrors).length) return result;
+    return { values: {}, errors: { ...result.errors, ...measureErrors } };
+  };
 }
 
 /** Adds a variety, or with `variety` edits that one and sends only the fields that changed. */
@@ -39,7 +69,7 @@ export function VarietyForm({
 }: {
   gardenId: number;
   variety?: VarietyDto;
-  /** How the grower's own degree-day target is shown while editing. */
+  /** The garden's units: lengths are typed in inches or cm, the grower's own target shown in °F- or °C-days. */
   units?: DisplayUnit;
   onSaved: () => void;
   onCancel?: () => void;
@@ -47,9 +77,10 @@ export function VarietyForm({
   const create = useCreateVariety(gardenId);
   const update = useUpdateVariety(gardenId, variety?.id ?? 0);
   const mutation = variety ? update : create;
+  const system = unitSystemOf(units);
   const { register, handleSubmit, formState, setError } = useForm<FormInput, unknown, VarietyCreateInput>({
-    resolver: zodResolver(varietyCreateSchema),
-    defaultValues: variety ? valuesOf(variety) : EMPTY,
+    resolver: varietyResolver(system),
+    defaultValues: variety ? valuesOf(variety, system) : EMPTY,
   });
   const e = formState.errors;
   const num = (name: Parameters<typeof register>[0]) => register(name, { setValueAs: numberOrNull });
@@ -109,16 +140,16 @@ export function VarietyForm({
         </div>
         {e.traits?.message && <FieldError>{e.traits.message}</FieldError>}
       </fieldset>
-      <TextField label="Sowing depth" unit="cm" inputMode="decimal" error={e.sowDepthCm?.message} {...num('sowDepthCm')} />
-      <TextField label="Spacing" unit="cm" inputMode="decimal" error={e.spacingCm?.message} {...num('spacingCm')} />
-      <TextField label="Thin to" unit="cm" inputMode="decimal" error={e.thinSpacingCm?.message} {...num('thinSpacingCm')} />
+      <TextField label="Sowing depth" unit={measureUnit('sowDepthCm', system)} inputMode="decimal" error={e.sowDepthCm?.message} {...num('sowDepthCm')} />
+      <TextField label="Spacing" unit={measureUnit('spacingCm', system)} inputMode="decimal" error={e.spacingCm?.message} {...num('spacingCm')} />
+      <TextField label="Thin to" unit={measureUnit('thinSpacingCm', system)} inputMode="decimal" error={e.thinSpacingCm?.message} {...num('thinSpacingCm')} />
       <TextField label="Sun" unit="h a day" inputMode="decimal" error={e.sunHours?.message} {...num('sunHours')} />
-      <TextField label="Water" unit="cm a week" inputMode="decimal" error={e.waterCmPerWeek?.message} {...num('waterCmPerWeek')} />
+      <TextField label="Water" unit={measureUnit('waterCmPerWeek', system)} inputMode="decimal" error={e.waterCmPerWeek?.message} {...num('waterCmPerWeek')} />
       <TextField label="Notes" error={e.notes?.message} {...register('notes')} />
       {variety && variety.gddTargetOverrideC !== null && (
         <p className="text-sm text-loam-soft sm:col-span-2">Your degree-day target: {targetWords(variety, units)}.</p>
       )}
-      {mutation.isError && !Object.keys(e).length && <div className="sm:col-span-2"><Notice tone="error" live="alert">{mutation.error.message}</Notice></div>}
+      {mutation.isError && !Object.keys(e).length && <div className="sm:col-span-2"><Notice tone="error" live="alert">{mutationProblem(mutation.error)}</Notice></div>}
       <div className="flex flex-wrap gap-2">
         <Button type="submit" disabled={formState.isSubmitting}>{variety ? 'Save changes' : 'Save variety'}</Button>
         {onCancel && <Button variant="quiet" onClick={onCancel}>Cancel</Button>}

@@ -1,10 +1,10 @@
 import type { WeatherResponse } from '#shared/schemas/weather';
 import { ChartLegend } from '@/components/ui/chart-legend';
 import type { LegendItem } from '@/components/ui/chart-legend';
-import { formatTemp } from '@/lib/format';
+import { formatFullRange, formatTemp } from '@/lib/format';
 import { lazyPart } from '@/lib/lazy-part';
 import { numberThresholds } from '@/features/weather/utils/chart-series';
-import { formatCount, formatDayRange } from '@/features/weather/utils/format-weather';
+import { formatCount } from '@/features/weather/utils/format-weather';
 
 // Recharts is large: it loads with this component, in its own chunk, only when a chart is shown.
 const WeatherChart = lazyPart(() => import('@/features/weather/components/weather-chart').then((m) => m.WeatherChart), {
@@ -23,6 +23,9 @@ const LEGEND: LegendItem[] = [
   { swatch: <line x1="14" y1="0" x2="14" y2="12" className="stroke-loam" strokeWidth="2" />, words: 'Vertical line: today' },
 ];
 
+// The threshold lines' colours (weather-chart.tsx THRESHOLD_COLOURS), here as classes so the list needs no Recharts chunk.
+const THRESHOLD_TEXT: Record<WeatherResponse['thresholds'][number]['kind'], string> = { base: 'text-leaf', upper: 'text-ember', 'bolt-heat': 'text-clay' };
+const THRESHOLD_STROKE: Record<WeatherResponse['thresholds'][number]['kind'], string> = { base: 'stroke-leaf', upper: 'stroke-ember', 'bolt-heat': 'stroke-clay' };
 
 function GapList({ gaps }: { gaps: WeatherResponse['gaps'] }) {
   if (!gaps.length) return <p className="text-sm text-loam-soft">No missing days in this period.</p>;
@@ -32,7 +35,7 @@ function GapList({ gaps }: { gaps: WeatherResponse['gaps'] }) {
       <ul className="list-disc pl-5">
         {gaps.map((gap) => (
           <li key={gap.from}>
-            {formatDayRange(gap.from, gap.to)} ({formatCount(gap.days, 'day', 'days')})
+            {formatFullRange(gap.from, gap.to)} ({formatCount(gap.days, 'day', 'days')})
           </li>
         ))}
       </ul>
@@ -55,12 +58,17 @@ function ThresholdList({ weather }: { weather: WeatherResponse }) {
   }
   return (
     <div className="text-sm">
-      <p className="font-semibold">Dotted lines across the chart: thresholds of crops in the ground</p>
+      <p className="font-semibold">Dotted lines across the chart: thresholds of crops in the ground, numbered at the right-hand end</p>
       <ul>
         {numberThresholds(weather.thresholds).map((t) => (
-          <li key={`${t.kind}-${t.label}`}>
-            <span className="inline-block w-5 font-semibold tabular-nums">{t.key}</span>
-            {t.label}: {formatTemp(t.value, weather.unit)}
+          <li key={`${t.kind}-${t.label}`} className="flex items-baseline gap-1.5">
+            <span className={`inline-block w-5 shrink-0 font-bold tabular-nums ${THRESHOLD_TEXT[t.kind]}`}>{t.key}</span>
+            <svg width="20" height="8" viewBox="0 0 20 8" aria-hidden="true" className="shrink-0">
+              <line x1="0" y1="4" x2="20" y2="4" className={THRESHOLD_STROKE[t.kind]} strokeWidth="2" strokeDasharray="1 4" />
+            </svg>
+            <span>
+              {t.label}: {formatTemp(t.value, weather.unit)}
+            </span>
           </li>
         ))}
       </ul>
@@ -72,7 +80,7 @@ export function WeatherChartPanel({ weather }: { weather: WeatherResponse }) {
   return (
     <figure aria-labelledby="weather-chart-caption" className="flex flex-col gap-3 rounded-lg border border-line bg-paper-raised p-3 sm:p-5">
       <figcaption id="weather-chart-caption" className="font-bold">
-        Daily highs and lows in °{weather.unit}, {formatDayRange(weather.from, weather.to)}
+        Daily highs and lows in °{weather.unit}, {formatFullRange(weather.from, weather.to)}
         <span className="sr-only">. The same days are listed in the table below.</span>
       </figcaption>
       <div className="min-h-64 w-full min-w-0">
