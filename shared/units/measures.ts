@@ -28,9 +28,10 @@ export function unitSystemOf(unit: TempUnit): UnitSystem {
  * - `bed`: a bed's length or width, stored in m, shown in m or ft;
  * - `spacing`: spacing and sowing depth, stored in cm, shown in cm or in;
  * - `area`: stored in m², shown in m² or sq ft;
- * - `mass`: a harvest, stored in kg, shown in kg or lb.
+ * - `mass`: a harvest, stored in kg, shown in kg or lb;
+ * - `elevation`: a garden's height above sea level, stored in m, shown in whole m or ft.
  */
-export type MeasureKind = 'bed' | 'spacing' | 'area' | 'mass';
+export type MeasureKind = 'bed' | 'spacing' | 'area' | 'mass' | 'elevation';
 
 interface Shown {
   /** The unit's symbol as printed after a figure. */
@@ -46,6 +47,7 @@ const UNITS: Record<MeasureKind, Record<UnitSystem, Shown>> = {
   spacing: { metric: { symbol: 'cm', perStored: 1, digits: 1 }, us: { symbol: 'in', perStored: 1 / CM_PER_INCH, digits: 1 } },
   area: { metric: { symbol: 'm²', perStored: 1, digits: 1 }, us: { symbol: 'sq ft', perStored: 1 / M2_PER_SQUARE_FOOT, digits: 0 } },
   mass: { metric: { symbol: 'kg', perStored: 1, digits: 2 }, us: { symbol: 'lb', perStored: 1 / KG_PER_POUND, digits: 2 } },
+  elevation: { metric: { symbol: 'm', perStored: 1, digits: 0 }, us: { symbol: 'ft', perStored: 1 / M_PER_FOOT, digits: 0 } },
 };
 
 /** The symbol a field's value is typed and shown in: "ft", "cm", "sq ft", "lb". */

@@ -2,6 +2,7 @@ import type { DisplayUnit, GardenDto, Role } from '#shared/schemas/gardens';
 import type { BoltLevelOrNone, MaturityBasisKind } from '#shared/schemas/progress';
 import type { WeatherDayDto } from '#shared/schemas/weather';
 import * as dates from '#shared/format/dates';
+import { formatMeasure, unitSystemOf } from '#shared/units/measures';
 
 export const ROLE_WORDS: Record<Role, string> = {
   owner: 'Owner',
@@ -42,8 +43,9 @@ export function formatLocation(garden: Pick<GardenDto, 'latitude' | 'longitude'>
   return `${formatLatitude(garden.latitude)}, ${formatLongitude(garden.longitude)}`;
 }
 
-export function formatElevation(elevationM: number | null): string | null {
-  return elevationM === null ? null : `${whole.format(elevationM)} m`;
+/** "256 m" in a °C garden, "840 ft" in a °F one (shared/units/measures.ts). */
+export function formatElevation(elevationM: number | null, unit: DisplayUnit = 'C'): string | null {
+  return elevationM === null ? null : formatMeasure('elevation', elevationM, unitSystemOf(unit));
 }
 
 /** "3 seconds", "1 minute", "5 minutes" — rounded up so the grower never retries too early. */
@@ -122,6 +124,11 @@ export function formatFullRange(from: string, to: string): string {
 /** "14 Jun 2026, 06:10": an instant in the garden's own time zone. */
 export function formatInstant(iso: string, timeZone: string): string {
   return dates.instant(iso, timeZone, readerLocales());
+}
+
+/** "14 Jun 2026, 06:10" in the browser's own time zone, for what belongs to no garden (the mailbox). */
+export function formatLocalInstant(iso: string): string {
+  return formatInstant(iso, Intl.DateTimeFormat().resolvedOptions().timeZone);
 }
 
 export const BOLT_WORDS: Record<BoltLevelOrNone, string> = {

@@ -1,4 +1,4 @@
-import { describe, expect, it } from 'vitest';
+import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
 import { parseRetryAfter } from '@/lib/api-client';
 import { formatDayMonth, formatDayWindow, formatDegreeDays, formatElevation, formatHeat, formatLocation, formatReady, formatTemp, formatWait } from '@/lib/format';
 import { parseId } from '@/lib/ids';
@@ -36,10 +36,16 @@ describe('wording and units', () => {
   it('when elevation is known, then it carries metres', () => {
     expect(formatElevation(1520)).toBe('1,520 m');
     expect(formatElevation(null)).toBeNull();
+    // 1 ft = 0.3048 m exactly (NIST Handbook 44, Appendix C): 1,520 m is 4,987 ft.
+    expect(formatElevation(1520, 'F')).toBe('4,987 ft');
   });
 });
 
 describe('heat and dates', () => {
+  // This file runs without a DOM; the reader's languages are those of an en-US browser.
+  beforeEach(() => vi.stubGlobal('navigator', { languages: ['en-US'] }));
+  afterEach(() => vi.unstubAllGlobals());
+
   it('when degree days are shown, then they carry their one unit and whole numbers, or tenths for a single day', () => {
     expect(formatDegreeDays(1204.4, 'F')).toBe('1,204 °F-days');
     expect(formatDegreeDays(12.44, 'C', 1)).toBe('12.4 °C-days');

@@ -23,7 +23,8 @@ describe('garden settings', () => {
     expect(screen.queryByRole('radio')).toBeNull();
     expect(screen.queryByRole('button', { name: /save/i })).toBeNull();
     expect(screen.getByText('44.52° N, 72.81° W')).toBeTruthy();
-    expect(screen.getByText('210 m')).toBeTruthy();
+    // A °F garden reads its elevation in feet: 210 m is 689 ft (1 ft = 0.3048 m).
+    expect(screen.getByText('689 ft')).toBeTruthy();
     expect(screen.getByText('°F (Fahrenheit)')).toBeTruthy();
   });
 

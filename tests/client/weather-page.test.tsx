@@ -21,7 +21,7 @@ function aWeather(overrides: Partial<WeatherResponse> = {}): WeatherResponse {
     today: '2026-05-20',
     days: [
       { date: '2026-05-17', tmax: 68.2, tmin: 45.1, source: 'observed' },
-      { date: '2026-05-18', tmax: 66.5, tmin: -2.5, source: 'filled', note: 'Linear interpolation between 2026-05-17 and 2026-05-19' },
+      { date: '2026-05-18', tmax: 66.5, tmin: -2.5, source: 'filled', note: 'Linear interpolation between the readings of May 17 and May 19' },
       { date: '2026-05-19', tmax: 64.8, tmin: 41, source: 'imported' },
       { date: '2026-05-20', tmax: 71.3, tmin: 50.2, source: 'forecast' },
       { date: '2026-05-21', tmax: 74, tmin: 52.6, source: 'forecast' },
@@ -84,12 +84,12 @@ describe('weather page', () => {
     expect(within(row('Mon, May 18')).getByText('Estimated (filled)')).toBeTruthy();
     expect(within(row('Mon, May 18')).getByText('−2.5 °F')).toBeTruthy();
     // The note shows in its own column on wide screens and under the source on phones.
-    expect(within(row('Mon, May 18')).getAllByText(/^Linear interpolation between 2026-05-17 and 2026-05-19$/)).toHaveLength(2);
+    expect(within(row('Mon, May 18')).getAllByText(/^Linear interpolation between the readings of May 17 and May 19$/)).toHaveLength(2);
     expect(within(row('Tue, May 19')).getByText('Your station')).toBeTruthy();
     expect(within(row('Wed, May 20')).getByText('Forecast')).toBeTruthy();
     expect(row('Wed, May 20').getAttribute('aria-current')).toBe('date');
 
-    expect(screen.getByText('May 14, 2026 – May 16, 2026 (3 days)')).toBeTruthy();
+    expect(screen.getByText('May 14–16, 2026 (3 days)')).toBeTruthy();
     expect(screen.getByText('Base temperature – Lettuce: 40.0 °F')).toBeTruthy();
     expect(screen.getByText('Weather history: 64 % of 11 years fetched…')).toBeTruthy();
     expect(screen.getByRole('progressbar', { name: 'Weather history fetched' }).getAttribute('aria-valuenow')).toBe('64');
@@ -112,7 +112,7 @@ describe('weather page', () => {
     expect(await screen.findByText('No location yet')).toBeTruthy();
     expect(within(screen.getByRole('main')).getByRole('link', { name: 'Garden settings' }).getAttribute('href')).toBe('/g/1/settings');
     expect(screen.queryByRole('button', { name: 'Refresh now' })).toBeNull();
-    expect(screen.getByText('No temperatures yet for May 14, 2026 – May 21, 2026.')).toBeTruthy();
+    expect(screen.getByText('No temperatures yet for May 14–21, 2026.')).toBeTruthy();
     expect(await screen.findByText('No fetches yet.')).toBeTruthy();
   });
 

@@ -57,7 +57,7 @@ export function AlertCard({ gardenId, timeZone, alert, canAcknowledge }: AlertCa
       </p>
       {alert.caution && <Caution text={alert.caution} />}
       <p className="text-sm text-loam-soft">
-        {formatAlertSpan(alert)} · {alertHistory(alert, timeZone).join(' · ')}
+        {formatAlertSpan(alert, timeZone)} · {alertHistory(alert, timeZone).join(' · ')}
       </p>
       {canAcknowledge && alert.status === 'open' && <AcknowledgeButton gardenId={gardenId} alertId={alert.id} title={alert.title} />}
     </article>

@@ -1,23 +1,20 @@
 import type { AlertDto } from '#shared/schemas/alerts';
-import { formatDayMonth, formatDayWindow } from '@/lib/format';
-
-/** The garden-local calendar date of an instant, 'YYYY-MM-DD'. */
-function localDate(instant: string, timeZone: string): string {
-  return new Intl.DateTimeFormat('en-CA', { timeZone, year: 'numeric', month: '2-digit', day: '2-digit' }).format(new Date(instant));
-}
+import { formatDayInContext, formatDayMonth, formatDayWindow, formatFullDate, formatFullRange } from '@/lib/format';
+import { dayIn, todayIn } from '@/lib/garden-day';
 
 /** "2 Jun" in the garden's own calendar; the year is added when it is not the current one. */
 function formatAlertDay(instant: string, timeZone: string): string {
-  const date = localDate(instant, timeZone);
-  const thisYear = localDate(new Date().toISOString(), timeZone).slice(0, 4);
-  const year = date.slice(0, 4);
-  return year === thisYear ? formatDayMonth(date) : `${formatDayMonth(date)} ${year}`;
+  return formatDayInContext(dayIn(instant, timeZone), todayIn(timeZone));
 }
 
-/** "For 9–12 Jun", "On 9 Jun", or "From 9 Jun" while the alert has no end date. */
-export function formatAlertSpan({ startsOn, endsOn }: Pick<AlertDto, 'startsOn' | 'endsOn'>): string {
-  if (!endsOn) return `From ${formatDayMonth(startsOn)}`;
-  return endsOn === startsOn ? `On ${formatDayMonth(startsOn)}` : `For ${formatDayWindow(startsOn, endsOn)}`;
+/** "For 9–12 Jun", "On 9 Jun", or "From 9 Jun" while the alert has no end date; with years when not this year's. */
+export function formatAlertSpan({ startsOn, endsOn }: Pick<AlertDto, 'startsOn' | 'endsOn'>, timeZone: string): string {
+  const year = todayIn(timeZone).slice(0, 4);
+  const thisYear = startsOn.startsWith(year) && (!endsOn || endsOn.startsWith(year));
+  const day = thisYear ? formatDayMonth : formatFullDate;
+  if (!endsOn) return `From ${day(startsOn)}`;
+  if (endsOn === startsOn) return `On ${day(startsOn)}`;
+  return `For ${(thisYear ? formatDayWindow : formatFullRange)(startsOn, endsOn)}`;
 }
 
 /** "Raised 2 Jun", "Acknowledged 3 Jun by Mara Quill", "Resolved 5 Jun": each step the alert has taken. */

@@ -1,4 +1,5 @@
 import { useState } from 'react';
+import { Link } from 'react-router-dom';
 import { Box, Fence, LayoutGrid, Pencil, Rows3, Square } from 'lucide-react';
 import { BED_KIND_WORDS } from '#shared/schemas/beds';
 import type { BedDto, BedKind } from '#shared/schemas/beds';
@@ -7,14 +8,26 @@ import { ConfirmDelete } from '@/components/ui/confirm-delete';
 import { useDeleteBed } from '@/features/beds/api/delete-bed';
 import { BedForm } from '@/features/beds/components/bed-form';
 import { countOf } from '#shared/format/count-words';
+import { formatMeasure, measureSymbol, toShown } from '#shared/units/measures';
+import type { UnitSystem } from '#shared/units/measures';
 
 const ICON: Record<BedKind, typeof Box> = { bed: Square, 'raised-bed': LayoutGrid, plot: Fence, row: Rows3, container: Box };
-const size = (n: number | null) => (n === null ? '—' : `${n} m`);
+const figure = new Intl.NumberFormat('en', { maximumFractionDigits: 2 });
 
-export function BedCard({ gardenId, bed: b, canEdit }: { gardenId: number; bed: BedDto; canEdit: boolean }) {
+/** "10 × 4 ft", "3.05 × 1.22 m", or "10 ft × —" while one side is unknown: stored metres in the garden's unit. */
+function formatSize(lengthM: number | null, widthM: number | null, system: UnitSystem): string {
+  if (lengthM !== null && widthM !== null) {
+    return `${figure.format(toShown('bed', lengthM, system))} × ${figure.format(toShown('bed', widthM, system))} ${measureSymbol('bed', system)}`;
+  }
+  const side = (m: number | null) => (m === null ? '—' : formatMeasure('bed', m, system));
+  return `${side(lengthM)} × ${side(widthM)}`;
+}
+
+/** A bed in the garden's units (`system`), with a way to its plantings. */
+export function BedCard({ gardenId, bed: b, canEdit, system }: { gardenId: number; bed: BedDto; canEdit: boolean; system: UnitSystem }) {
   const [editing, setEditing] = useState(false);
   const remove = useDeleteBed(gardenId, b.id);
-  if (editing) return <BedForm gardenId={gardenId} bed={b} onDone={() => setEditing(false)} />;
+  if (editing) return <BedForm gardenId={gardenId} bed={b} system={system} onDone={() => setEditing(false)} />;
   const Icon = ICON[b.kind];
   return (
     <article className="flex h-full flex-col gap-1 rounded-lg border border-line bg-paper-raised p-4">
@@ -23,12 +36,15 @@ export function BedCard({ gardenId, bed: b, canEdit }: { gardenId: number; bed: 
       </h2>
       <p className="text-sm text-loam-soft">{BED_KIND_WORDS[b.kind]}</p>
       <p>
-        {size(b.lengthM)} × {size(b.widthM)}
-        {b.areaM2 !== null && ` · ${b.areaM2} m²`}
+        {formatSize(b.lengthM, b.widthM, system)}
+        {b.areaM2 !== null && ` · ${formatMeasure('area', b.areaM2, system)}`}
       </p>
       <p>
         {b.activePlantings} growing or planned now · {b.plantingsOnRecord} on record in all
       </p>
+      <Link to={`/g/${gardenId}/plantings?bed=${b.id}`} className="inline-flex min-h-11 items-center self-start font-semibold underline">
+        Plantings in {b.name}
+      </Link>
       {b.notes && <p className="text-sm">{b.notes}</p>}
       {canEdit && (
         <div className="mt-auto flex flex-wrap gap-2 pt-2">

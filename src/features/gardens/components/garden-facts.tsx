@@ -22,7 +22,7 @@ const NOT_SET = <span className="italic text-loam-soft">Not set</span>;
 /** The garden's settings as plain facts; used wherever they are shown but not edited. */
 export function GardenFacts({ garden, showName = false }: { garden: GardenDto; showName?: boolean }) {
   const location = formatLocation(garden);
-  const elevation = formatElevation(garden.elevationM);
+  const elevation = formatElevation(garden.elevationM, garden.units);
   const hemisphere = location ? HEMISPHERE_SENTENCES[garden.hemisphere] : null;
 
   return (

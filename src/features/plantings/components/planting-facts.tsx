@@ -4,7 +4,7 @@ import type { DtmFrom } from '#shared/schemas/varieties';
 import { METHOD_WORDS, PLANTING_UNIT_WORDS, STAGE_FIELDS, STAGE_WORDS } from '#shared/schemas/plantings';
 import { StatusBadge } from '@/features/plantings/components/status-badge';
 import { AttentionFlags } from '@/features/plantings/components/attention-flags';
-import { formatDay } from '@/features/plantings/components/format-day';
+import { formatFullDate } from '@/lib/format';
 
 export function PlantingFacts({ planting: p }: { planting: PlantingDto }) {
   const rows: [string, React.ReactNode][] = [
@@ -21,8 +21,8 @@ export function PlantingFacts({ planting: p }: { planting: PlantingDto }) {
     ['Seed lot', p.seedLot?.label ?? '—'],
     ['Days to maturity', p.variety.dtmDays === null ? '—' : `${p.variety.dtmDays} days ${DTM_FROM_WORDS[p.variety.dtmFrom as DtmFrom]}`],
     ['Season', p.season ?? '—'],
-    ...STAGE_FIELDS.filter((f) => p[f]).map((f): [string, React.ReactNode] => [STAGE_WORDS[f], formatDay(p[f]!)]),
-    ['Next', p.nextEvent ? `${p.nextEvent.label}${p.nextEvent.on ? ` ${formatDay(p.nextEvent.on)}` : ''}` : '—'],
+    ...STAGE_FIELDS.filter((f) => p[f]).map((f): [string, React.ReactNode] => [STAGE_WORDS[f], formatFullDate(p[f]!)]),
+    ['Next', p.nextEvent ? `${p.nextEvent.label}${p.nextEvent.on ? ` ${formatFullDate(p.nextEvent.on)}` : ''}` : '—'],
   ];
   return (
     <dl className="grid grid-cols-[auto_1fr] gap-x-4 gap-y-2 rounded-lg border border-line bg-paper-raised p-4">

@@ -15,6 +15,7 @@ import {
 } from '#shared/schemas/plantings';
 import type { PlantingCreateInput, PlantingDto } from '#shared/schemas/plantings';
 import { applyServerFieldErrors } from '@/lib/form-errors';
+import { mutationProblem } from '@/lib/problems';
 import { changedValues } from '@/lib/changed-values';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
@@ -136,7 +137,7 @@ export function PlantingForm({
     <form onSubmit={onSubmit} noValidate className="flex flex-col gap-4" aria-label={planting ? 'Edit planting' : 'New planting'}>
       {mutation.isError && !Object.keys(errors).length && (
         <Notice tone="error" title="The planting was not saved" live="alert">
-          {mutation.error.message}
+          {mutationProblem(mutation.error)}
         </Notice>
       )}
       <div className="grid gap-4 sm:grid-cols-2">

@@ -1,12 +1,14 @@
 import { Camera, Droplets, Flower2, Leaf, NotebookPen, Scissors, ShoppingBasket } from 'lucide-react';
-import { HARVEST_UNIT_WORDS, LOG_KIND_WORDS } from '#shared/schemas/plantings';
+import { LOG_KIND_WORDS } from '#shared/schemas/plantings';
 import type { LogEntryDto, LogKind } from '#shared/schemas/plantings';
+import type { UnitSystem } from '#shared/units/measures';
 import { ConfirmDelete } from '@/components/ui/confirm-delete';
 import { Loading } from '@/components/ui/loading';
-import { Notice } from '@/components/ui/notice';
+import { LoadProblem } from '@/components/ui/load-problem';
 import { useDeleteLogEntry } from '@/features/plantings/api/delete-log-entry';
 import { usePlantingLog } from '@/features/plantings/api/get-planting-log';
-import { formatDay } from '@/features/plantings/components/format-day';
+import { formatFullDate } from '@/lib/format';
+import { formatHarvest } from '@/features/plantings/components/format-harvest';
 
 const ICONS: Record<LogKind, typeof Leaf> = {
   watered: Droplets,
@@ -18,17 +20,25 @@ const ICONS: Record<LogKind, typeof Leaf> = {
   photo: Camera,
 };
 
-function Entry({ gardenId, plantingId, entry: e, canEdit }: { gardenId: number; plantingId: number; entry: LogEntryDto; canEdit: boolean }) {
+interface EntryProps {
+  gardenId: number;
+  plantingId: number;
+  entry: LogEntryDto;
+  canEdit: boolean;
+  system: UnitSystem;
+}
+
+function Entry({ gardenId, plantingId, entry: e, canEdit, system }: EntryProps) {
   const remove = useDeleteLogEntry(gardenId, plantingId, e.id);
   const Icon = ICONS[e.kind];
-  const what = `${LOG_KIND_WORDS[e.kind]} · ${formatDay(e.entryOn)}`;
+  const what = `${LOG_KIND_WORDS[e.kind]} · ${formatFullDate(e.entryOn)}`;
   return (
     <li className="flex flex-wrap gap-3 px-4 py-3">
       <Icon className="mt-0.5 size-5 shrink-0" aria-hidden="true" />
       <div className="min-w-0 flex-1">
         <p>
-          <span className="font-semibold">{LOG_KIND_WORDS[e.kind]}</span> · {formatDay(e.entryOn)}
-          {e.amount !== null && e.amountUnit && ` · ${e.amount} ${HARVEST_UNIT_WORDS[e.amountUnit]}`}
+          <span className="font-semibold">{LOG_KIND_WORDS[e.kind]}</span> · <time dateTime={e.entryOn}>{formatFullDate(e.entryOn)}</time>
+          {e.amount !== null && e.amountUnit && ` · ${formatHarvest(e.amount, e.amountUnit, system)}`}
         </p>
         {e.note && <p className="break-words">{e.note}</p>}
         {e.by && <p className="text-sm text-loam-soft">by {e.by}</p>}
@@ -50,15 +60,16 @@ function Entry({ gardenId, plantingId, entry: e, canEdit }: { gardenId: number; 
   );
 }
 
-export function PlantingLog({ gardenId, plantingId, canEdit }: { gardenId: number; plantingId: number; canEdit: boolean }) {
+/** The planting's log, newest first; `system` is the garden's (harvest masses are shown in it). */
+export function PlantingLog({ gardenId, plantingId, canEdit, system }: Omit<EntryProps, 'entry'>) {
   const log = usePlantingLog(gardenId, plantingId);
   if (log.isPending) return <Loading label="Loading the log…" />;
-  if (log.isError) return <Notice tone="error">{log.error.message}</Notice>;
+  if (log.isError) return <LoadProblem error={log.error} what="the log" onRetry={() => log.refetch()} retrying={log.isFetching} />;
   if (!log.data.items.length) return <p className="text-loam-soft">Nothing logged yet.</p>;
   return (
     <ol className="flex flex-col divide-y divide-line rounded-lg border border-line bg-paper-raised">
       {log.data.items.map((e) => (
-        <Entry key={e.id} gardenId={gardenId} plantingId={plantingId} entry={e} canEdit={canEdit} />
+        <Entry key={e.id} gardenId={gardenId} plantingId={plantingId} entry={e} canEdit={canEdit} system={system} />
       ))}
     </ol>
   );

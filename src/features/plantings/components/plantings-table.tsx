@@ -8,7 +8,7 @@ import { ProgressMeter } from '@/components/ui/progress-meter';
 import { CONTROL } from '@/features/plantings/components/field-styles';
 import { StatusBadge } from '@/features/plantings/components/status-badge';
 import { AttentionFlags } from '@/features/plantings/components/attention-flags';
-import { formatDay } from '@/features/plantings/components/format-day';
+import { formatFullDate } from '@/lib/format';
 
 export interface SortState {
   sort: PlantingSort;
@@ -55,7 +55,7 @@ function NextEvent({ p }: { p: PlantingDto }) {
   return (
     <span>
       {p.nextEvent.label}
-      {p.nextEvent.on ? ` ${formatDay(p.nextEvent.on)}` : ''}
+      {p.nextEvent.on ? ` ${formatFullDate(p.nextEvent.on)}` : ''}
     </span>
   );
 }
@@ -73,7 +73,7 @@ function progressCells(p: PlantingDto) {
   };
 }
 
-const started = (p: PlantingDto) => (p.sownOn ? formatDay(p.sownOn) : p.transplantedOn ? `${formatDay(p.transplantedOn)} (transplanted)` : '—');
+const started = (p: PlantingDto) => (p.sownOn ? formatFullDate(p.sownOn) : p.transplantedOn ? `${formatFullDate(p.transplantedOn)} (transplanted)` : '—');
 
 interface RowProps {
   p: PlantingDto;

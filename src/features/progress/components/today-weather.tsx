@@ -13,7 +13,8 @@ export function TodayWeather({ today }: { today: TodayDto }) {
     const el = strip.current;
     const current = el?.querySelector<HTMLElement>('[aria-current="date"]');
     const before = current?.previousElementSibling as HTMLElement | null | undefined;
-    if (el && before) el.scrollLeft = before.offsetLeft - el.offsetLeft;
+    // Only a strip wider than its box scrolls (a phone); the wide grid shows every day from the first.
+    if (el && before && el.scrollWidth > el.clientWidth) el.scrollLeft = before.offsetLeft - el.offsetLeft;
   }, [today]);
   if (!today.weather.length) return <p>No weather for these days yet.</p>;
   return (
@@ -26,7 +27,7 @@ export function TodayWeather({ today }: { today: TodayDto }) {
             <li
               key={d.date}
               aria-current={isToday ? 'date' : undefined}
-              className={`flex min-w-[7.5rem] flex-col gap-0.5 rounded-md border p-2 text-sm ${isToday ? 'border-2 border-loam bg-paper-raised' : 'border-line bg-paper-raised'}`}
+              className={`flex min-w-[7.5rem] flex-col lg:min-w-0 gap-0.5 rounded-md border p-2 text-sm ${isToday ? 'border-2 border-loam bg-paper-raised' : 'border-line bg-paper-raised'}`}
             >
               <span className="font-semibold">
                 {formatWeekdayDayMonth(d.date)}

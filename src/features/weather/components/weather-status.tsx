@@ -1,7 +1,8 @@
 import { CircleCheck, CircleDashed, Clock, LoaderCircle, TriangleAlert } from 'lucide-react';
 import type { WeatherResponse } from '#shared/schemas/weather';
 import { RefreshWeatherButton } from '@/features/weather/components/refresh-weather-button';
-import { formatCount, formatInstant, formatLongDay } from '@/features/weather/utils/format-weather';
+import { formatCount } from '@/features/weather/utils/format-weather';
+import { formatFullDate, formatInstant } from '@/lib/format';
 
 type History = NonNullable<WeatherResponse['history']>;
 
@@ -12,7 +13,7 @@ function HistoryProgress({ history, today }: { history: History; today: string }
       <p className="flex items-start gap-2">
         <CircleCheck className="mt-0.5 size-5 shrink-0 text-leaf" aria-hidden="true" />
         <span>
-          Weather history: complete, {years} back to {formatLongDay(history.historyFrom ?? history.targetFrom)}.
+          Weather history: complete, {years} back to {formatFullDate(history.historyFrom ?? history.targetFrom)}.
         </span>
       </p>
     );

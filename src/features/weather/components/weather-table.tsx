@@ -1,8 +1,7 @@
 import { useEffect, useRef } from 'react';
 import type { WeatherResponse } from '#shared/schemas/weather';
 import { SourceLabel } from '@/features/weather/components/source-label';
-import { formatTemp } from '@/lib/format';
-import { formatDay } from '@/features/weather/utils/format-weather';
+import { formatTemp, formatWeekdayDayMonth } from '@/lib/format';
 
 const CELL = 'px-1.5 py-2 text-left align-top sm:px-3';
 const HEAD = `${CELL} sticky top-0 z-10 border-b border-line bg-paper-raised`;
@@ -56,7 +55,7 @@ export function WeatherTable({ weather }: { weather: WeatherResponse }) {
                   className="border-b border-line/60 last:border-b-0 aria-[current=date]:bg-paper-sunk aria-[current=date]:font-semibold"
                 >
                   <th scope="row" className={`${CELL} whitespace-nowrap ${isToday ? 'font-semibold' : 'font-normal'}`}>
-                    <time dateTime={day.date}>{formatDay(day.date)}</time>
+                    <time dateTime={day.date}>{formatWeekdayDayMonth(day.date)}</time>
                     {isToday && (
                       <span className="mt-1 block w-fit rounded-sm bg-loam px-1.5 py-0.5 text-xs text-paper-raised sm:mt-0 sm:ml-2 sm:inline">
                         Today
