@@ -13,6 +13,12 @@ import type { Sequelize } from 'sequelize';
 import { AppError } from '../errors';
 
 export const IDEMPOTENCY_TTL_MS = 24 * 60 * 60_000;
+/**
+ * A key still pending after this long belongs to a request that died with its process: a retry
+ * may take it over. Longer than any request runs (the API sheds after 3 s of queueing, uploads
+ * finish well within it).
+ */
+export const PENDING_LEASE_MS = 60_000;
 const KEY = /^[\x21-\x7e]{8,200}$/;
 
 const sha256 = (x: string | Buffer) => createHash('sha256').update(x).digest('hex');
@@ -47,12 +53,12 @@ export function idempotency(db: (req: Parameters<RequestHandler>[0]) => Sequeliz
       const userId = (req.user as { id?: number } | undefined)?.id ?? 0;
       const scope = sha256(`${userId}|${req.method}|${req.baseUrl}${req.path}|${key}`);
       const print = fingerprint(req);
-      const expiresAt = new Date(Date.now() + IDEMPOTENCY_TTL_MS);
+      const leaseEnds = new Date(Date.now() + PENDING_LEASE_MS);
       if (++sweeps % 200 === 0) await sequelize.query('DELETE FROM idempotency_keys WHERE expires_at < UTC_TIMESTAMP(3) LIMIT 1000');
       for (let attempt = 0; ; attempt++) {
         try {
           await sequelize.query('INSERT INTO idempotency_keys (scope_hash, fingerprint, state, expires_at) VALUES (?, ?, ?, ?)', {
-            replacements: [scope, print, 'pending', expiresAt],
+            replacements: [scope, print, 'pending', leaseEnds],
           });
           break;
         } catch (err) {
@@ -87,29 +93,36 @@ export function idempotency(db: (req: Parameters<RequestHandler>[0]) => Sequeliz
   };
 }
 
-/** Keeps a successful answer before sending it; lets go of the key when the request fails. */
+/**
+ * Keeps a successful answer before sending it (for 24 h); lets go of the key when the request
+ * fails. A client that gave up waiting does not release it: the handler still runs to its end,
+ * and the client's retry must meet that answer, never make a second record.
+ */
 function remember(res: Response, sequelize: Sequelize, scope: string) {
   const send = res.json.bind(res);
+  const release = () => sequelize.query('DELETE FROM idempotency_keys WHERE scope_hash = ?', { replacements: [scope] });
+  const keep = (status: number, body: string | null) =>
+    sequelize.query('UPDATE idempotency_keys SET state = ?, status = ?, body = ?, expires_at = ? WHERE scope_hash = ?', {
+      replacements: ['done', status, body, new Date(Date.now() + IDEMPOTENCY_TTL_MS), scope],
+    });
   let settled = false;
   res.json = (body: unknown) => {
     settled = true;
     if (res.statusCode >= 200 && res.statusCode < 300) {
-      sequelize
-        .query('UPDATE idempotency_keys SET state = ?, status = ?, body = ? WHERE scope_hash = ?', { replacements: ['done', res.statusCode, JSON.stringify(body ?? null), scope] })
-        .then(
-          () => send(body),
-          // The record exists; only its replay is lost. Let the key go so a retry is not stuck on 409.
-          () => sequelize.query('DELETE FROM idempotency_keys WHERE scope_hash = ?', { replacements: [scope] }).finally(() => send(body)),
-        );
+      keep(res.statusCode, JSON.stringify(body ?? null)).then(
+        () => send(body),
+        // The record exists; only its replay is lost. Let the key go so a retry is not stuck on 409.
+        () => release().finally(() => send(body)),
+      );
     } else {
-      void sequelize.query('DELETE FROM idempotency_keys WHERE scope_hash = ?', { replacements: [scope] }).finally(() => send(body));
+      void release().finally(() => send(body));
     }
     return res;
   };
+  // An answer sent without res.json (none of the creates do so today): keep its status, or let go.
   res.on('finish', () => {
-    if (!settled) void sequelize.query('DELETE FROM idempotency_keys WHERE scope_hash = ?', { replacements: [scope] }).catch(() => undefined);
-  });
-  res.on('close', () => {
-    if (!settled && !res.writableFinished) void sequelize.query('DELETE FROM idempotency_keys WHERE scope_hash = ?', { replacements: [scope] }).catch(() => undefined);
+    if (settled) return;
+    const done = res.statusCode >= 200 && res.statusCode < 300 ? keep(res.statusCode, null) : release();
+    void done.catch(() => undefined);
   });
 }

@@ -8,7 +8,7 @@ import { AsyncLocalStorage } from 'node:async_hooks';
 import type { NextFunction, Request, Response } from 'express';
 import { DEFAULT_LOCALE, resolveDates } from '#shared/format/dates';
 
-const store = new AsyncLocalStorage<string>();
+const store = new AsyncLocalStorage<{ locale: string; today: string }>();
 const known = new Map<string, string>();
 
 /** The best language of an Accept-Language header that Intl supports (cached per header). */
@@ -30,7 +30,8 @@ export function localeOf(header: string | undefined): string {
       try {
         const [supported] = Intl.DateTimeFormat.supportedLocalesOf([t.tag]);
         if (supported) {
-          hit = supported;
+          // Language, script and region only: extensions (-u-ca-…, -x-…) would make endless cache keys.
+          hit = new Intl.Locale(supported).baseName;
           break;
         }
       } catch {
@@ -44,12 +45,20 @@ export function localeOf(header: string | undefined): string {
 
 /** Express middleware: the rest of the request reads its language through requestLocale(). */
 export function localeContext(req: Request, _res: Response, next: NextFunction) {
-  store.run(localeOf(req.headers['accept-language']), next);
+  // The app's clock (the weather service's, which tests can move) says which year is "this year".
+  const clock = req.app.locals.weather as { now?: () => Date } | undefined;
+  const today = (clock?.now?.() ?? new Date()).toISOString().slice(0, 10);
+  store.run({ locale: localeOf(req.headers['accept-language']), today }, next);
 }
 
 /** The language of the request being answered, or DEFAULT_LOCALE outside one. */
 export function requestLocale(): string {
-  return store.getStore() ?? DEFAULT_LOCALE;
+  return store.getStore()?.locale ?? DEFAULT_LOCALE;
+}
+
+/** The app's UTC day for the request being answered. */
+export function requestToday(): string {
+  return store.getStore()?.today ?? new Date().toISOString().slice(0, 10);
 }
 
 /**
@@ -57,5 +66,5 @@ export function requestLocale(): string {
  * text (shared/format/dates.ts) are worded in the reader's language on the way out.
  */
 export function resolveDateTokens(_key: string, value: unknown): unknown {
-  return typeof value === 'string' && value.includes('⟦') ? resolveDates(value, requestLocale()) : value;
+  return typeof value === 'string' && value.includes('⟦') ? resolveDates(value, requestLocale(), requestToday()) : value;
 }

@@ -9,7 +9,7 @@
 import { createHash } from 'node:crypto';
 import { brotliCompressSync, constants } from 'node:zlib';
 import { resolveDates } from '#shared/format/dates';
-import { requestLocale } from './locale';
+import { requestLocale, requestToday } from './locale';
 import type { Request, Response } from 'express';
 import { localDate } from './local-date';
 
@@ -110,7 +110,7 @@ export class ReadCache {
     if (entry === undefined) {
       this.misses++;
       const made = await make();
-      entry = entryOf(resolveDates(made.json, requestLocale()));
+      entry = entryOf(resolveDates(made.json, requestLocale(), requestToday()));
       if (made.keep) this.set(key, entry);
     } else {
       this.hits++;

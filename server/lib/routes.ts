@@ -19,8 +19,14 @@ export interface RouteSpec {
   path: string;
   access: Access;
   handler: RequestHandler;
-  /** Extra middleware (e.g. rate limiting) that runs after access checks. */
+  /** Extra middleware (e.g. rate limiting, a multipart parse) that runs after access checks. */
   before?: RequestHandler[];
+  /**
+   * Garden POSTs honour Idempotency-Key (lib/idempotency.ts) unless this is false: for a route
+   * that is idempotent by its nature, or that reads its body only in the handler (the key's
+   * fingerprint must see the whole request, so a multipart body is parsed in `before`).
+   */
+  idempotent?: boolean;
 }
 
 export interface RouteTableEntry {
@@ -113,7 +119,7 @@ export function mountRoutes(router: Router, base: string, specs: RouteSpec[], ta
       throw new Error(`Route ${spec.method.toUpperCase()} ${full}: garden routes need a garden role and only they`);
     }
     // Creates in a garden take an Idempotency-Key: a double tap or a retry makes one record.
-    const once = spec.method === 'post' && GARDEN_ROLES.includes(spec.access) ? [idempotency((req) => req.app.locals.sequelize as Sequelize)] : [];
+    const once = spec.method === 'post' && GARDEN_ROLES.includes(spec.access) && spec.idempotent !== false ? [idempotency((req) => req.app.locals.sequelize as Sequelize)] : [];
     router[spec.method](full, ...accessMiddleware(spec.access), ...(spec.before ?? []), ...once, spec.handler);
     table.push({ method: spec.method, path: full, access: spec.access });
   }

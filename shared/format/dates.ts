@@ -12,6 +12,8 @@ export type Locales = string | readonly string[] | undefined;
 export const DEFAULT_LOCALE = 'en-GB';
 
 const cache = new Map<string, Intl.DateTimeFormat>();
+/** Enough for every language and zone in use at once; beyond it the cache starts afresh. */
+const CACHE_MAX = 500;
 
 function listOf(locales: Locales): string[] {
   const list = locales === undefined ? [] : typeof locales === 'string' ? [locales] : [...locales];
@@ -28,6 +30,7 @@ function formatter(locales: Locales, options: Intl.DateTimeFormatOptions, timeZo
   let f = cache.get(key);
   if (!f) {
     f = new Intl.DateTimeFormat(listOf(locales), { ...options, timeZone });
+    if (cache.size >= CACHE_MAX) cache.clear();
     cache.set(key, f);
   }
   return f;
@@ -36,7 +39,10 @@ function formatter(locales: Locales, options: Intl.DateTimeFormatOptions, timeZo
 function asUtc(day: string): Date {
   const m = /^(\d{4})-(\d{2})-(\d{2})$/.exec(day);
   if (!m) throw new RangeError(`Not a calendar day: ${day}`);
-  return new Date(Date.UTC(Number(m[1]), Number(m[2]) - 1, Number(m[3])));
+  const d = new Date(Date.UTC(Number(m[1]), Number(m[2]) - 1, Number(m[3])));
+  // 2001-02-29 would roll over to 1 March: a day that does not exist is an error, not another day.
+  if (d.getUTCMonth() !== Number(m[2]) - 1 || d.getUTCDate() !== Number(m[3])) throw new RangeError(`Not a calendar day: ${day}`);
+  return d;
 }
 
 const DAY_MONTH: Intl.DateTimeFormatOptions = { day: 'numeric', month: 'short' };
@@ -100,8 +106,23 @@ export function rangeToken(from: string, to: string): string {
   return from === to ? dayToken(from) : `⟦${from}/${to}⟧`;
 }
 
-/** The text with every date token worded in these languages. */
-export function resolveDates(text: string, locales: Locales = DEFAULT_LOCALE): string {
+/**
+ * The text with every date token worded in these languages: "14 Jun", or "14 Jun 2025" for a day
+ * outside the year of `today` (the reader's; the server passes its own UTC day). A token that is
+ * not a real day is left as it is.
+ */
+export function resolveDates(text: string, locales: Locales = DEFAULT_LOCALE, today = new Date().toISOString().slice(0, 10)): string {
   if (!text.includes('⟦')) return text;
-  return text.replace(TOKEN, (_m, from: string, to?: string) => (to ? dayRange(from, to, locales) : dayMonth(from, locales)));
+  return text.replace(TOKEN, (whole, from: string, to?: string) => {
+    try {
+      if (!to) return dayInContext(from, today, locales);
+      const sameYear = from.slice(0, 4) === to.slice(0, 4) && from.slice(0, 4) === today.slice(0, 4);
+      return sameYear ? dayRange(from, to, locales) : fullRange(from, to, locales);
+    } catch {
+      return whole;
+    }
+  });
 }
+
+
+

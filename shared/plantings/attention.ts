@@ -26,8 +26,8 @@ export interface AttentionInput {
 export interface AttentionDto {
   /** Harvest expected by `due` and none recorded; `days` past it. */
   overdue: { due: string; days: number } | null;
-  /** Nothing recorded since `lastOn` (null: never), `days` ago. */
-  stale: { lastOn: string | null; days: number } | null;
+  /** Nothing recorded since `lastOn`, `days` ago. (A growing planting always has a start date on record.) */
+  stale: { lastOn: string; days: number } | null;
 }
 
 export const NO_ATTENTION: AttentionDto = { overdue: null, stale: null };

@@ -167,7 +167,12 @@ export const logEntryCreateSchema = z
     kind: z.enum(LOG_KINDS, { error: 'Choose what happened.' }),
     amount: nullableNumber('Amount', 0, 1_000_000).optional(),
     amountUnit: z.enum(HARVEST_UNITS, { error: 'Unknown unit.' }).nullable().optional(),
-    note: z.string({ error: 'The note must be text.' }).trim().max(1000, 'The note must be at most 1000 characters.').optional(),
+    note: z
+      .string({ error: 'The note must be text.' })
+      .trim()
+      .max(1000, 'The note must be at most 1000 characters.')
+      .refine((s) => !/[⟦⟧]/u.test(s), 'The note cannot contain the characters ⟦ and ⟧.')
+      .optional(),
   })
   .superRefine((e, ctx) => {
     if (e.amount != null && !e.amountUnit) ctx.addIssue({ code: 'custom', path: ['amountUnit'], message: 'Give the unit of the amount.' });
@@ -203,7 +208,12 @@ export interface PhotoDto {
 }
 
 export const photoFieldsSchema = z.strictObject({
-  caption: z.string().trim().max(300, 'The caption must be at most 300 characters.').optional(),
+  caption: z
+    .string()
+    .trim()
+    .max(300, 'The caption must be at most 300 characters.')
+    .refine((s) => !/[⟦⟧]/u.test(s), 'The caption cannot contain the characters ⟦ and ⟧.')
+    .optional(),
   takenOn: isoDateSchema('Photo date').optional(),
 });
 

@@ -20,9 +20,11 @@ export const isoDateSchema = (what: string) =>
 /**
  * Characters a name must not hold: control characters (NUL, line breaks, …), bidirectional
  * overrides and isolates that reorder what is shown (U+202A–U+202E, U+2066–U+2069, Trojan Source,
- * CVE-2021-42574), and unpaired surrogates, which are not text at all and cannot be stored.
+ * CVE-2021-42574) and direction marks (U+200E, U+200F, U+061C), the brackets ⟦ ⟧ that mark dates
+ * in the server's stored text (shared/format/dates.ts), and unpaired surrogates, which are not
+ * text at all and cannot be stored.
  */
-const HIDDEN = /[\p{Cc}\u202A-\u202E\u2066-\u2069]/u;
+const HIDDEN = /[\p{Cc}\u061C\u200E\u200F\u202A-\u202E\u2066-\u2069⟦⟧]/u;
 const LONE_SURROGATE = /[\uD800-\uDBFF](?![\uDC00-\uDFFF])|(?<![\uD800-\uDBFF])[\uDC00-\uDFFF]/;
 
 /** A name a person reads and others must tell apart: NFC, trimmed, no hidden characters, 1–max long. */
@@ -39,7 +41,10 @@ export const nameSchema = (what: string, max: number) =>
         .refine((s) => !HIDDEN.test(s), `${what} cannot contain control characters or hidden direction marks.`),
     );
 
-export const notesSchema = z.string({ error: 'Notes must be text.' }).max(2000, 'Notes must be at most 2000 characters.');
+export const notesSchema = z
+  .string({ error: 'Notes must be text.' })
+  .max(2000, 'Notes must be at most 2000 characters.')
+  .refine((s) => !/[⟦⟧]/u.test(s), 'Notes cannot contain the characters ⟦ and ⟧.');
 
 export const optionalText = (what: string, max: number) =>
   z.string({ error: `${what} must be text.` }).trim().max(max, `${what} must be at most ${max} characters.`);

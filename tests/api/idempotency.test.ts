@@ -1,10 +1,15 @@
 import { describe, expect, it } from 'vitest';
 import { randomUUID } from 'node:crypto';
-import { testApp } from '../helpers/test-app';
+import http from 'node:http';
+import type { AddressInfo } from 'node:net';
+import request from 'supertest';
+import { testApp, testDb } from '../helpers/test-app';
 import { gardenWithClients, makeBed, makeLot, makePlanting, makeVariety } from '../helpers/garden-records';
+import { PASSWORD } from '../helpers/factories';
 import { GerminationTest, Planting, PlantingLog } from '../../server/db/models';
 
 const app = testApp();
+const { sequelize } = testDb();
 
 describe('Idempotency-Key on creates', () => {
   it('when a planned planting with no dates is submitted 20 times at once with one key, then one row is made and every answer names it or says it is in progress', async () => {
@@ -61,5 +66,37 @@ describe('Idempotency-Key on creates', () => {
     const malformed = await clients.grower.post(`${base}/plantings/${p.id}/log`).set('Idempotency-Key', 'short').send({ entryOn: '2025-04-12', kind: 'fed' });
     expect(malformed.status).toBe(400);
     expect(malformed.body.error.fields).toHaveProperty('Idempotency-Key');
+  });
+
+  it('when the client gives up before the answer and retries with the same key, then the retry meets the first answer and one entry is stored', async () => {
+    const { base, garden, grower } = await gardenWithClients(app);
+    const p = await makePlanting(garden.id, { sownOn: '2025-04-01' });
+    const login = await request(app).post('/api/auth/login').send({ email: grower.email, password: PASSWORD });
+    const cookie = ([] as string[]).concat(login.headers['set-cookie'] as unknown as string[]).map((c) => c.split(';')[0]).join('; ');
+    const server = await new Promise<http.Server>((resolve) => {
+      const s = app.listen(0, '127.0.0.1', () => resolve(s));
+    });
+    const key = randomUUID();
+    const body = JSON.stringify({ entryOn: '2025-04-10', kind: 'watered', note: 'gave up waiting' });
+    // Another transaction holds the planting, so the first request is still waiting when the client leaves.
+    const hold = await sequelize.transaction();
+    await Planting.findByPk(p.id, { transaction: hold, lock: hold.LOCK.UPDATE });
+    // The whole request is sent, then the connection dropped at once, as a timed-out phone would.
+    await new Promise<void>((resolve) => {
+      const req = http.request({ host: '127.0.0.1', port: (server.address() as AddressInfo).port, method: 'POST', path: `${base}/plantings/${p.id}/log`, headers: { 'Content-Type': 'application/json', 'Content-Length': Buffer.byteLength(body), Cookie: cookie, 'X-Requested-With': 'heatclock', 'Idempotency-Key': key } });
+      req.on('error', () => resolve());
+      req.end(body, () => {
+        req.destroy();
+        resolve();
+      });
+    });
+    await new Promise((r) => setTimeout(r, 300));
+    await hold.commit();
+    await new Promise((r) => setTimeout(r, 500));
+    const retry = await request(server).post(`${base}/plantings/${p.id}/log`).set({ Cookie: cookie, 'X-Requested-With': 'heatclock', 'Idempotency-Key': key, 'Content-Type': 'application/json' }).send(body);
+    server.close();
+    expect(retry.status).toBe(201);
+    expect(retry.headers['idempotent-replayed']).toBe('true');
+    expect(await PlantingLog.count({ where: { plantingId: p.id } })).toBe(1);
   });
 });

@@ -46,6 +46,7 @@ const EXPECTED: Record<string, RouteTableEntry['access']> = {
   'get /api/gardens/:gardenId/plantings': 'viewer',
   'post /api/gardens/:gardenId/plantings': 'grower',
   'get /api/gardens/:gardenId/plantings/export.csv': 'viewer',
+  'get /api/gardens/:gardenId/plantings/preview': 'viewer',
   'post /api/gardens/:gardenId/plantings/import': 'grower',
   'get /api/gardens/:gardenId/plantings/:plantingId': 'viewer',
   'patch /api/gardens/:gardenId/plantings/:plantingId': 'grower',

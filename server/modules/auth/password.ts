@@ -7,11 +7,13 @@ const PARAMS = { N: 2 ** 15, r: 8, p: 3 };
 const KEYLEN = 64;
 
 /**
- * scrypt runs on libuv's thread pool (4 threads by default), shared with file and DNS work. At most
- * 4 hashes at once and 16 waiting: a normal sign-in behind a flood waits for at most 5 hashes'
- * time per thread (about 0.5 s), and a flood beyond that is answered 503 at once.
+ * scrypt runs on libuv's thread pool (4 threads by default), shared with file reads (photos,
+ * static files) and DNS. At most 2 hashes at once leaves the other threads free; 16 more wait,
+ * so a normal sign-in behind a flood waits for at most 8 hashes' time (about 1 s), and a flood
+ * beyond that is answered 503 at once.
  */
-export const hashing = new Bounded(4, 16, 'sign-ins and sign-ups');
+const HASH_CONCURRENCY = 2;
+export const hashing = new Bounded(HASH_CONCURRENCY, 16, 'sign-ins and sign-ups');
 
 function scrypt(password: string, salt: Buffer, opts: ScryptOptions): Promise<Buffer> {
   return hashing.run(() => scryptNow(password, salt, opts));
@@ -43,8 +45,15 @@ export async function verifyPassword(password: string, stored: string): Promise<
 /** Spent on unknown e-mails so they take as long as a wrong password. */
 let dummyHash: Promise<string> | null = null;
 export function equaliseTiming(password: string): Promise<boolean> {
-  dummyHash ??= hashPassword('heatclock-timing-equaliser');
+  // Made once outside the hashing queue, so a busy moment can never leave a refused promise here.
+  dummyHash ??= dummyOf('heatclock-timing-equaliser');
   return dummyHash.then((h) => verifyPassword(password, h)).then(() => false);
+}
+
+async function dummyOf(password: string): Promise<string> {
+  const salt = randomBytes(16);
+  const key = await scryptNow(password, salt, PARAMS);
+  return ['scrypt', PARAMS.N, PARAMS.r, PARAMS.p, salt.toString('base64'), key.toString('base64')].join('$');
 }
 
 export function hashParams(stored: string): { N: number; r: number; p: number } {

@@ -4,7 +4,7 @@
  */
 import { ALERT_SEVERITY_WORDS, ALERT_TYPE_WORDS } from '#shared/schemas/alerts';
 import type { AlertSeverity, AlertType } from '#shared/schemas/alerts';
-import { dayMonth, dayRange, resolveDates } from '#shared/format/dates';
+import { DEFAULT_LOCALE, dayMonth, dayRange, resolveDates } from '#shared/format/dates';
 
 export interface MailAlert {
   type: AlertType;
@@ -86,7 +86,14 @@ function page(subject: string, intro: string, body: string, ctx: MailContext, re
 }
 
 /** Mail is worded once for everyone it goes to: stored dates in the default language. */
-const worded = (m: MailContent): MailContent => ({ subject: resolveDates(m.subject), text: resolveDates(m.text), html: resolveDates(m.html) });
+const worded = (m: MailContent, today: string): MailContent => ({
+  subject: resolveDates(m.subject, DEFAULT_LOCALE, today),
+  text: resolveDates(m.text, DEFAULT_LOCALE, today),
+  html: resolveDates(m.html, DEFAULT_LOCALE, today),
+});
+
+/** The mail's own day, for wording its dates with a year only when they lie in another one. */
+const newest = (alerts: MailAlert[]) => alerts.map((a) => a.firstOn).reduce((a, b) => (a > b ? a : b), '0000-01-01');
 
 export function renderAlertMail(ctx: MailContext, alerts: MailAlert[]): MailContent {
   const subject = alerts.length === 1 ? `${heading(alerts[0])} · ${ctx.gardenName}` : `${alerts.length} new alerts · ${ctx.gardenName}`;
@@ -96,7 +103,7 @@ export function renderAlertMail(ctx: MailContext, alerts: MailAlert[]): MailCont
     subject,
     text: [`Hello ${ctx.memberName},`, '', intro, '', ...alerts.map((a) => alertText(a) + '\n'), footerText(ctx, reason)].join('\n'),
     html: page(subject, intro, alerts.map(alertHtml).join('\n'), ctx, reason),
-  });
+  }, newest(alerts));
 }
 
 export function renderDigest(ctx: MailContext, alerts: MailAlert[], date: string): MailContent {
@@ -108,5 +115,5 @@ export function renderDigest(ctx: MailContext, alerts: MailAlert[], date: string
     subject,
     text: [`Hello ${ctx.memberName},`, '', intro, '', ...alerts.map((a) => alertText(a) + '\n'), footerText(ctx, reason)].join('\n'),
     html: page(subject, intro, alerts.map(alertHtml).join('\n'), ctx, reason),
-  });
+  }, date);
 }

@@ -35,11 +35,20 @@ export function photosRouter(config: AppConfig, table: RouteTableEntry[]) {
         method: 'post',
         path: '/',
         access: 'grower',
+        // Parsed before the handler, so an Idempotency-Key's fingerprint covers the photo and its fields.
+        before: [
+          (req, res, next) => {
+            receiveOneFile(req, res, 'photo', { maxBytes: uploads.maxBytes, fields: 2 }).then((file) => {
+              (req as { file?: unknown }).file = file ?? undefined;
+              next();
+            }, next);
+          },
+        ],
         handler: async (req, res) => {
           const user = requireSignedIn(req);
           const gardenId = req.membership!.gardenId;
           const plantingId = recordId(req.params, 'plantingId');
-          const file = await receiveOneFile(req, res, 'photo', { maxBytes: uploads.maxBytes, fields: 2 });
+          const file = (req as { file?: { buffer: Buffer } }).file;
           if (!file) throw new AppError(400, 'validation_failed', 'Please check the fields: photo.', { photo: 'Attach a photo (JPEG, PNG or WebP).' });
           const fields = parseBody(photoFieldsSchema, { ...req.body });
           const takenOn = fields.takenOn ?? localDate((await getGarden(gardenId)).timeZone);

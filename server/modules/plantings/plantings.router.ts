@@ -101,6 +101,8 @@ export function plantingsRouter(config: AppConfig, table: RouteTableEntry[], pro
         method: 'post',
         path: '/import',
         access: 'grower',
+        // Importing the same file again changes nothing (planting-csv.ts), key or no key.
+        idempotent: false,
         handler: async (req, res) => {
           const user = requireSignedIn(req);
           const file = await receiveOneFile(req, res, 'file', { maxBytes: CSV_MAX_BYTES, fields: 0 });

@@ -136,7 +136,7 @@ describe('weather pipeline', () => {
     expect(filled.source).toBe('filled');
     // Stored with date tokens; every answer words them in the reader's language (shared/format/dates.ts).
     expect(filled.note).toBe('Linear interpolation between the readings of ⟦2026-06-14⟧ and ⟦2026-06-16⟧');
-    expect(resolveDates(filled.note!, 'en-GB')).toBe('Linear interpolation between the readings of 14 Jun and 16 Jun');
+    expect(resolveDates(filled.note!, 'en-GB', '2026-06-20')).toBe('Linear interpolation between the readings of 14 Jun and 16 Jun');
     const lo = stored.get('2026-06-14')!;
     const hi = stored.get('2026-06-16')!;
     expect(Number(filled.tmax)).toBeCloseTo(Math.round(((Number(lo.tmax) + Number(hi.tmax)) / 2) * 10) / 10, 5);
