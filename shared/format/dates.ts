@@ -94,11 +94,16 @@ export function instant(iso: string | Date, timeZone: string, locales: Locales =
  * who will read it. It carries its dates as tokens instead, and every way out resolves them in the
  * reader's language: API answers (server/lib/locale.ts) and e-mail (DEFAULT_LOCALE).
  */
-const TOKEN = /⟦(\d{4}-\d{2}-\d{2})(?:\/(\d{4}-\d{2}-\d{2}))?⟧/gu;
+const TOKEN = /⟦(\d{4}-\d{2}-\d{2}|--\d{2}-\d{2})(?:\/(\d{4}-\d{2}-\d{2}))?⟧/gu;
 
 /** A calendar day in stored text, shown as dayMonth when read. */
 export function dayToken(day: string): string {
   return `⟦${day}⟧`;
+}
+
+/** A day of any year ('MM-DD', ISO 8601's --MM-DD) in stored text, shown as a day and month, never with a year. */
+export function monthDayToken(monthDay: string): string {
+  return `⟦--${monthDay}⟧`;
 }
 
 /** A range of days in stored text, shown as dayRange when read. */
@@ -115,6 +120,7 @@ export function resolveDates(text: string, locales: Locales = DEFAULT_LOCALE, to
   if (!text.includes('⟦')) return text;
   return text.replace(TOKEN, (whole, from: string, to?: string) => {
     try {
+      if (from.startsWith('--')) return dayMonth(`2000${from.slice(1)}`, locales); // a leap year: 29 Feb exists
       if (!to) return dayInContext(from, today, locales);
       const sameYear = from.slice(0, 4) === to.slice(0, 4) && from.slice(0, 4) === today.slice(0, 4);
       return sameYear ? dayRange(from, to, locales) : fullRange(from, to, locales);

@@ -184,3 +184,14 @@ describe('alert dates in the garden’s calendar', () => {
     expect(alertHistory(alert, 'UTC')).toEqual(['Raised 31 Dec']);
   });
 });
+
+describe('date tokens in stored text', () => {
+  it('when stored text is read, then a day of this year reads without its year, another year’s with it, and a day of any year never with one', async () => {
+    const { dayToken, monthDayToken, rangeToken, resolveDates } = await import('#shared/format/dates');
+    const text = `sown ${dayToken('2026-06-14')}, last year ${dayToken('2025-06-14')}, window ${monthDayToken('09-20')} to ${monthDayToken('02-29')}, spell ${rangeToken('2026-06-14', '2026-06-22')}`;
+    expect(resolveDates(text, 'en-GB', '2026-12-02')).toBe('sown 14 Jun, last year 14 Jun 2025, window 20 Sept to 29 Feb, spell 14–22 Jun');
+    expect(resolveDates(text, 'en-US', '2026-12-02')).toBe('sown Jun 14, last year Jun 14, 2025, window Sep 20 to Feb 29, spell Jun 14–22');
+    // Not a real day: left as it was, never rolled over to another day.
+    expect(resolveDates('⟦2026-02-30⟧', 'en-GB', '2026-12-02')).toBe('⟦2026-02-30⟧');
+  });
+});

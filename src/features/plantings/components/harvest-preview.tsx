@@ -1,5 +1,6 @@
 import { Flower2, Sprout } from 'lucide-react';
 import type { PlantingMethod } from '#shared/schemas/plantings';
+import { countOf } from '#shared/format/count-words';
 import { formatDayMonth, formatDayWindow, formatDegreeDays } from '@/lib/format';
 import { usePlantingPreview } from '@/features/plantings/api/get-planting-preview';
 
@@ -49,6 +50,11 @@ export function HarvestPreview({ gardenId, varietyId, method, sownOn, transplant
       </h3>
       <p aria-live="polite">{windowWords(p.maturity)}</p>
       {p.target !== null && <p className="text-sm text-loam-soft">Target: {formatDegreeDays(p.target, p.unit)}. {p.targetNote}</p>}
+      {p.boltSeason && !p.boltSeason.warning && (
+        <p className="text-sm">
+          Bolt risk at harvest was high in {Math.round(p.boltSeason.highShare * p.boltSeason.years)} of the last {countOf(p.boltSeason.years, 'season')} here for this start date.
+        </p>
+      )}
       {p.boltSeason?.warning && (
         <p className="flex gap-2 border-l-4 border-ember pl-2" role="status">
           <Flower2 className="mt-0.5 size-4 shrink-0 text-ember" aria-hidden="true" />
