@@ -19,6 +19,8 @@ function page(load: () => Promise<ComponentType>): Pick<RouteObject, 'element' |
 export const routes: RouteObject[] = [
   { path: '/sign-in', ...page(() => import('@/app/routes/auth/sign-in').then((m) => m.SignInPage)) },
   { path: '/register', ...page(() => import('@/app/routes/auth/register').then((m) => m.RegisterPage)) },
+  // Opened from the sign-up e-mail; needs no sign-in.
+  { path: '/register/confirm/:token', ...page(() => import('@/app/routes/auth/register-confirm').then((m) => m.RegisterConfirmPage)) },
   // Opened from an e-mail, often on a device that is not signed in.
   { path: '/unsubscribe/:token', ...page(() => import('@/app/routes/unsubscribe/unsubscribe').then((m) => m.UnsubscribePage)) },
   {

@@ -1,6 +1,9 @@
 import { describe, expect, it } from 'vitest';
-import { testApp, agent } from '../helpers/test-app';
+import { createHmac, randomUUID } from 'node:crypto';
+import request from 'supertest';
+import { testApp, testDb, agent } from '../helpers/test-app';
 import { createUser, PASSWORD, uniqueEmail, signIn } from '../helpers/factories';
+import { registerAndConfirm } from '../helpers/registration';
 import { User, Session } from '../../server/db/models';
 import { hashParams } from '../../server/modules/auth/password';
 
@@ -12,11 +15,17 @@ function sidOf(res: { headers: Record<string, unknown> }) {
   return c?.split(';')[0];
 }
 
+/** The cookie express-session sends for a session id: `s:` + id + `.` + base64 HMAC-SHA256 of the id (cookie-signature), URL-encoded. */
+function cookieFor(sid: string) {
+  const mac = createHmac('sha256', testDb().config.sessionSecret).update(sid).digest('base64').replace(/=+$/, '');
+  return `heatclock.sid=${encodeURIComponent(`s:${sid}.${mac}`)}`;
+}
+
 describe('registration and sign-in', () => {
   it('when a grower registers, signs out and signs in again, then me follows each step', async () => {
     const a = agent(app);
     const email = uniqueEmail('reg');
-    const reg = await a.post('/api/auth/register').send({ email, password: PASSWORD, name: 'Mara', gardenName: 'Back plot' });
+    const reg = await registerAndConfirm(a, { email, password: PASSWORD, name: 'Mara', gardenName: 'Back plot' });
     expect(reg.status).toBe(201);
     expect(reg.body.user).toMatchObject({ email, name: 'Mara' });
     expect(reg.body.garden).toMatchObject({ name: 'Back plot', role: 'owner' });
@@ -46,22 +55,24 @@ describe('registration and sign-in', () => {
       expect(await User.count({ where: { email } })).toBe(0);
     }
     const ok = await agent(app).post('/api/auth/register').send({ email: uniqueEmail('strong'), password: 'tomato violin harbour seven', name: 'Mara Quill', gardenName: 'Back plot' });
-    expect(ok.status).toBe(201);
+    expect(ok.status).toBe(202);
   });
 
-  it('when an e-mail is registered twice, then the second gets 409 naming the e-mail field', async () => {
+  it('when an e-mail is registered twice, then the second answer is the same as the first and no second account is made', async () => {
     const email = uniqueEmail('dup');
-    await agent(app).post('/api/auth/register').send({ email, password: PASSWORD, name: 'A', gardenName: 'G' });
+    const first = await registerAndConfirm(agent(app), { email, password: PASSWORD, name: 'A', gardenName: 'G' });
+    expect(first.status).toBe(201);
     const again = await agent(app)
       .post('/api/auth/register')
       .send({ email: email.toUpperCase(), password: PASSWORD, name: 'B', gardenName: 'H' });
-    expect(again.status).toBe(409);
-    expect(again.body.error.fields.email).toMatch(/already exists/);
+    expect(again.status).toBe(202);
+    expect(again.body).toEqual({ status: 'check-email', message: 'Check your e-mail: we sent a link to finish creating your account.' });
+    expect(await User.count({ where: { email } })).toBe(1);
   });
 
   it('when a password is stored, then it is a slow scrypt hash, never the password', async () => {
     const email = uniqueEmail('hash');
-    await agent(app).post('/api/auth/register').send({ email, password: PASSWORD, name: 'A', gardenName: 'G' });
+    expect((await registerAndConfirm(agent(app), { email, password: PASSWORD, name: 'A', gardenName: 'G' })).status).toBe(201);
     const user = await User.findOne({ where: { email } });
     expect(user!.passwordHash).not.toContain(PASSWORD);
     // OWASP Password Storage Cheat Sheet: scrypt with N ≥ 2^15, r = 8, p ≥ 3 (or the listed equivalents).
@@ -79,15 +90,29 @@ describe('registration and sign-in', () => {
     expect(strip(wrong.body)).toEqual(strip(unknown.body));
   });
 
-  it('when a visitor signs in, then the session id changes and the old one is not signed in', async () => {
+  it('when a visitor signs in with a session id planted by someone else, then the id changes and the planted cookie is not signed in', async () => {
     const user = await createUser();
-    const a = agent(app);
-    const anon = await a.post('/api/auth/login').send({ email: user.email, password: 'wrong password' });
-    const before = sidOf(anon);
-    const ok = await a.post('/api/auth/login').send({ email: user.email, password: PASSWORD });
+    // The crafted cookie is the real thing: a signed-in session's own id, signed this way, is accepted.
+    const real = await agent(app).post('/api/auth/login').send({ email: user.email, password: PASSWORD });
+    const realSid = (await Session.findOne({ where: { userId: user.id }, raw: true }))!.sid;
+    expect(cookieFor(realSid)).toBe(sidOf(real));
+    expect((await request(app).get('/api/auth/me').set('Cookie', cookieFor(realSid))).status).toBe(200);
+
+    // Session fixation: an anonymous session whose id the attacker knows, handed to the victim.
+    const planted = `planted-${randomUUID()}`;
+    const expires = new Date(Date.now() + 3_600_000);
+    await new Promise<void>((resolve, reject) =>
+      app.locals.sessions.set(planted, { cookie: { originalMaxAge: 3_600_000, expires, httpOnly: true, path: '/' } }, (err: unknown) => (err ? reject(err) : resolve())),
+    );
+    const ok = await request(app).post('/api/auth/login').set('Cookie', cookieFor(planted)).send({ email: user.email, password: PASSWORD });
+    expect(ok.status).toBe(200);
     const after = sidOf(ok);
     expect(after).toBeDefined();
-    expect(after).not.toEqual(before);
+    expect(after).not.toBe(cookieFor(planted));
+    // The planted session was read (and so ended by the rotation), not merely ignored.
+    expect(await Session.count({ where: { sid: planted } })).toBe(0);
+    expect((await request(app).get('/api/auth/me').set('Cookie', cookieFor(planted))).status).toBe(401);
+    expect((await request(app).get('/api/auth/me').set('Cookie', after!)).status).toBe(200);
     expect(String(ok.headers['set-cookie'])).toMatch(/HttpOnly/i);
     expect(String(ok.headers['set-cookie'])).toMatch(/SameSite=Lax/i);
   });
@@ -131,8 +156,8 @@ describe('registration and sign-in', () => {
     expect((await agent(limited).post('/api/auth/login').set('X-Forwarded-For', '203.0.113.9').send({ email: user.email, password: PASSWORD })).status).toBe(200);
 
     const signUp = () => agent(limited).post('/api/auth/register').set('X-Forwarded-For', ip).send({ email: uniqueEmail('flood'), password: 'tomato violin harbour seven', name: 'Flood', gardenName: 'Plot' });
-    expect((await signUp()).status).toBe(201);
-    expect((await signUp()).status).toBe(201);
+    expect((await signUp()).status).toBe(202);
+    expect((await signUp()).status).toBe(202);
     const third = await signUp();
     expect(third.status).toBe(429);
     expect(Number(third.headers['retry-after'])).toBeGreaterThan(0);

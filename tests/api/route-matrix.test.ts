@@ -12,6 +12,7 @@ const EXPECTED: Record<string, RouteTableEntry['access']> = {
   'get /api/health': 'public',
   'get /api/ready': 'public',
   'post /api/auth/register': 'public',
+  'post /api/auth/register/confirm/:token': 'public',
   'post /api/auth/login': 'public',
   'post /api/auth/logout': 'public',
   'get /api/auth/me': 'signed-in',

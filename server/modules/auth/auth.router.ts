@@ -12,7 +12,8 @@ import { mountRoutes } from '../../lib/routes';
 import type { RouteTableEntry } from '../../lib/routes';
 import { presentGarden } from '../gardens/gardens.presenter';
 import { MariaDbRateLimitStore } from './rate-limit-store';
-import { INVALID_CREDENTIALS, registerUser } from './auth.service';
+import { INVALID_CREDENTIALS } from './auth.service';
+import { CHECK_EMAIL, confirmRegistration, requestRegistration } from './registration.service';
 import { presentUser } from './auth.presenter';
 import { assertStrongPassword } from './password-strength';
 
@@ -77,7 +78,18 @@ export function authRouter(deps: { sequelize: Sequelize; config: AppConfig; pass
         handler: async (req, res) => {
           const input = parseBody(registerSchema, req.body);
           assertStrongPassword(input.password, input);
-          const { user, garden } = await registerUser(sequelize, input);
+          // The same answer whether or not the address has an account; the e-mail tells the difference.
+          await requestRegistration(sequelize, input);
+          res.status(202).json(CHECK_EMAIL);
+        },
+      },
+      {
+        // Opened from the e-mail's link: creates the account and its first garden, then signs in.
+        method: 'post',
+        path: '/register/confirm/:token',
+        access: 'public',
+        handler: async (req, res) => {
+          const { user, garden } = await confirmRegistration(sequelize, String(req.params.token));
           await signIn(req, presentUser(user));
           res.status(201).json({ user: presentUser(user), garden: presentGarden(garden, 'owner') });
         },

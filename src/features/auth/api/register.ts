@@ -1,20 +1,18 @@
-import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { RegisterInput, UserDto } from '#shared/schemas/auth';
-import type { GardenDto } from '#shared/schemas/gardens';
+import { useMutation } from '@tanstack/react-query';
+import type { RegisterInput } from '#shared/schemas/auth';
 import { api } from '@/lib/api-client';
-import { authKeys } from '@/features/auth/api/auth-keys';
 
-export function register(input: RegisterInput): Promise<{ user: UserDto; garden: GardenDto }> {
+/** The server's one answer to every accepted sign-up: the e-mail says what happens next. */
+export interface CheckEmailDto {
+  status: 'check-email';
+  message: string;
+}
+
+export function register(input: RegisterInput): Promise<CheckEmailDto> {
   return api.post('/api/auth/register', input);
 }
 
+/** Sends the sign-up; nothing is signed in until the link mailed to the address is used. */
 export function useRegister() {
-  const queryClient = useQueryClient();
-  return useMutation({
-    mutationFn: register,
-    onSuccess: ({ user }) => {
-      queryClient.removeQueries();
-      queryClient.setQueryData(authKeys.me(), user);
-    },
-  });
+  return useMutation({ mutationFn: register });
 }

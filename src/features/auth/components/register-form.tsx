@@ -4,7 +4,6 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import type { z } from 'zod';
 import { registerSchema } from '#shared/schemas/auth';
 import type { RegisterInput } from '#shared/schemas/auth';
-import type { GardenDto } from '#shared/schemas/gardens';
 import { ApiError } from '@/lib/api-client';
 import { applyServerFieldErrors } from '@/lib/form-errors';
 import { formatWait } from '@/lib/format';
@@ -23,7 +22,8 @@ function registerProblem(error: unknown): string {
   return error.message;
 }
 
-export function RegisterForm({ onRegistered }: { onRegistered: (garden: GardenDto) => void }) {
+/** `onRegistered` gets the address the link went to; no account exists until that link is used. */
+export function RegisterForm({ onRegistered }: { onRegistered: (email: string) => void }) {
   const registerAccount = useRegister();
   const [problem, setProblem] = useState<string | null>(null);
   const {
@@ -39,8 +39,8 @@ export function RegisterForm({ onRegistered }: { onRegistered: (garden: GardenDt
   const onSubmit = handleSubmit(async (values) => {
     setProblem(null);
     try {
-      const { garden } = await registerAccount.mutateAsync(values);
-      onRegistered(garden);
+      await registerAccount.mutateAsync(values);
+      onRegistered(values.email);
     } catch (error) {
       const { placed, leftover } = applyServerFieldErrors(error, setError, FIELDS);
       if (placed === 0 || leftover.length > 0) setProblem([registerProblem(error), ...leftover].join(' '));
@@ -79,7 +79,7 @@ export function RegisterForm({ onRegistered }: { onRegistered: (garden: GardenDt
         {...register('gardenName')}
       />
       <Button type="submit" disabled={isSubmitting}>
-        {isSubmitting ? 'Creating account…' : 'Create account'}
+        {isSubmitting ? 'Sending…' : 'Create account'}
       </Button>
     </form>
   );
