@@ -70,6 +70,7 @@ const EXPECTED: Record<string, RouteTableEntry['access']> = {
   'put /api/me/notification-preferences': 'signed-in',
   'get /api/gardens/:gardenId/mail/failed': 'owner',
   'get /api/dev/mail': 'signed-in',
+  'get /api/dev/mail/sign-up': 'public',
 };
 
 const app = testApp();

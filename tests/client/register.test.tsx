@@ -92,6 +92,8 @@ describe('register form', () => {
       http.post('/api/auth/register', () =>
         HttpResponse.json({ status: 'check-email', message: 'Check your e-mail: we sent a link to finish creating your account.' }, { status: 202 }),
       ),
+      // A server that sends real e-mail has no local mailbox.
+      http.get('/api/dev/mail/sign-up', () => HttpResponse.json({ error: { code: 'not_found', message: 'No such API route.' } }, { status: 404 })),
     );
     const { user, router } = renderApp('/register');
     await screen.findByRole('heading', { name: 'Create an account' });
@@ -114,6 +116,29 @@ describe('register form', () => {
     expect(email.value).toBe('mara@example.org');
     expect(document.activeElement).toBe(email);
     expect(screen.queryByRole('heading', { name: 'Check your e-mail' })).toBeNull();
+  });
+});
+
+describe('the local test mailbox after signing up', () => {
+  it('when mail is caught locally, then the panel shows the caught message with its link once it arrives', async () => {
+    let asked = 0;
+    server.use(
+      signedOut,
+      http.post('/api/auth/register', () => HttpResponse.json({ status: 'check-email', message: 'Check your e-mail.' }, { status: 202 })),
+      http.get('/api/dev/mail/sign-up', ({ request }) => {
+        expect(new URL(request.url).searchParams.get('email')).toBe('mara@example.org');
+        asked++;
+        // The first look finds nothing yet: the message is queued and sent a moment later.
+        const messages = asked === 1 ? [] : [{ to: 'mara@example.org', subject: 'Finish creating your Heatclock account', text: 'Open http://127.0.0.1:3000/register/confirm/tok_123 to finish.', html: null, receivedAt: '2026-12-02T01:00:00.000Z' }];
+        return HttpResponse.json({ messages });
+      }),
+    );
+    const { user } = renderApp('/register');
+    await screen.findByRole('heading', { name: 'Create an account' });
+    await fillAndSubmit(user);
+    expect(await screen.findByRole('heading', { name: 'Local test mailbox' })).toBeTruthy();
+    const link = await screen.findByRole('link', { name: 'Open the link in the message' });
+    expect(link.getAttribute('href')).toBe('/register/confirm/tok_123');
   });
 });
 

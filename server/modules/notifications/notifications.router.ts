@@ -1,15 +1,20 @@
+import { z } from 'zod';
+import { emailSchema } from '#shared/schemas/auth';
+import { EXISTING_SUBJECT, FINISH_SUBJECT } from '../auth/account-mail';
 import { Router } from 'express';
 import { QueryTypes } from 'sequelize';
 import type { Sequelize } from 'sequelize';
 import { notificationPreferencesUpdateSchema } from '#shared/schemas/notifications';
 import type { CapturedMailDto, FailedMailDto } from '#shared/schemas/notifications';
 import { AppError } from '../../errors';
-import { parseBody } from '../../lib/validate';
+import { parseBody, parseQuery } from '../../lib/validate';
 import { mountRoutes, requireSignedIn } from '../../lib/routes';
 import type { RouteTableEntry } from '../../lib/routes';
 import { listPreferences, updatePreferences } from './preferences.service';
 
 const iso = (d: Date | string) => new Date(d).toISOString();
+
+const signUpMailQuerySchema = z.strictObject({ email: emailSchema });
 
 export function notificationsRouter(deps: { sequelize: Sequelize; table: RouteTableEntry[]; mailIsLocalFake: boolean }) {
   const { sequelize, table, mailIsLocalFake } = deps;
@@ -77,6 +82,24 @@ export function notificationsRouter(deps: { sequelize: Sequelize; table: RouteTa
             `SELECT to_addr AS toAddr, subject, text_body AS textBody, html_body AS htmlBody, received_at AS receivedAt
                FROM captured_mail WHERE to_addr = ? ORDER BY received_at DESC, id DESC LIMIT 100`,
             { replacements: [user.email], type: QueryTypes.SELECT },
+          );
+          const messages: CapturedMailDto[] = rows.map((r) => ({ to: r.toAddr, subject: r.subject, text: r.textBody, html: r.htmlBody, receivedAt: iso(r.receivedAt) }));
+          res.json({ messages });
+        },
+      },
+      {
+        method: 'get',
+        path: '/sign-up',
+        access: 'public',
+        handler: async (req, res) => {
+          // Someone who has just signed up has no session to open the mailbox with. While mail only
+          // reaches the local fake, the sign-up messages to an address (and nothing else) are shown.
+          if (!mailIsLocalFake) throw new AppError(404, 'not_found', 'No such API route.');
+          const { email } = parseQuery(signUpMailQuerySchema, req.query);
+          const rows = await sequelize.query<{ toAddr: string; subject: string; textBody: string; htmlBody: string | null; receivedAt: Date }>(
+            `SELECT to_addr AS toAddr, subject, text_body AS textBody, html_body AS htmlBody, received_at AS receivedAt
+               FROM captured_mail WHERE to_addr = ? AND subject IN (?, ?) ORDER BY received_at DESC, id DESC LIMIT 5`,
+            { replacements: [email, FINISH_SUBJECT, EXISTING_SUBJECT], type: QueryTypes.SELECT },
           );
           const messages: CapturedMailDto[] = rows.map((r) => ({ to: r.toAddr, subject: r.subject, text: r.textBody, html: r.htmlBody, receivedAt: iso(r.receivedAt) }));
           res.json({ messages });

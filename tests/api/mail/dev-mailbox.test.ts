@@ -44,4 +44,23 @@ describe('the local test mailbox', () => {
 
     expect((await client.get('/api/dev/mail')).status).toBe(404);
   });
+
+  it('when someone has just signed up, then the sign-up messages to that address, and only those, can be read without signing in while mail is caught locally', async () => {
+    const { sequelize, config } = testDb();
+    const app = testApp();
+    const email = `signup-${Date.now()}@example.org`;
+    const put = (to: string, subject: string) =>
+      sequelize.query('INSERT INTO captured_mail (to_addr, subject, text_body, html_body, headers_json, received_at) VALUES (?, ?, ?, NULL, ?, UTC_TIMESTAMP(3))', {
+        replacements: [to, subject, `Open http://127.0.0.1:3000/register/confirm/abc123 to finish.`, '{}'],
+      });
+    await put(email, 'Finish creating your Heatclock account');
+    await put(email, 'Warning · Frost: a personal alert · Some Garden');
+    await put('someone-else@example.org', 'Finish creating your Heatclock account');
+    const res = await request(app).get(`/api/dev/mail/sign-up?email=${encodeURIComponent(email.toUpperCase())}`);
+    expect(res.status).toBe(200);
+    expect(res.body.messages.map((m: { to: string; subject: string }) => [m.to, m.subject])).toEqual([[email, 'Finish creating your Heatclock account']]);
+    expect((await request(app).get('/api/dev/mail/sign-up?email=not-an-address')).status).toBe(400);
+    const real = testApp({ mail: { ...config.mail, mode: 'smtp', smtpUrl: 'smtp://127.0.0.1:1' } });
+    expect((await request(real).get(`/api/dev/mail/sign-up?email=${encodeURIComponent(email)}`)).status).toBe(404);
+  });
 });

@@ -1,6 +1,42 @@
 import { useEffect, useRef } from 'react';
 import { MailCheck } from 'lucide-react';
+import { Link } from 'react-router-dom';
 import { Button } from '@/components/ui/button';
+import { useSignUpMail } from '@/features/auth/api/get-sign-up-mail';
+
+/**
+ * In a local copy of Heatclock mail is caught, not sent: show the caught sign-up message here so
+ * the link can be followed. A server with real e-mail shows nothing (the route is not there).
+ */
+function LocalMailbox({ email }: { email: string }) {
+  const mail = useSignUpMail(email);
+  if (mail.data === null || mail.isError) return null;
+  const latest = mail.data?.[0];
+  const link = latest?.text.match(/\/register\/confirm\/[A-Za-z0-9_-]+/)?.[0];
+  return (
+    <section aria-labelledby="local-mailbox" className="rounded-md border border-dashed border-line bg-paper-sunk p-3 text-sm">
+      <h3 id="local-mailbox" className="font-semibold">
+        Local test mailbox
+      </h3>
+      <p>This copy of Heatclock catches its e-mail instead of sending it, so the message is shown here.</p>
+      {!latest && <p role="status">Waiting for the message…</p>}
+      {latest && (
+        <div role="status" className="mt-2 flex flex-col gap-1">
+          <p className="font-semibold">{latest.subject}</p>
+          {link ? (
+            <Link to={link} className="self-start font-semibold text-frost underline">
+              Open the link in the message
+            </Link>
+          ) : (
+            <Link to="/sign-in" className="self-start font-semibold text-frost underline">
+              Sign in
+            </Link>
+          )}
+        </div>
+      )}
+    </section>
+  );
+}
 
 /**
  * Shown after a sign-up is sent. It reads the same whether or not the address already has an
@@ -28,6 +64,7 @@ export function CheckEmailPanel({ email, onStartOver }: { email: string; onStart
         <li>If this address already has a Heatclock account, the message says so instead and shows you where to sign in.</li>
         <li>Nothing after a few minutes? Look in your spam or junk folder, or send it again: a new link replaces the old one.</li>
       </ul>
+      <LocalMailbox email={email} />
       <Button variant="quiet" className="self-start" onClick={onStartOver}>
         Use a different e-mail or send again
       </Button>
