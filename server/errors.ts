@@ -1,3 +1,4 @@
+import { createHash } from 'node:crypto';
 import type { ErrorRequestHandler } from 'express';
 import { ZodError } from 'zod';
 import type { Logger } from './lib/logger';
@@ -33,16 +34,18 @@ function label(path: PropertyKey[]): string {
 
 /** Turns a zod failure into one message per field, naming unknown fields too. */
 export function validationError(err: ZodError, where: 'body' | 'query' | 'params' = 'body'): AppError {
-  const fields: Record<string, string> = {};
+  // A Map, not `fields[key] = …`: assigning to a key named __proto__ would set the prototype, not a field.
+  const found = new Map<string, string>();
   for (const issue of err.issues) {
     if (issue.code === 'unrecognized_keys') {
-      for (const key of issue.keys) fields[label([...issue.path, key])] = `Unknown field "${key}" is not accepted.`;
+      for (const key of issue.keys) found.set(label([...issue.path, key]), `Unknown field "${key}" is not accepted.`);
     } else {
       const key = label(issue.path);
-      fields[key] ??= issue.message;
+      if (!found.has(key)) found.set(key, issue.message);
     }
   }
-  const names = Object.keys(fields).join(', ');
+  const fields: Record<string, string> = Object.fromEntries(found);
+  const names = [...found.keys()].join(', ');
   return new AppError(400, 'validation_failed', `Please check the ${where === 'body' ? 'fields' : where}: ${names}.`, fields);
 }
 
@@ -69,6 +72,22 @@ interface BodyParserError extends Error {
 /** A body that could not be read as its headers described it: the client's fault, worth one log line. */
 function unreadableBody(err: BodyParserError): boolean {
   return (typeof err.code === 'string' && /^(Z_|ERR__ERROR_|ERR_BROTLI)/.test(err.code)) || err.type === 'request.aborted' || err.type === 'stream.encoding.set';
+}
+
+/**
+ * What the database said, without the statement: Sequelize's stack holds no message, and the
+ * driver's message carries the SQL with its values inlined (a session id, a password hash).
+ */
+function databaseCause(err: unknown): string | undefined {
+  const original = (err as { original?: { text?: unknown; code?: unknown } } | null)?.original;
+  if (!original || typeof original.text !== 'string') return undefined;
+  const code = typeof original.code === 'string' ? ` ${original.code}` : '';
+  return `${(err as Error).name}${code}: ${original.text}`;
+}
+
+/** A stable pseudonym for the e-mail a sign-in named (the same address, any case, gives the same one). */
+function accountFingerprint(email: unknown): string {
+  return createHash('sha256').update(typeof email === 'string' ? email.trim().toLowerCase() : '').digest('hex').slice(0, 16);
 }
 
 export function errorHandler(logger: Logger): ErrorRequestHandler {
@@ -100,7 +119,11 @@ export function errorHandler(logger: Logger): ErrorRequestHandler {
         path: req.path,
         userId: (req.user as { id?: number } | undefined)?.id,
         error: err instanceof Error ? err.stack : String(err),
+        cause: databaseCause(err),
       });
+    } else if (appErr.code === 'invalid_credentials') {
+      // Enough to follow repeated guesses at one account; the password and the address stay out.
+      logger.warn('sign-in refused', { requestId, method: req.method, path: req.path, account: accountFingerprint((req.body as { email?: unknown } | undefined)?.email) });
     }
     if (appErr.headers) res.set(appErr.headers);
     res.status(appErr.status).json({

@@ -164,7 +164,8 @@ export const HARVEST_UNIT_WORDS: Record<HarvestUnit, string> = { kg: 'kg', g: 'g
 export const logEntryCreateSchema = z
   .strictObject({
     entryOn: isoDateSchema('Date'),
-    kind: z.enum(LOG_KINDS, { error: 'Choose what happened.' }),
+    // A photo entry is written with its photo by the upload; on its own it would point at nothing.
+    kind: z.enum(LOG_KINDS, { error: 'Choose what happened.' }).refine((k) => k !== 'photo', 'Photos are added by uploading the photo, not as a log entry.'),
     amount: nullableNumber('Amount', 0, 1_000_000).optional(),
     amountUnit: z.enum(HARVEST_UNITS, { error: 'Unknown unit.' }).nullable().optional(),
     note: z

@@ -102,7 +102,7 @@ describe('registration and sign-in', () => {
     const planted = `planted-${randomUUID()}`;
     const expires = new Date(Date.now() + 3_600_000);
     await new Promise<void>((resolve, reject) =>
-      app.locals.sessions.set(planted, { cookie: { originalMaxAge: 3_600_000, expires, httpOnly: true, path: '/' } }, (err: unknown) => (err ? reject(err) : resolve())),
+      app.locals.sessions.set(planted, { cookie: { originalMaxAge: 3_600_000, expires, httpOnly: true, path: '/' } }, (err: unknown) => (err instanceof Error ? reject(err) : resolve())),
     );
     const ok = await request(app).post('/api/auth/login').set('Cookie', cookieFor(planted)).send({ email: user.email, password: PASSWORD });
     expect(ok.status).toBe(200);

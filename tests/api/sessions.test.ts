@@ -1,7 +1,7 @@
 import { describe, expect, it, vi } from 'vitest';
 import request from 'supertest';
 import { testApp, agent } from '../helpers/test-app';
-import { addMember, createGarden, createUser, signIn } from '../helpers/factories';
+import { addMember, createGarden, createUser, PASSWORD, signIn } from '../helpers/factories';
 import { Session } from '../../server/db/models';
 import { TOUCH_EVERY_MS } from '../../server/modules/auth/session-store';
 
@@ -23,6 +23,10 @@ async function sessionWritesDuring(run: () => Promise<void>): Promise<number> {
   } finally {
     spy.mockRestore();
   }
+}
+
+function setCookieLine(res: { headers: Record<string, unknown> }) {
+  return ([] as string[]).concat((res.headers['set-cookie'] as string[] | undefined) ?? []).find((c) => c.startsWith('heatclock.sid='));
 }
 
 function cookieOf(res: { headers: Record<string, unknown> }) {
@@ -127,5 +131,48 @@ describe('sessions', () => {
     await signIn(a, user.email);
     await Session.update({ expires: new Date(Date.now() - 1000) }, { where: { userId: user.id } });
     expect((await a.get('/api/auth/me')).status).toBe(401);
+  });
+
+  it('when a session is left idle longer than the idle timeout, then its next request is refused', async () => {
+    const idleMs = 1500;
+    const idle = testApp({ sessionIdleMs: idleMs });
+    const user = await createUser();
+    // Sent by hand: a cookie jar would drop the cookie at its Max-Age, and the server must refuse it on its own.
+    const cookie = cookieOf(await signIn(agent(idle), user.email));
+    expect((await request(idle).get('/api/auth/me').set('Cookie', cookie)).status).toBe(200);
+    await new Promise((resolve) => setTimeout(resolve, idleMs + 500));
+    const late = await request(idle).get('/api/auth/me').set('Cookie', cookie);
+    expect(late.status).toBe(401);
+    expect(late.body.error.code).toBe('unauthenticated');
+  });
+
+  it('when secure cookies are on behind a trusted proxy and the proxy says HTTPS, then the cookie is Secure, HttpOnly and SameSite=Lax and works', async () => {
+    const proxied = testApp({ trustProxy: 'loopback', cookieSecure: true });
+    const user = await createUser();
+    const res = await request(proxied).post('/api/auth/login').set('X-Forwarded-Proto', 'https').send({ email: user.email, password: PASSWORD });
+    expect(res.status).toBe(200);
+    const line = setCookieLine(res);
+    expect(line).toBeDefined();
+    const attrs = line!.split(';').map((a) => a.trim().toLowerCase());
+    expect(attrs).toContain('secure');
+    expect(attrs).toContain('httponly');
+    expect(attrs).toContain('samesite=lax');
+    expect(attrs).toContain('path=/');
+    const me = await request(proxied).get('/api/auth/me').set('X-Forwarded-Proto', 'https').set('Cookie', line!.split(';')[0]);
+    expect(me.status).toBe(200);
+    expect(me.body.user.id).toBe(user.id);
+  });
+
+  it('when secure cookies are on and the request is plain HTTP (no proxy header, or one from an untrusted client), then no session cookie is sent at all', async () => {
+    const user = await createUser();
+    const proxied = testApp({ trustProxy: 'loopback', cookieSecure: true });
+    const plain = await request(proxied).post('/api/auth/login').send({ email: user.email, password: PASSWORD });
+    expect(plain.status).toBe(200);
+    expect(setCookieLine(plain)).toBeUndefined();
+    // Without TRUST_PROXY the header is anyone's to send, so it is not believed.
+    const direct = testApp({ trustProxy: undefined, cookieSecure: true });
+    const spoofed = await request(direct).post('/api/auth/login').set('X-Forwarded-Proto', 'https').send({ email: user.email, password: PASSWORD });
+    expect(spoofed.status).toBe(200);
+    expect(setCookieLine(spoofed)).toBeUndefined();
   });
 });

@@ -40,7 +40,8 @@ describe('varieties', () => {
     expect(text).toMatch(/wear gloves/i);
     expect(text).toMatch(/label/);
     expect(text).toMatch(/Pelleted seed/);
-    expect(v.gddTarget.basis).toMatch(/derived|none/);
+    // Test gardens have no weather until a test gives them some: nothing to derive from yet.
+    expect(v.gddTarget).toMatchObject({ basis: 'none', valueC: null, explanation: expect.stringMatching(/^No past weather for this garden yet/) });
   });
 
   it('when the target is overridden, then the variety reports the override in °C-days', async () => {
@@ -96,6 +97,76 @@ describe('a variety in use keeps its crop', () => {
   });
 });
 
+/**
+ * Lettuce's degree days by the single sine without an upper threshold (Baskerville & Emin 1969;
+ * the B term of Zalom et al. 1983, UC DANR Leaflet 21373, Table 5, with θ2 = π/2), written here
+ * apart from the engine: T(θ) = M + α sin θ, θ1 = asin((L − M)/α), DD = [(M − L)(π/2 − θ1) + α cos θ1]/π.
+ */
+function sineDegreeDays(tx: number, tn: number, base: number) {
+  const m = (tx + tn) / 2;
+  const a = (tx - tn) / 2;
+  if (tn >= base) return m - base;
+  if (tx <= base) return 0;
+  const t1 = Math.asin((base - m) / a);
+  return ((m - base) * (Math.PI / 2 - t1) + a * Math.cos(t1)) / Math.PI;
+}
+
+/** Days that rise and fall with the seasons and from day to day, at tenths of a degree as stations report. */
+function seasonalDays(from: string, to: string) {
+  return steadyDays(from, to, 0, 0).map((d, k) => {
+    const tmax = Math.round((12 + 10 * Math.sin((2 * Math.PI * (k - 100)) / 365.25) + ((k * 7) % 5)) * 10) / 10;
+    return { ...d, tmax, tmin: Math.round((tmax - 8 - (k % 4) * 1.5) * 10) / 10 };
+  });
+}
+
+describe('the packet-derived target over a garden’s own weather', () => {
+  it('when the weather varies, then the target is the median of 50-day sums over the usual spring window, as computed independently', async () => {
+    const { clients, base, garden } = await gardenWithClients(app);
+    const days = seasonalDays('2021-01-01', '2024-12-31');
+    await giveGardenWeather(testDb().sequelize, garden, days);
+    const variety = await makeVariety(garden.id, { cropKey: 'lettuce', dtmDays: 50, dtmFrom: 'sowing' });
+    const t = (await clients.viewer.get(`${base}/varieties/${variety.id}`).expect(200)).body.variety.gddTarget;
+
+    // Every start from 15 March to 15 May (the cool-season default window, northern hemisphere) in
+    // each year: the start day is day 0, so a sample is the 50 days after it.
+    const base40F = ((40 - 32) * 5) / 9;
+    const dd = days.map((d) => sineDegreeDays(d.tmax, d.tmin, base40F));
+    const index = new Map(days.map((d, i) => [d.date, i]));
+    const samples: number[] = [];
+    for (const year of [2021, 2022, 2023, 2024]) {
+      for (let a = index.get(`${year}-03-15`)!; a <= index.get(`${year}-05-15`)!; a++) {
+        samples.push(dd.slice(a + 1, a + 51).reduce((sum, x) => sum + x, 0));
+      }
+    }
+    samples.sort((x, y) => x - y);
+    const mid = samples.length / 2;
+    const median = samples.length % 2 ? samples[Math.floor(mid)] : (samples[mid - 1] + samples[mid]) / 2;
+    const rank = (p: number) => samples[Math.ceil((p / 100) * samples.length) - 1];
+    // The series crosses the base inside the window, so the sine's partial days are exercised.
+    expect(days.some((d, i) => index.get('2022-03-15')! <= i && i <= index.get('2022-07-04')! && d.tmin < base40F && d.tmax > base40F)).toBe(true);
+    expect(t).toMatchObject({ basis: 'derived', countsFrom: 'sowing', stale: false });
+    expect(t.valueC).toBeCloseTo(median, 6);
+    expect(t.p10C).toBeCloseTo(rank(10), 6);
+    expect(t.p90C).toBeCloseTo(rank(90), 6);
+    expect(t.p90C).toBeGreaterThan(t.p10C);
+    expect(t.explanation).toMatch(/50 days from sowing/);
+    expect(t.explanation).toMatch(new RegExp(`${samples.length} samples`));
+    // The list gives the same figure as the single variety.
+    const items = (await clients.viewer.get(`${base}/varieties`).expect(200)).body.items as Array<{ id: number; gddTarget: { valueC: number } }>;
+    expect(items.find((v) => v.id === variety.id)!.gddTarget.valueC).toBeCloseTo(median, 6);
+  });
+
+  it('when the weather is a steady 20 °C, then the target is the packet’s days times 20 °C less lettuce’s base 40 °F', async () => {
+    const { clients, base, garden } = await gardenWithClients(app);
+    await giveGardenWeather(testDb().sequelize, garden, steadyDays('2022-01-01', '2024-12-31', 20, 20));
+    const variety = await makeVariety(garden.id, { cropKey: 'lettuce', dtmDays: 50, dtmFrom: 'sowing' });
+    const t = (await clients.viewer.get(`${base}/varieties/${variety.id}`).expect(200)).body.variety.gddTarget;
+    // Univ. of Delaware: base 40 °F (4.44 °C) for lettuce; at α = 0 the sine gives T − L a day.
+    const perDay = 20 - ((40 - 32) * 5) / 9;
+    expect(t).toMatchObject({ basis: 'derived', valueC: expect.closeTo(50 * perDay, 6), p10C: expect.closeTo(50 * perDay, 6), p90C: expect.closeTo(50 * perDay, 6) });
+  });
+});
+
 describe('a grower’s degree-day target keeps the method it was set in', () => {
   it('when a grower sets the target, then the crop’s method is stored with it and shown beside it', async () => {
     const { clients, base } = await gardenWithClients(app);
@@ -115,13 +186,14 @@ describe('a grower’s degree-day target keeps the method it was set in', () => 
   });
 
   it('when the crop’s base changes after the target was set, then the packet-derived target is used and the note says why in units', async () => {
-    const { clients, base } = await gardenWithClients(app);
+    const { clients, base, garden } = await gardenWithClients(app);
     const id = (await clients.grower.post(`${base}/varieties`).send({ ...packet, gddTargetOverrideC: 500 })).body.variety.id;
     expect((await clients.owner.patch(`${base}/crops/spinach`).send({ params: { baseC: { value: 7 } } })).status).toBe(200);
+    await giveGardenWeather(testDb().sequelize, garden, steadyDays('2022-01-01', '2024-12-31', 20, 20));
     const t = (await clients.viewer.get(`${base}/varieties/${id}`)).body.variety.gddTarget;
     const note = 'Your target of 900 °F-days was set at base 40 °F, single sine; this crop now counts from base 44.6 °F, single sine, so the packet-derived target is used until you set it again.';
-    expect(t).toMatchObject({ basis: expect.stringMatching(/derived|none/), stale: true, basisNote: note });
-    expect(t.valueC).not.toBe(500);
+    // 42 days from emergence plus the packet's 10 days to emerge, at 20 °C over the new base 7 °C.
+    expect(t).toMatchObject({ basis: 'derived', stale: true, basisNote: note, valueC: expect.closeTo((42 + 10) * (20 - 7), 6) });
     expect(t.explanation.startsWith(note)).toBe(true);
 
     const again = await clients.grower.patch(`${base}/varieties/${id}`).send({ gddTargetOverrideC: 500 });

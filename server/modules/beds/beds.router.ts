@@ -1,6 +1,6 @@
 import { Router } from 'express';
 import { bedCreateSchema, bedListQuerySchema, bedUpdateSchema } from '#shared/schemas/beds';
-import { parseBody, parseQuery } from '../../lib/validate';
+import { parseBody, parseChange, parseQuery } from '../../lib/validate';
 import { mountRoutes } from '../../lib/routes';
 import type { RouteTableEntry } from '../../lib/routes';
 import { recordId } from '../records/params';
@@ -52,7 +52,7 @@ export function bedsRouter(table: RouteTableEntry[]) {
         handler: async (req, res) => {
           const gardenId = req.membership!.gardenId;
           const bedId = recordId(req.params, 'bedId');
-          await updateBed(gardenId, bedId, parseBody(bedUpdateSchema, req.body));
+          await updateBed(gardenId, bedId, parseChange(bedUpdateSchema, req.body));
           res.json({ bed: await one(gardenId, bedId) });
         },
       },

@@ -1,7 +1,7 @@
 import { Router } from 'express';
 import { z } from 'zod';
 import { cropKeySchema, cropListQuerySchema, cropOverridesUpdateSchema } from '#shared/schemas/crops';
-import { parseBody, parseQuery } from '../../lib/validate';
+import { nothingToChange, parseBody, parseQuery } from '../../lib/validate';
 import { mountRoutes, requireSignedIn } from '../../lib/routes';
 import type { RouteTableEntry } from '../../lib/routes';
 import { validationError } from '../../errors';
@@ -46,6 +46,7 @@ export function cropsRouter(table: RouteTableEntry[]) {
           const user = requireSignedIn(req);
           const cropKey = cropKeyOf(req.params);
           const input = parseBody(cropOverridesUpdateSchema, req.body);
+          if (Object.keys(input.params).length === 0) throw nothingToChange();
           res.json({ crop: presentCrop(await updateCropOverrides(req.membership!.gardenId, user.id, cropKey, input)) });
         },
       },

@@ -1,6 +1,6 @@
 import { Router } from 'express';
 import { gardenUpdateSchema } from '#shared/schemas/gardens';
-import { parseBody } from '../../lib/validate';
+import { parseChange } from '../../lib/validate';
 import { mountRoutes, requireSignedIn } from '../../lib/routes';
 import type { RouteTableEntry } from '../../lib/routes';
 import { getGarden, listGardensFor, updateGarden } from './gardens.service';
@@ -39,7 +39,7 @@ export function gardensRouter(deps: { table: RouteTableEntry[]; weather: Weather
         access: 'owner',
         handler: async (req, res) => {
           const m = req.membership!;
-          const input = parseBody(gardenUpdateSchema, req.body);
+          const input = parseChange(gardenUpdateSchema, req.body);
           const garden = await updateGarden(m.gardenId, input);
           const newCell = await weather.locateGarden(garden);
           if (newCell) void weather.prepareCell(newCell, garden.id);

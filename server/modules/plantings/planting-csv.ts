@@ -14,6 +14,7 @@ import type { ImportProblem, ImportReport, LogEntryCreateInput, PlantingCreateIn
 import { Bed, Planting, PlantingLog, SeedLot, Variety } from '../../db/models';
 import { AppError } from '../../errors';
 import { inTransaction } from '../../lib/transaction';
+import { isTextFile, NOT_TEXT_CSV } from '../../lib/upload';
 import { plantingIncludes } from './plantings.service';
 import { plantingFields } from './plantings.presenter';
 import { countOf } from '#shared/format/count-words';
@@ -49,7 +50,8 @@ export async function exportPlantingsCsv(gardenId: number): Promise<string> {
   const plantings = await Planting.findAll({ where: { gardenId }, include: plantingIncludes, order: [['startOn', 'ASC'], ['id', 'ASC']] });
   const logs = await PlantingLog.findAll({ where: { gardenId }, order: [['entryOn', 'ASC'], ['id', 'ASC']] });
   const byPlanting = new Map<number, PlantingLog[]>();
-  for (const l of logs) byPlanting.set(l.plantingId, [...(byPlanting.get(l.plantingId) ?? []), l]);
+  // Photo entries stay out: the file carries no photos, and an entry without its photo is refused on import.
+  for (const l of logs) if (l.kind !== 'photo') byPlanting.set(l.plantingId, [...(byPlanting.get(l.plantingId) ?? []), l]);
   const rows: string[][] = [];
   for (const p of plantings) {
     const base: Record<Column, string> = {
@@ -138,6 +140,7 @@ function issuesToProblems(line: number, error: z.ZodError): ImportProblem[] {
 function parseRows(buffer: Buffer): { header: string[]; records: { line: number; cells: Record<string, string> }[] } {
   let parsed: { record: Record<string, string>; info: { lines: number } }[];
   let header: string[] = [];
+  if (!isTextFile(buffer)) reject([{ line: 1, column: '', message: 'Save the sheet as CSV (comma-separated text) and upload that file.' }], NOT_TEXT_CSV);
   try {
     parsed = parse(buffer, {
       bom: true,

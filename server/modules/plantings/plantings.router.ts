@@ -1,7 +1,7 @@
 import { Router } from 'express';
 import { logEntryCreateSchema, logListQuerySchema, plantingCreateSchema, plantingListQuerySchema, plantingPreviewQuerySchema, plantingUpdateSchema } from '#shared/schemas/plantings';
 import type { AppConfig } from '../../config';
-import { parseBody, parseQuery } from '../../lib/validate';
+import { parseBody, parseChange, parseQuery } from '../../lib/validate';
 import { mountRoutes, requireSignedIn } from '../../lib/routes';
 import type { RouteTableEntry } from '../../lib/routes';
 import { AppError } from '../../errors';
@@ -127,7 +127,7 @@ export function plantingsRouter(config: AppConfig, table: RouteTableEntry[], pro
         handler: async (req, res) => {
           const gardenId = req.membership!.gardenId;
           const plantingId = recordId(req.params, 'plantingId');
-          const planting = await updatePlanting(gardenId, plantingId, parseBody(plantingUpdateSchema, req.body));
+          const planting = await updatePlanting(gardenId, plantingId, parseChange(plantingUpdateSchema, req.body));
           res.json({ planting: await present(gardenId, planting) });
         },
       },

@@ -6,7 +6,7 @@ import {
   seedLotUpdateSchema,
   seedsToSowQuerySchema,
 } from '#shared/schemas/seed-lots';
-import { parseBody, parseQuery } from '../../lib/validate';
+import { parseBody, parseChange, parseQuery } from '../../lib/validate';
 import { mountRoutes } from '../../lib/routes';
 import type { RouteTableEntry } from '../../lib/routes';
 import type { GerminationTest, SeedLot } from '../../db/models';
@@ -82,7 +82,7 @@ export function seedLotsRouter(table: RouteTableEntry[], cache: ReadCache) {
         access: 'grower',
         handler: async (req, res) => {
           const gardenId = req.membership!.gardenId;
-          const lot = await updateSeedLot(gardenId, recordId(req.params, 'seedLotId'), parseBody(seedLotUpdateSchema, req.body));
+          const lot = await updateSeedLot(gardenId, recordId(req.params, 'seedLotId'), parseChange(seedLotUpdateSchema, req.body));
           res.json({ seedLot: await one(gardenId, lot) });
         },
       },

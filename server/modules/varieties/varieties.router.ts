@@ -1,6 +1,6 @@
 import { Router } from 'express';
 import { varietyCreateSchema, varietyListQuerySchema, varietyUpdateSchema } from '#shared/schemas/varieties';
-import { parseBody, parseQuery } from '../../lib/validate';
+import { parseBody, parseChange, parseQuery } from '../../lib/validate';
 import { mountRoutes } from '../../lib/routes';
 import type { RouteTableEntry } from '../../lib/routes';
 import { recordId } from '../records/params';
@@ -65,7 +65,7 @@ export function varietiesRouter(table: RouteTableEntry[], weather: WeatherServic
         handler: async (req, res) => {
           const gardenId = req.membership!.gardenId;
           const varietyId = recordId(req.params, 'varietyId');
-          await updateVariety(gardenId, varietyId, parseBody(varietyUpdateSchema, req.body));
+          await updateVariety(gardenId, varietyId, parseChange(varietyUpdateSchema, req.body));
           res.json({ variety: await detail(gardenId, varietyId) });
         },
       },

@@ -8,6 +8,7 @@ import { parse } from 'csv-parse/sync';
 import type { Sequelize } from 'sequelize';
 import { QueryTypes, UniqueConstraintError } from 'sequelize';
 import { inTransaction } from '../../lib/transaction';
+import { isTextFile, NOT_TEXT_CSV } from '../../lib/upload';
 import type { CsvRowError, WeatherImportResult } from '#shared/schemas/weather';
 import { parseIsoDate } from '#shared/thermal/dates';
 import { fToC } from '#shared/thermal/units';
@@ -41,7 +42,7 @@ function parseNumber(raw: string): number | null {
 }
 
 export function parseStationCsv(buffer: Buffer, unit: 'F' | 'C', today: string): ParsedRow[] {
-  if (buffer.includes(0)) throw csvError('The file is not a text CSV file.', []);
+  if (!isTextFile(buffer)) throw csvError(NOT_TEXT_CSV, []);
   let records: string[][];
   try {
     records = parse(buffer, { bom: true, skip_empty_lines: true, trim: true, relax_column_count: false });
