@@ -13,7 +13,7 @@ import { createLogger } from '../server/lib/logger';
 import { localDate } from '../server/lib/local-date';
 import { createApp, createWeatherService } from '../server/app';
 import { startFakeWeather } from '../fixtures/weather/server';
-import { addDays } from '../shared/thermal/dates';
+import { addDays } from '#shared/thermal/dates';
 import type { Worker } from '../server/jobs/worker';
 
 const GARDENS = 200;

@@ -24,7 +24,7 @@ import { inSeason } from '../server/db/seeders/demo-records';
 import { createLogger } from '../server/lib/logger';
 import { localDate } from '../server/lib/local-date';
 import { createApp, createWeatherService } from '../server/app';
-import { addDays } from '../shared/thermal/dates';
+import { addDays } from '#shared/thermal/dates';
 
 const SECONDS = Number(process.env.BENCH_SECONDS ?? 30);
 const RUNS = Number(process.env.BENCH_RUNS ?? 3);

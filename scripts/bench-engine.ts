@@ -8,8 +8,8 @@ import {
   dailyDegreeDays,
   prepareSowingSweep,
   sowingWindowSweep,
-} from '../shared/thermal/index';
-import type { DailyTemp, DegreeDayMethodName } from '../shared/thermal/index';
+} from '#shared/thermal/index';
+import type { DailyTemp, DegreeDayMethodName } from '#shared/thermal/index';
 
 function seeded(seed: number): () => number {
   let a = seed;

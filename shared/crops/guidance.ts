@@ -2,7 +2,7 @@
  * What a variety's traits mean for the grower. Plain trade knowledge; where handling can hurt
  * someone (treated seed) the text defers to the supplier's label and local advisers.
  */
-import type { VarietyTrait } from '#shared/schemas/varieties';
+import type { VarietyTrait } from '../schemas/varieties';
 
 export interface TraitGuidance {
   trait: VarietyTrait;

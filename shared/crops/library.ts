@@ -6,8 +6,8 @@
  * germination temperatures and seed life (§7) and sowing depth and spacing (common practice).
  * Temperatures are °C; figures published in °F are converted exactly.
  */
-import { BOLT_TRIGGER_DEFAULTS, STRESS_PROFILE_DEFAULTS, fToC } from '#shared/thermal/index';
-import type { CropBoltDefaults, CropStressDefaults, VernalizationTrigger } from '#shared/thermal/index';
+import { BOLT_TRIGGER_DEFAULTS, STRESS_PROFILE_DEFAULTS, fToC } from '../thermal/index';
+import type { CropBoltDefaults, CropStressDefaults, VernalizationTrigger } from '../thermal/index';
 import type { Confidence, CropDefinition, CropParams, ParamValue, Sourced } from './params';
 
 const at = <T>(value: T, confidence: Confidence, source: string): Sourced<T> => ({ value, source, confidence });

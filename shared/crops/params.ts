@@ -4,7 +4,7 @@
  * L weak, "from memory" recalled without a source read); a garden may override a value without
  * changing the shared default.
  */
-import type { Confidence, Sourced } from '#shared/thermal/index';
+import type { Confidence, Sourced } from '../thermal/index';
 
 export type { Confidence, Sourced };
 

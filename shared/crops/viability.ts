@@ -3,7 +3,7 @@
  * else the lot's age against the crop's seed life under good storage (Iowa State Ext. 1999
  * from Knott's, SCIENCE §7). Age counts seasons since the packed-for year. Estimates only.
  */
-import type { ViabilityDto } from '#shared/schemas/seed-lots';
+import type { ViabilityDto } from '../schemas/seed-lots';
 
 export interface ViabilityInput {
   packedForYear: number | null;

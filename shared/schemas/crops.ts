@@ -1,7 +1,7 @@
 import { z } from 'zod';
-import { CROP_PARAMS, CROP_PARAM_KEYS } from '#shared/crops/params';
-import type { Confidence, CropParamKey, ParamGroup, ParamUnit } from '#shared/crops/params';
-import type { DegreeDayBasis } from '#shared/crops/basis';
+import { CROP_PARAMS, CROP_PARAM_KEYS } from '../crops/params';
+import type { Confidence, CropParamKey, ParamGroup, ParamUnit } from '../crops/params';
+import type { DegreeDayBasis } from '../crops/basis';
 
 export const cropKeySchema = z.string().regex(/^[a-z][a-z-]{1,39}$/, 'Must be a crop key such as lettuce or bok-choy.');
 

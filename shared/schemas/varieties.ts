@@ -1,9 +1,9 @@
 import { z } from 'zod';
-import { CROP_KEYS } from '#shared/crops/library';
+import { CROP_KEYS } from '../crops/library';
 import { nameSchema, notesSchema, nullableInt, nullableNumber, pageQueryShape } from './records';
 import type { Page } from './records';
-import type { TraitGuidance } from '#shared/crops/guidance';
-import type { DegreeDayBasis } from '#shared/crops/basis';
+import type { TraitGuidance } from '../crops/guidance';
+import type { DegreeDayBasis } from '../crops/basis';
 
 export const DTM_FROM = ['sowing', 'emergence', 'transplant'] as const;
 export type DtmFrom = (typeof DTM_FROM)[number];

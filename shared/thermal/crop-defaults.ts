@@ -108,7 +108,7 @@ export const BOLT_TRIGGER_DEFAULTS: Record<string, CropBoltDefaults> = {
 export function boltTriggersOf(defaults: CropBoltDefaults): BoltTriggers {
   const out: Record<string, unknown> = {};
   for (const [k, v] of Object.entries(defaults.triggers)) if (v) out[k] = v.value;
-  return out as BoltTriggers;
+  return out;
 }
 
 const BLOSSOM_DROP = {

@@ -86,7 +86,7 @@ export function parseRetryAfter(value: string | null, now = Date.now()): number 
 
 function isErrorBody(body: unknown): body is ApiErrorBody {
   if (typeof body !== 'object' || body === null || !('error' in body)) return false;
-  const error = (body as { error: unknown }).error;
+  const error = (body).error;
   return typeof error === 'object' && error !== null && 'code' in error && 'message' in error;
 }
 

@@ -4,6 +4,9 @@ import { formatWait } from '@/lib/format';
 /** What kind of trouble a failed call met, for the words and for what the grower can do. */
 export type ProblemKind = 'offline' | 'timeout' | 'busy' | 'answer';
 
+/** The same entry sent again while the first sending is still being saved (Idempotency-Key). */
+const isStillSaving = (error: unknown) => error instanceof ApiError && error.status === 409 && error.code === 'request_in_progress';
+
 export function problemKind(error: unknown): ProblemKind {
   if (!(error instanceof ApiError)) return 'answer';
   if (error.status === 0) return error.code === 'timeout' ? 'timeout' : 'offline';
@@ -11,6 +14,7 @@ export function problemKind(error: unknown): ProblemKind {
   if (error.status === 502) return 'offline';
   if (error.status === 504) return 'timeout';
   if (error.status === 503 || error.status === 429) return 'busy';
+  if (isStillSaving(error)) return 'busy';
   return 'answer';
 }
 
@@ -50,6 +54,7 @@ export function mutationProblem(error: unknown, kept = 'your entry is kept'): st
     case 'timeout':
       return `Can’t reach Heatclock: no answer in time — ${kept}. It may have been saved; check before trying again.`;
     case 'busy':
+      if (isStillSaving(error)) return 'Already being saved — wait a moment, then try again; it will not be saved twice.';
       return `${unavailable(error)} — ${kept}, try again ${wait(error)}.`;
     default:
       return error instanceof ApiError && error.message ? error.message : `Something went wrong — ${kept}, try again.`;

@@ -3,6 +3,7 @@ import { afterEach, describe, expect, it, vi } from 'vitest';
 import { cleanup, render, screen } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { lazyPart } from '@/lib/lazy-part';
+import { useClientWaits } from './helpers/waits';
 
 const WORDS = { loading: 'Opening the page…', failed: 'This page could not be loaded' };
 
@@ -17,6 +18,7 @@ function slowDownload() {
   return { load, arrive: () => arrive() };
 }
 
+useClientWaits();
 afterEach(cleanup);
 
 describe('a part downloaded when first shown', () => {

@@ -10,6 +10,7 @@ import { mutationProblem } from '@/lib/problems';
 import { LoadProblem } from '@/components/ui/load-problem';
 import { draftStorageKey } from '@/features/plantings/components/quick-log';
 import { seen, server, setupClientTests, useBrowserLanguages } from './helpers/msw-server';
+import { CLIENT_WAIT_MS } from './helpers/waits';
 import { aBed, aGarden, aPlanting, aProgress, grower } from './helpers/data';
 import { memberOf, renderApp, signedInAs } from './helpers/render-app';
 
@@ -120,10 +121,11 @@ describe('a query without a connection', () => {
       </QueryClientProvider>,
     );
 
-    // Two retries, after 1 s and 2 s, then the words.
-    expect((await screen.findByRole('alert', {}, { timeout: 6000 })).textContent).toContain(OFFLINE);
+    // Two retries, after the query client's own pauses (1 s, then 2 s), then the words.
+    const pauses = retryDelay(0, null) + retryDelay(1, null);
+    expect((await screen.findByRole('alert', {}, { timeout: pauses + CLIENT_WAIT_MS })).textContent).toContain(OFFLINE);
     expect(seen.filter((r) => r.path === '/api/probe')).toHaveLength(3);
-  }, 10_000);
+  });
 
   it('retries only what is worth it and stays inside about 30 s', () => {
     const offline = new ApiError({ status: 0, code: 'offline', message: OFFLINE, elapsedMs: 20 });

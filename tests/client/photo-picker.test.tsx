@@ -38,7 +38,7 @@ describe('the photo picker', () => {
   it('when a photo uploads, then the picker and caption are empty again and the new photo shows with its day', async () => {
     await useNodeFormData();
     const { user } = plantingWithPhotos(() => HttpResponse.json({ photo: saved }, { status: 201 }));
-    const form = await screen.findByRole('form', { name: 'Add a photo' }, { timeout: 5_000 });
+    const form = await screen.findByRole('form', { name: 'Add a photo' });
     const input = within(form).getByLabelText('Photo') as HTMLInputElement;
     const caption = within(form).getByLabelText('Caption (optional)') as HTMLInputElement;
     await user.upload(input, picture());
@@ -62,7 +62,7 @@ describe('the photo picker', () => {
   it('when the upload is refused, then the chosen photo and caption are kept and the reason shows', async () => {
     await useNodeFormData();
     const { user } = plantingWithPhotos(() => HttpResponse.json({ error: { code: 'file_too_large', message: 'The file is larger than 10 MB.' } }, { status: 413 }));
-    const form = await screen.findByRole('form', { name: 'Add a photo' }, { timeout: 5_000 });
+    const form = await screen.findByRole('form', { name: 'Add a photo' });
     const input = within(form).getByLabelText('Photo') as HTMLInputElement;
     await user.upload(input, picture());
     await user.type(within(form).getByLabelText('Caption (optional)'), 'Bolting');
@@ -75,7 +75,7 @@ describe('the photo picker', () => {
 
   it('when no photo is chosen, then the form says so and sends nothing', async () => {
     const { user } = plantingWithPhotos(() => HttpResponse.json({ photo: saved }, { status: 201 }));
-    const form = await screen.findByRole('form', { name: 'Add a photo' }, { timeout: 5_000 });
+    const form = await screen.findByRole('form', { name: 'Add a photo' });
     await user.click(within(form).getByRole('button', { name: 'Add photo' }));
     expect(await within(form).findByText('Choose a photo to add.')).toBeTruthy();
     expect(seen.filter((r) => r.method === 'POST')).toHaveLength(0);

@@ -26,8 +26,7 @@ function plantingWith(progress: ProgressDto | (() => Response), gardenId = 1, pl
   ];
 }
 
-// The page draws a chart, a strip and a table of 60 days; on a busy test machine that takes a moment.
-const findWords = () => screen.findByRole('region', { name: 'In words' }, { timeout: 5_000 });
+const findWords = () => screen.findByRole('region', { name: 'In words' });
 const fact = (term: string) => screen.getByText(term, { selector: 'dt' }).nextElementSibling as HTMLElement;
 
 describe('planting progress', () => {
@@ -55,7 +54,7 @@ describe('planting progress', () => {
     server.use(...plantingWith(aProgress()));
     renderApp('/g/1/plantings/5');
 
-    expect(await screen.findByText('Bolt risk high from 9 Jun', undefined, { timeout: 5_000 })).toBeTruthy();
+    expect(await screen.findByText('Bolt risk high from 9 Jun')).toBeTruthy();
     const strip = screen.getByRole('list', { name: 'Bolt risk by day' });
     expect(within(strip).getAllByRole('listitem').map((li) => li.textContent)).toEqual([
       'Low: 1–25 May',

@@ -55,7 +55,7 @@ function varietiesPage(units: DisplayUnit, items: VarietyDto[] = three) {
   return renderApp('/g/1/varieties');
 }
 
-const occurrences = (text: string) => document.body.textContent!.split(text).length - 1;
+const occurrences = (text: string) => document.body.textContent.split(text).length - 1;
 
 describe('compact variety cards', () => {
   it('when several varieties carry the same traits, then each trait’s guidance is said once on the page', async () => {

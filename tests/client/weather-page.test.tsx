@@ -9,6 +9,8 @@ import { seen, server, setupClientTests, useNodeFormData } from './helpers/msw-s
 import { aGarden, grower } from './helpers/data';
 import { memberOf, renderApp, signedInAs } from './helpers/render-app';
 import { formatDayMonth } from '@/lib/format';
+import { HISTORY_POLL_MS } from '@/features/weather/api/get-weather';
+import { CLIENT_WAIT_MS } from './helpers/waits';
 
 setupClientTests();
 
@@ -261,8 +263,9 @@ describe('weather page', () => {
     renderApp('/g/1/weather');
 
     expect(await screen.findByText('Weather history: 64 % of 11 years fetched…')).toBeTruthy();
+    // The page asks again after its poll interval; then the usual wait for the words.
     expect(
-      await screen.findByText('Weather history: complete, 11 years back to Jan 1, 2015.', undefined, { timeout: 6_000 }),
+      await screen.findByText('Weather history: complete, 11 years back to Jan 1, 2015.', undefined, { timeout: HISTORY_POLL_MS + CLIENT_WAIT_MS }),
     ).toBeTruthy();
     expect(calls).toBe(2);
   });

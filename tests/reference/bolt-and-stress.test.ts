@@ -7,8 +7,8 @@ import {
   fToC,
   STRESS_PROFILE_DEFAULTS,
   stressEvents,
-} from '../../shared/thermal';
-import type { BoltRiskInput, DailyTemp } from '../../shared/thermal';
+} from '#shared/thermal';
+import type { BoltRiskInput, DailyTemp } from '#shared/thermal';
 import { constantDays } from './thermal-fixtures';
 
 /* Triggers here are test inputs of the heuristic (our own), not sourced crop figures. */

@@ -1,6 +1,6 @@
 import * as SunCalc from 'suncalc';
 import { describe, expect, it } from 'vitest';
-import { addDays, dayLengthHours, germinationPercent, hardinessZone, seedsToSow } from '../../shared/thermal';
+import { addDays, dayLengthHours, germinationPercent, hardinessZone, seedsToSow } from '#shared/thermal';
 
 describe('day length, CBM model (Forsythe et al. 1995, Ecological Modelling 80:87–95)', () => {
   it.each([

@@ -1,7 +1,7 @@
 import path from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { cDaysToFDays, dailyDegreeDays, fToC } from '../../shared/thermal';
-import type { Cutoff, DegreeDayMethodName } from '../../shared/thermal';
+import { cDaysToFDays, dailyDegreeDays, fToC } from '#shared/thermal';
+import type { Cutoff, DegreeDayMethodName } from '#shared/thermal';
 import { readCsv, validationDir } from './thermal-fixtures';
 
 const METHOD: Record<string, DegreeDayMethodName> = {

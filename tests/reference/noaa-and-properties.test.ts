@@ -1,7 +1,7 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { accumulateDegreeDays, addDays, cDaysToFDays, cToF, dailyDegreeDays, projectMaturity } from '../../shared/thermal';
-import type { Cutoff, DailyTemp, DegreeDayMethod, DegreeDayMethodName } from '../../shared/thermal';
+import { accumulateDegreeDays, addDays, cDaysToFDays, cToF, dailyDegreeDays, projectMaturity } from '#shared/thermal';
+import type { Cutoff, DailyTemp, DegreeDayMethod, DegreeDayMethodName } from '#shared/thermal';
 import { constantDays, noaaDaily } from './thermal-fixtures';
 
 const METHODS: DegreeDayMethodName[] = ['average', 'clamped-average', 'single-sine', 'single-triangle', 'double-sine', 'double-triangle'];

@@ -10,8 +10,8 @@ import {
   recalibrateTarget,
   seasonCandidates,
   sowingWindowSweep,
-} from '../../shared/thermal';
-import type { DailyTemp, DegreeDayMethod } from '../../shared/thermal';
+} from '#shared/thermal';
+import type { DailyTemp, DegreeDayMethod } from '#shared/thermal';
 import { constantDays, noaaDaily, syntheticWeather } from './thermal-fixtures';
 
 const method: DegreeDayMethod = { base: 4.4, upper: 30, method: 'double-sine' };

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { frostDates, seasonOf } from '../../shared/thermal';
-import type { DailyTemp } from '../../shared/thermal';
+import { frostDates, seasonOf } from '#shared/thermal';
+import type { DailyTemp } from '#shared/thermal';
 import { noaaDaily, syntheticWeather } from './thermal-fixtures';
 
 describe('seasons are hemisphere-aware (PRODUCT brief)', () => {

@@ -1,13 +1,13 @@
 import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { addDays } from '../../shared/thermal';
-import type { DailyTemp } from '../../shared/thermal';
+import { addDays } from '#shared/thermal';
+import type { DailyTemp } from '#shared/thermal';
 
 export const repoRoot = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../..');
 
-/** CI places the briefing folder beside the clone. */
-export const validationDir = path.resolve(repoRoot, '../shared/reference/degree-day-validation');
+/** The published validation set, kept in the repository with its licence (fixtures/reference/README.md). */
+export const validationDir = path.resolve(repoRoot, 'fixtures/reference/degree-day-validation');
 
 export function readCsv(file: string): Record<string, string>[] {
   const [head, ...rows] = readFileSync(file, 'utf8').trim().split(/\r?\n/);

@@ -1,6 +1,7 @@
 import { afterAll, afterEach, beforeAll, beforeEach, vi } from 'vitest';
-import { cleanup, configure } from '@testing-library/react';
+import { cleanup } from '@testing-library/react';
 import { setupServer } from 'msw/node';
+import { useClientWaits } from './waits';
 
 export const server = setupServer();
 
@@ -54,9 +55,7 @@ export function useBrowserLanguages(languages: string[]) {
 
 /** Call once at the top of a test file: a mock API per file, a clean page per test. */
 export function setupClientTests() {
-  // Pages load lazily (their own chunks); with every test file running at once on two cores the
-  // first page of a file can take more than the default second to arrive.
-  configure({ asyncUtilTimeout: 5000 });
+  useClientWaits();
   beforeAll(() => {
     server.listen({ onUnhandledRequest: 'error' });
     // Recharts sizes its charts with ResizeObserver, which jsdom lacks.

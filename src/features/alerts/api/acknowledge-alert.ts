@@ -4,15 +4,16 @@ import { api } from '@/lib/api-client';
 import { progressRootKey } from '@/lib/progress-root-key';
 import { alertKeys } from '@/features/alerts/api/alert-keys';
 
-export async function acknowledgeAlert(gardenId: number, alertId: number): Promise<AlertDto> {
-  const { alert } = await api.post<{ alert: AlertDto }>(`/api/gardens/${gardenId}/alerts/${alertId}/acknowledge`);
+/** `idempotencyKey` names the one tap meant: a retry with the same key is answered as the first was. */
+export async function acknowledgeAlert(gardenId: number, alertId: number, idempotencyKey?: string): Promise<AlertDto> {
+  const { alert } = await api.post<{ alert: AlertDto }>(`/api/gardens/${gardenId}/alerts/${alertId}/acknowledge`, undefined, idempotencyKey ? { 'Idempotency-Key': idempotencyKey } : undefined);
   return alert;
 }
 
 export function useAcknowledgeAlert(gardenId: number) {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: (alertId: number) => acknowledgeAlert(gardenId, alertId),
+    mutationFn: ({ alertId, idempotencyKey }: { alertId: number; idempotencyKey?: string }) => acknowledgeAlert(gardenId, alertId, idempotencyKey),
     // Lists, counts and Today's actions (made from the open alerts) all move. Waiting for the
     // refetch keeps the button busy until the alert has left the open list, so it is sent once.
     onSuccess: () =>

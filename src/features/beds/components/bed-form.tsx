@@ -11,13 +11,15 @@ import { ApiError } from '@/lib/api-client';
 import { applyServerFieldErrors } from '@/lib/form-errors';
 import { mutationProblem } from '@/lib/problems';
 import { changedValues } from '@/lib/changed-values';
+import { useSubmissionKey } from '@/lib/use-submission-key';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { FieldError, TextField } from '@/components/ui/text-field';
 import { useCreateBed } from '@/features/beds/api/create-bed';
 import { useUpdateBed } from '@/features/beds/api/update-bed';
 
-const numberOrNull = (v: unknown) => (typeof v === 'string' && v.trim() === '' ? null : Number(v));
+// react-hook-form also passes the default value (null) through here: still "not set", not 0.
+const numberOrNull = (v: unknown) => (v == null || (typeof v === 'string' && v.trim() === '') ? null : Number(v));
 const CONTROL = 'min-h-11 w-full rounded-md border border-line bg-paper-raised px-3 py-2';
 const FIELDS = ['name', 'kind', 'length', 'width', 'notes'] as const;
 
@@ -67,6 +69,8 @@ export function BedForm({ gardenId, bed, system, onDone }: { gardenId: number; b
   const create = useCreateBed(gardenId);
   const update = useUpdateBed(gardenId, bed?.id ?? 0);
   const mutation = bed ? update : create;
+  const submission = useSubmissionKey();
+  const add = (input: BedCreateInput) => create.mutateAsync({ ...input, idempotencyKey: submission.keyFor(input) });
   const schema = useMemo(() => bedFormSchema(system), [system]);
   const { register, handleSubmit, formState, setError, reset } = useForm<z.input<BedFormSchema>, unknown, BedFormValues>({
     resolver: zodResolver(schema),
@@ -82,9 +86,12 @@ export function BedForm({ gardenId, bed, system, onDone }: { gardenId: number; b
     const changes = changedValues(values, dirtyFields);
     // Nothing changed: close without asking the server to rewrite the same values.
     if (bed && !Object.keys(changes).length) return onDone?.();
-    const saving = bed ? update.mutateAsync(toInput(changes, system)) : create.mutateAsync(toInput(values, system));
+    const saving = bed ? update.mutateAsync(toInput(changes, system)) : add(toInput(values, system));
     return saving.then(
-      () => (bed ? onDone?.() : reset()),
+      () => {
+        submission.renew();
+        return bed ? onDone?.() : reset();
+      },
       (error: unknown) => applyServerFieldErrors(underFormFields(error), setError, FIELDS),
     );
   });

@@ -80,7 +80,7 @@ export function ParamOverrideForm({
   const [text, setText] = useState(() => initialText(p, units));
   const [note, setNote] = useState(p.origin === 'garden' ? p.source.replace(/^Set for this garden:? ?/, '') : '');
   const [problem, setProblem] = useState<string | null>(null);
-  const meta = CROP_PARAMS[p.key as CropParamKey];
+  const meta = CROP_PARAMS[p.key];
   const unit = unitWord(p.unit, units);
   const range =
     meta.kind === 'number' ? `${toDisplay(meta.min, p.unit, units)} to ${toDisplay(meta.max, p.unit, units)}${unit ? ` ${unit}` : ''}` : null;
@@ -103,7 +103,7 @@ export function ParamOverrideForm({
       const outOfRange = (issue.code === 'too_small' || issue.code === 'too_big') && range;
       return setProblem(outOfRange ? `${p.label} must be from ${range}.` : issue.message);
     }
-    const key = p.key as CropParamKey;
+    const key = p.key;
     const problems = paramProblems(valuesWith(params, key, parsed.data.params[key]?.value), units);
     const together = problems[key] ?? Object.values(problems)[0];
     if (together) return setProblem(together);

@@ -3,7 +3,7 @@ import { DTM_FROM_WORDS } from '#shared/schemas/varieties';
 import type { DtmFrom } from '#shared/schemas/varieties';
 import { METHOD_WORDS, PLANTING_UNIT_WORDS, STAGE_FIELDS, STAGE_WORDS } from '#shared/schemas/plantings';
 import { StatusBadge } from '@/features/plantings/components/status-badge';
-import { AttentionFlags } from '@/features/plantings/components/attention-flags';
+import { AttentionFlags } from '@/components/ui/attention-flags';
 import { formatFullDate } from '@/lib/format';
 
 export function PlantingFacts({ planting: p }: { planting: PlantingDto }) {

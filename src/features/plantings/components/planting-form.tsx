@@ -17,6 +17,7 @@ import type { PlantingCreateInput, PlantingDto } from '#shared/schemas/plantings
 import { applyServerFieldErrors } from '@/lib/form-errors';
 import { mutationProblem } from '@/lib/problems';
 import { changedValues } from '@/lib/changed-values';
+import { useSubmissionKey } from '@/lib/use-submission-key';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { FieldError, TextField } from '@/components/ui/text-field';
@@ -38,7 +39,8 @@ const FIELDS = ['bedId', 'varietyId', 'seedLotId', 'method', 'status', 'quantity
 // Inputs hold text; the schema wants numbers, dates or null. Blank is "not set", never zero.
 const idOrUndefined = (v: unknown) => (v === '' || v == null ? undefined : Number(v));
 const idOrNull = (v: unknown) => (v === '' || v == null ? null : Number(v));
-const numberOrNull = (v: unknown) => (typeof v === 'string' && v.trim() === '' ? null : Number(v));
+// react-hook-form also passes the default value (null) through here: still "not set", not 0.
+const numberOrNull = (v: unknown) => (v == null || (typeof v === 'string' && v.trim() === '') ? null : Number(v));
 const dateOrNull = (v: unknown) => (v === '' || v === undefined ? null : v);
 
 function Select({ label, error, children, ...props }: React.SelectHTMLAttributes<HTMLSelectElement> & { label: string; error?: string }) {
@@ -98,6 +100,7 @@ export function PlantingForm({
   const create = useCreatePlanting(gardenId);
   const update = useUpdatePlanting(gardenId, planting?.id ?? 0);
   const mutation = planting ? update : create;
+  const submission = useSubmissionKey();
   const form = useForm<FormInput, unknown, PlantingCreateInput>({
     resolver: zodResolver(plantingCreateSchema),
     defaultValues: planting ? valuesOf(planting) : {
@@ -127,8 +130,11 @@ export function PlantingForm({
     const changes = changedValues(values, dirtyFields);
     // Nothing changed: close without asking the server to rewrite the same values.
     if (planting && !Object.keys(changes).length) return onSaved(planting);
-    const saving = planting ? update.mutateAsync(changes) : create.mutateAsync(values);
-    return saving.then(onSaved, (error: unknown) => {
+    const saving = planting ? update.mutateAsync(changes) : create.mutateAsync({ ...values, idempotencyKey: submission.keyFor(values) });
+    return saving.then((saved) => {
+      submission.renew();
+      onSaved(saved);
+    }, (error: unknown) => {
       applyServerFieldErrors(error, setError, FIELDS);
     });
   });

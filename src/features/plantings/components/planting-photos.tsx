@@ -1,8 +1,9 @@
-import { useId, useRef } from 'react';
+import { useId } from 'react';
 import { useForm } from 'react-hook-form';
 import type { PhotoDto } from '#shared/schemas/plantings';
 import { ApiError } from '@/lib/api-client';
 import { mutationProblem } from '@/lib/problems';
+import { useSubmissionKey } from '@/lib/use-submission-key';
 import { ConfirmDelete } from '@/components/ui/confirm-delete';
 import { Loading } from '@/components/ui/loading';
 import { Notice } from '@/components/ui/notice';
@@ -58,27 +59,31 @@ function checkPhoto(files: FileList | null): true | string {
 /** The picker looks and behaves like the station upload: the same file field and button, cleared once a photo is saved. */
 function PhotoUploadForm({ gardenId, plantingId }: { gardenId: number; plantingId: number }) {
   const id = useId();
-  const formRef = useRef<HTMLFormElement>(null);
   const upload = useUploadPhoto(gardenId, plantingId);
+  const submission = useSubmissionKey();
   const {
     register,
     handleSubmit,
     reset,
-    formState: { errors },
+    formState: { errors, isSubmitting },
   } = useForm<PhotoValues>({ defaultValues: { file: null, caption: '' } });
 
-  const onSubmit = handleSubmit((values) => {
+  // Returned to the form, so it counts as submitting (and the button stays off) until the answer.
+  const onSubmit = handleSubmit((values, event) => {
     const file = values.file?.[0];
     if (!file) return;
-    upload.mutate(
-      { file, caption: values.caption.trim() },
-      {
-        onSuccess: () => {
-          // The native reset empties the file picker itself; the form's state follows.
-          formRef.current?.reset();
-          reset();
-        },
+    const form = event?.target instanceof HTMLFormElement ? event.target : null;
+    const caption = values.caption.trim();
+    const idempotencyKey = submission.keyFor({ name: file.name, size: file.size, lastModified: file.lastModified, type: file.type, caption });
+    return upload.mutateAsync({ file, caption, idempotencyKey }).then(
+      () => {
+        submission.renew();
+        // The native reset empties the file picker itself; the form's state follows.
+        form?.reset();
+        reset();
       },
+      // Shown from the mutation's own error below.
+      () => undefined,
     );
   });
 
@@ -87,7 +92,7 @@ function PhotoUploadForm({ gardenId, plantingId }: { gardenId: number; plantingI
   const captionError = errors.caption?.message ?? serverFields.caption;
 
   return (
-    <form ref={formRef} onSubmit={onSubmit} noValidate aria-label="Add a photo" className="flex flex-col gap-4">
+    <form onSubmit={onSubmit} noValidate aria-label="Add a photo" className="flex flex-col gap-4">
       <div className="flex flex-col gap-1">
         <label htmlFor={`${id}-file`} className="font-semibold">
           Photo
@@ -118,7 +123,7 @@ function PhotoUploadForm({ gardenId, plantingId }: { gardenId: number; plantingI
         {captionError && <FieldError id={`${id}-caption-error`}>{captionError}</FieldError>}
       </div>
       <div>
-        <UploadButton pending={upload.isPending} label="Add photo" pendingLabel="Uploading…" />
+        <UploadButton pending={isSubmitting || upload.isPending} label="Add photo" pendingLabel="Uploading…" />
       </div>
       <p id={`${id}-privacy`} className="text-sm text-loam-soft">
         Location and camera details are removed from photos when they are saved.

@@ -7,7 +7,7 @@ import { BoltRiskLabel } from '@/components/ui/bolt-risk-label';
 import { ProgressMeter } from '@/components/ui/progress-meter';
 import { CONTROL } from '@/features/plantings/components/field-styles';
 import { StatusBadge } from '@/features/plantings/components/status-badge';
-import { AttentionFlags } from '@/features/plantings/components/attention-flags';
+import { AttentionFlags } from '@/components/ui/attention-flags';
 import { formatFullDate } from '@/lib/format';
 
 export interface SortState {

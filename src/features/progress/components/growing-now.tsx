@@ -1,4 +1,4 @@
-import { AttentionFlags } from '@/features/plantings/components/attention-flags';
+import { AttentionFlags } from '@/components/ui/attention-flags';
 import { Link } from 'react-router-dom';
 import type { TodayDto } from '#shared/schemas/progress';
 import { formatReady } from '@/lib/format';

@@ -1,4 +1,4 @@
-import { useState } from 'react';
+import { useRef, useState } from 'react';
 import { CircleCheck, CircleHelp, Hourglass, TriangleAlert, FlaskConical, Pencil } from 'lucide-react';
 import type { GerminationTestDto, SeedLotDto, ViabilityStatus } from '#shared/schemas/seed-lots';
 import { Button } from '@/components/ui/button';
@@ -7,6 +7,7 @@ import { LoadProblem } from '@/components/ui/load-problem';
 import { Loading } from '@/components/ui/loading';
 import { loadProblem, mutationProblem } from '@/lib/problems';
 import { FieldError } from '@/components/ui/text-field';
+import { useSubmissionKey } from '@/lib/use-submission-key';
 import { useAddGerminationTest } from '@/features/seed-lots/api/add-germination-test';
 import { useDeleteGerminationTest } from '@/features/seed-lots/api/delete-germination-test';
 import { useDeleteSeedLot } from '@/features/seed-lots/api/delete-seed-lot';
@@ -26,6 +27,9 @@ const INPUT = 'min-h-11 w-full rounded-md border border-line bg-paper px-3';
 
 function GerminationTestForm({ gardenId, lotId, today }: { gardenId: number; lotId: number; today: string }) {
   const add = useAddGerminationTest(gardenId, lotId);
+  const submission = useSubmissionKey();
+  // Set at once on submit: the mutation's own pending state reaches the button a moment later.
+  const sending = useRef(false);
   const [testedOn, setTestedOn] = useState(today);
   const [tested, setTested] = useState('20');
   const [germinated, setGerminated] = useState('');
@@ -36,7 +40,21 @@ function GerminationTestForm({ gardenId, lotId, today }: { gardenId: number; lot
       aria-label="Record a germination test"
       onSubmit={(e) => {
         e.preventDefault();
-        add.mutate({ testedOn, seedsTested: Number(tested), germinated: Number(germinated) }, { onSuccess: () => setGerminated('') });
+        if (sending.current) return;
+        sending.current = true;
+        const entry = { testedOn, seedsTested: Number(tested), germinated: Number(germinated) };
+        add.mutate(
+          { ...entry, idempotencyKey: submission.keyFor(entry) },
+          {
+            onSuccess: () => {
+              submission.renew();
+              setGerminated('');
+            },
+            onSettled: () => {
+              sending.current = false;
+            },
+          },
+        );
       }}
     >
       <label className="flex flex-col gap-1 text-sm"><span className="font-semibold">Tested on</span><input type="date" className={INPUT} value={testedOn} onChange={(e) => setTestedOn(e.target.value)} /></label>

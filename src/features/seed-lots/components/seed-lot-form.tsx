@@ -6,6 +6,7 @@ import type { SeedLotCreateInput, SeedLotDto } from '#shared/schemas/seed-lots';
 import { applyServerFieldErrors } from '@/lib/form-errors';
 import { mutationProblem } from '@/lib/problems';
 import { changedValues } from '@/lib/changed-values';
+import { useSubmissionKey } from '@/lib/use-submission-key';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { FieldError, TextField } from '@/components/ui/text-field';
@@ -45,6 +46,7 @@ export function SeedLotForm({
   const create = useCreateSeedLot(gardenId);
   const update = useUpdateSeedLot(gardenId, lot?.id ?? 0);
   const mutation = lot ? update : create;
+  const submission = useSubmissionKey();
   const { register, handleSubmit, formState, setError } = useForm<z.input<typeof seedLotCreateSchema>, unknown, SeedLotCreateInput>({
     resolver: zodResolver(seedLotCreateSchema),
     defaultValues: lot ? valuesOf(lot) : { supplier: '', lotNumber: '', packedForYear: null, quantity: null, quantityUnit: 'seeds', storageNotes: '' },
@@ -56,8 +58,14 @@ export function SeedLotForm({
     const changes = changedValues(values, dirtyFields);
     // Nothing changed: close without asking the server to rewrite the same values.
     if (lot && !Object.keys(changes).length) return onSaved();
-    const saving = lot ? update.mutateAsync(changes) : create.mutateAsync(values);
-    return saving.then(onSaved, (error: unknown) => applyServerFieldErrors(error, setError, FIELDS));
+    const saving = lot ? update.mutateAsync(changes) : create.mutateAsync({ ...values, idempotencyKey: submission.keyFor(values) });
+    return saving.then(
+      () => {
+        submission.renew();
+        onSaved();
+      },
+      (error: unknown) => applyServerFieldErrors(error, setError, FIELDS),
+    );
   });
   const idp = `lot-${lot?.id ?? 'new'}`;
   return (

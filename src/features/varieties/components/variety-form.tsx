@@ -11,6 +11,7 @@ import type { UnitSystem } from '#shared/units/measures';
 import { applyServerFieldErrors } from '@/lib/form-errors';
 import { mutationProblem } from '@/lib/problems';
 import { changedValues } from '@/lib/changed-values';
+import { useSubmissionKey } from '@/lib/use-submission-key';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { FieldError, TextField } from '@/components/ui/text-field';
@@ -77,6 +78,7 @@ export function VarietyForm({
   const create = useCreateVariety(gardenId);
   const update = useUpdateVariety(gardenId, variety?.id ?? 0);
   const mutation = variety ? update : create;
+  const submission = useSubmissionKey();
   const system = unitSystemOf(units);
   const { register, handleSubmit, formState, setError } = useForm<FormInput, unknown, VarietyCreateInput>({
     resolver: varietyResolver(system),
@@ -90,8 +92,14 @@ export function VarietyForm({
     const changes = changedValues(values, dirtyFields);
     // Nothing changed: close without asking the server to rewrite the same values.
     if (variety && !Object.keys(changes).length) return onSaved();
-    const saving = variety ? update.mutateAsync(changes) : create.mutateAsync(values);
-    return saving.then(onSaved, (error: unknown) => applyServerFieldErrors(error, setError, FIELDS));
+    const saving = variety ? update.mutateAsync(changes) : create.mutateAsync({ ...values, idempotencyKey: submission.keyFor(values) });
+    return saving.then(
+      () => {
+        submission.renew();
+        onSaved();
+      },
+      (error: unknown) => applyServerFieldErrors(error, setError, FIELDS),
+    );
   });
   const idp = `v${variety?.id ?? 'new'}`;
   const ratingSelect = (name: 'boltTolerance' | 'heatTolerance', label: string) => (

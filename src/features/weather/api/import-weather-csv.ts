@@ -9,6 +9,8 @@ import { weatherKeys } from '@/features/weather/api/weather-keys';
 export interface WeatherImportInput {
   unit: DisplayUnit;
   file: File;
+  /** Names the one upload meant: a retry with the same key is answered as the first was. */
+  idempotencyKey?: string;
 }
 
 /** A 422 answer lists every bad row of the file in the error's `rows`. */
@@ -16,7 +18,8 @@ export async function importWeatherCsv(gardenId: number, input: WeatherImportInp
   const body = new FormData();
   body.append('unit', input.unit);
   body.append('file', input.file, input.file.name);
-  return (await api.post<{ import: WeatherImportResult }>(`/api/gardens/${gardenId}/weather/imports`, body)).import;
+  const headers = input.idempotencyKey ? { 'Idempotency-Key': input.idempotencyKey } : undefined;
+  return (await api.post<{ import: WeatherImportResult }>(`/api/gardens/${gardenId}/weather/imports`, body, headers)).import;
 }
 
 export function useImportWeatherCsv(gardenId: number) {

@@ -6,6 +6,7 @@ import type { WeatherImportResult } from '#shared/schemas/weather';
 import type { ApiError } from '@/lib/api-client';
 import { formatFullRange, UNIT_WORDS } from '@/lib/format';
 import { mutationProblem } from '@/lib/problems';
+import { useSubmissionKey } from '@/lib/use-submission-key';
 import { FILE_INPUT_CLASS, UploadButton } from '@/components/ui/upload-button';
 import { Notice } from '@/components/ui/notice';
 import { RowReport } from '@/components/ui/row-report';
@@ -72,18 +73,29 @@ function ImportFailure({ error }: { error: ApiError }) {
 export function StationUploadForm({ gardenId, gardenUnit }: { gardenId: number; gardenUnit: DisplayUnit }) {
   const id = useId();
   const upload = useImportWeatherCsv(gardenId);
+  const submission = useSubmissionKey();
   const {
     register,
     handleSubmit,
     watch,
     resetField,
-    formState: { errors },
+    formState: { errors, isSubmitting },
   } = useForm<UploadValues>({ defaultValues: { unit: gardenUnit, file: null } });
 
+  // Returned to the form, so it counts as submitting (and the button stays off) until the answer.
   const onSubmit = handleSubmit((values) => {
     const file = values.file?.[0];
     if (!file) return;
-    upload.mutate({ unit: values.unit, file }, { onSuccess: () => resetField('file') });
+    const { unit } = values;
+    const idempotencyKey = submission.keyFor({ name: file.name, size: file.size, lastModified: file.lastModified, unit });
+    return upload.mutateAsync({ unit, file, idempotencyKey }).then(
+      () => {
+        submission.renew();
+        resetField('file');
+      },
+      // Shown from the mutation's own error below.
+      () => undefined,
+    );
   });
 
   const serverFields = upload.error?.fields ?? {};
@@ -144,7 +156,7 @@ export function StationUploadForm({ gardenId, gardenUnit }: { gardenId: number; 
         </div>
 
         <div>
-          <UploadButton pending={upload.isPending} label="Upload readings" pendingLabel="Uploading…" />
+          <UploadButton pending={isSubmitting || upload.isPending} label="Upload readings" pendingLabel="Uploading…" />
         </div>
       </form>
 
