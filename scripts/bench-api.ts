@@ -84,7 +84,7 @@ async function seed() {
   // The generated garden's alerts, as the nightly evaluation would leave them.
   const app = createApp({ config: { ...base, db: { ...base.db, database: DB } }, sequelize, clientDir: null, weather, logger: createLogger('warn') });
   const t = performance.now();
-  await app.locals.alerts.evaluate(big.id);
+  await (app.locals.alerts as { evaluate: (gardenId: number) => Promise<unknown> }).evaluate(big.id);
   const evaluateBig = Math.round(performance.now() - t);
   const planting = await Planting.findOne({ where: { gardenId: home.id, status: 'growing' }, order: [['id', 'ASC']] });
   // Start cold: no stored progress and no pending weather events for the worker to warm it with.

@@ -15,7 +15,7 @@ export function createMigrator(sequelize: Sequelize) {
     migrations: {
       glob: ['migrations/*.ts', { cwd: here }],
       resolve: ({ name, path: file, context }) => {
-        const load = () => import(pathToFileURL(file!).href);
+        const load = () => import(pathToFileURL(file!).href) as Promise<{ up: (c: MigrationContext) => Promise<void>; down: (c: MigrationContext) => Promise<void> }>;
         return {
           name: name.replace(/\.ts$/, ''),
           up: async () => (await load()).up(context),

@@ -26,7 +26,8 @@ const sha256 = (x: string | Buffer) => createHash('sha256').update(x).digest('he
 /** What the request asks for: its JSON body, or a multipart body's fields and file contents. */
 function fingerprint(req: Parameters<RequestHandler>[0]): string {
   const file = (req as { file?: { buffer?: Buffer } }).file;
-  return sha256(JSON.stringify({ body: req.body ?? null, file: file?.buffer ? sha256(file.buffer) : null }));
+  const body: unknown = req.body ?? null;
+  return sha256(JSON.stringify({ body, file: file?.buffer ? sha256(file.buffer) : null }));
 }
 
 interface Row {

@@ -21,7 +21,7 @@ export function localeOf(header: string | undefined): string {
       .map((part) => {
         const [tag, ...params] = part.trim().split(';');
         const q = params.map((p) => /^\s*q=([\d.]+)\s*$/.exec(p)).find(Boolean);
-        return { tag: tag!.trim(), q: q ? Number(q[1]) : 1 };
+        return { tag: tag.trim(), q: q ? Number(q[1]) : 1 };
       })
       .filter((t) => t.tag && t.tag !== '*' && t.q > 0 && /^[A-Za-z]{2,8}(-[A-Za-z0-9]{1,8})*$/.test(t.tag))
       .sort((a, b) => b.q - a.q);

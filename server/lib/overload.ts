@@ -22,7 +22,7 @@ function shed(res: Response, retryAfterS: number) {
     error: {
       code: 'overloaded',
       message: `Heatclock is busier than it can answer right now. Please try again in ${retryAfterS} seconds.`,
-      requestId: res.locals.requestId,
+      requestId: res.locals.requestId as string | undefined,
     },
   });
 }

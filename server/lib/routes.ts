@@ -61,7 +61,6 @@ export interface GardenMembership {
 
 
 declare global {
-  // eslint-disable-next-line @typescript-eslint/no-namespace
   namespace Express {
     interface Request {
       membership?: GardenMembership;

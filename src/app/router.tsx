@@ -59,7 +59,7 @@ export const routes: RouteObject[] = [
  * while the session is still being checked, instead of one after the other.
  */
 function preloadPagesFor(pathname: string) {
-  for (const match of matchRoutes(routes, pathname) ?? []) (match.route.handle as PageHandle | undefined)?.preload();
+  for (const match of matchRoutes(routes, pathname) ?? []) void (match.route.handle as PageHandle | undefined)?.preload();
 }
 
 export function createAppRouter() {

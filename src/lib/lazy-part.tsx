@@ -37,7 +37,8 @@ class DownloadBoundary extends Component<BoundaryProps, { error: unknown }> {
   render() {
     const { error } = this.state;
     if (!error) return this.props.children;
-    if (!(error instanceof DownloadError)) throw error;
+    // Not ours to show: the next boundary up gets it, as React would pass it on.
+    if (!(error instanceof DownloadError)) throw error instanceof Error ? error : new Error('A page part failed.', { cause: error });
     return (
       <div className="flex flex-col items-start gap-3 py-6">
         <Notice tone="error" title={this.props.failed} live="alert">

@@ -11,7 +11,7 @@ export async function gardenWithClients(app: ReturnType<typeof testApp>) {
   const clients = {} as Record<'owner' | 'grower' | 'viewer' | 'outsider', TestAgent>;
   for (const role of ['owner', 'grower', 'viewer', 'outsider'] as const) {
     // A default header, as the web client sends it: DELETEs carry no body, so the CSRF guard needs it.
-    clients[role] = agent(app).set('X-Requested-With', 'heatclock-test') as TestAgent;
+    clients[role] = agent(app).set('X-Requested-With', 'heatclock-test');
     await signIn(clients[role], ctx[role].email);
   }
   return { ...ctx, clients, base: `/api/gardens/${ctx.garden.id}` };
@@ -42,11 +42,11 @@ export async function makeVariety(gardenId: number, attrs: Partial<InferCreation
     gddTargetOverrideC: null,
     notes: '',
     ...attrs,
-  } as InferCreationAttributes<Variety>);
+  });
 }
 
 export async function makeLot(gardenId: number, varietyId: number, attrs: Partial<InferCreationAttributes<SeedLot>> = {}) {
-  return SeedLot.create({ gardenId, varietyId, supplier: 'Test supplier', lotNumber: `L-${randomUUID().slice(0, 6)}`, packedForYear: 2024, quantity: 100, quantityUnit: 'seeds', storageNotes: '', ...attrs } as InferCreationAttributes<SeedLot>);
+  return SeedLot.create({ gardenId, varietyId, supplier: 'Test supplier', lotNumber: `L-${randomUUID().slice(0, 6)}`, packedForYear: 2024, quantity: 100, quantityUnit: 'seeds', storageNotes: '', ...attrs });
 }
 
 export async function makePlanting(gardenId: number, attrs: Partial<InferCreationAttributes<Planting>> = {}) {
@@ -71,5 +71,5 @@ export async function makePlanting(gardenId: number, attrs: Partial<InferCreatio
     notes: '',
     createdBy: null,
     ...attrs,
-  } as InferCreationAttributes<Planting>);
+  });
 }

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { spreadLabels, weekStepFor } from '../../src/lib/chart-axes';
+import { spreadLabels, weekStepFor } from '@/lib/chart-axes';
 
 describe('threshold keys beside their lines', () => {
   it('when lines are far apart, then each key sits at its own line', () => {

@@ -55,7 +55,7 @@ export class Variety extends Model<InferAttributes<Variety>, InferCreationAttrib
           defaultValue: '',
           get() {
             const raw = this.getDataValue('traits') as unknown as string;
-            return raw ? (raw.split(',') as VarietyTrait[]) : [];
+            return raw ? (raw.split(',')) : [];
           },
           set(value: VarietyTrait[]) {
             this.setDataValue('traits', value.join(',') as unknown as VarietyTrait[]);

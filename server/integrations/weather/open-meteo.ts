@@ -93,8 +93,8 @@ export function parseDaily(body: unknown): { days: FetchedDay[]; rejected: Rejec
     const hi = tempSchema.safeParse(daily.temperature_2m_max[i]);
     const lo = tempSchema.safeParse(daily.temperature_2m_min[i]);
     if (!hi.success || !lo.success) {
-      const bad = !hi.success ? ['high', daily.temperature_2m_max[i]] : ['low', daily.temperature_2m_min[i]];
-      return rejected.push({ date: date.data, reason: `${bad[0]} ${JSON.stringify(bad[1])} is not a plausible temperature` });
+      const [which, value]: [string, unknown] = !hi.success ? ['high', daily.temperature_2m_max[i]] : ['low', daily.temperature_2m_min[i]];
+      return rejected.push({ date: date.data, reason: `${which} ${JSON.stringify(value)} is not a plausible temperature` });
     }
     const tmax = convertMax(hi.data);
     const tmin = convertMin(lo.data);
@@ -105,11 +105,13 @@ export function parseDaily(body: unknown): { days: FetchedDay[]; rejected: Rejec
 }
 
 function retryAfterMs(err: AxiosError): number {
-  const header = err.response?.headers?.['retry-after'];
+  const raw: unknown = err.response?.headers?.['retry-after'];
+  if (typeof raw !== 'string' && typeof raw !== 'number') return 0;
+  const header = String(raw);
   if (!header) return 0;
   const secs = Number(header);
   if (Number.isFinite(secs)) return Math.max(0, secs * 1000);
-  const at = Date.parse(String(header));
+  const at = Date.parse(header);
   return Number.isFinite(at) ? Math.max(0, at - Date.now()) : 0;
 }
 
@@ -144,7 +146,7 @@ export function createWeatherClient(opts: WeatherClientOptions): WeatherClient {
   async function get(url: string, params: Record<string, string | number>): Promise<FetchResult> {
     const before = requests;
     try {
-      const res = await http.get(url, { params, responseType: 'text', transformResponse: (x) => x });
+      const res = await http.get(url, { params, responseType: 'text', transformResponse: (x: string) => x });
       let body: unknown;
       try {
         body = JSON.parse(String(res.data));

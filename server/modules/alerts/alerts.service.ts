@@ -4,6 +4,7 @@
  * transaction — new ones opened, changed ones updated (a worsening keeps its row), passed ones
  * resolved and kept. Messages for new or worsened alerts are written in the same transaction.
  */
+import type { ProgressSummaryDto } from '#shared/schemas/progress';
 import type { Sequelize, Transaction } from 'sequelize';
 import { findCrop } from '#shared/crops/library';
 import type { AlertCountsDto, AlertDto, AlertListQuery, AlertType } from '#shared/schemas/alerts';
@@ -115,7 +116,7 @@ export class AlertService {
     const rows = await this.progress.repo.growing(gardenId, today);
     // A summary a concurrent change kept out of the cache is computed for this run all the same.
     const missing = rows.filter((r) => !r.summary).map((r) => r.plantingId);
-    const computed = missing.length ? await this.progress.summaries(gardenId, missing) : new Map();
+    const computed = missing.length ? await this.progress.summaries(gardenId, missing) : new Map<number, ProgressSummaryDto>();
     const plantings = rows.flatMap((r) => {
       const progress = r.summary ?? computed.get(r.plantingId);
       return progress ? [{ plantingId: r.plantingId, label: `${findCrop(r.cropKey)?.name ?? r.cropKey}: ${r.varietyName} (${r.bedName})`, progress }] : [];

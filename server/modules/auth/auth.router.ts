@@ -1,5 +1,5 @@
 import { Router } from 'express';
-import type { Request, Response, NextFunction } from 'express';
+import type { Request, RequestHandler, Response, NextFunction } from 'express';
 import type { configurePassport } from './passport';
 import type { Sequelize } from 'sequelize';
 import { rateLimit, ipKeyGenerator } from 'express-rate-limit';
@@ -21,9 +21,9 @@ import { assertStrongPassword } from './password-strength';
 function signIn(req: Request, user: UserDto): Promise<void> {
   return new Promise((resolve, reject) =>
     req.login(user, (err) => {
-      if (err) return reject(err);
+      if (err) return reject(err instanceof Error ? err : new Error('Signing in failed.'));
       req.session.signedInAt = Date.now();
-      req.session.save((e) => (e ? reject(e) : resolve()));
+      req.session.save((e: unknown) => (e ? reject(e instanceof Error ? e : new Error('The session could not be saved.')) : resolve()));
     }),
   );
 }
@@ -32,7 +32,10 @@ export function authRouter(deps: { sequelize: Sequelize; config: AppConfig; pass
   const { sequelize, config, passport, table } = deps;
   const router = Router();
 
-  const emailOf = (req: Request) => String(req.body?.email ?? '').trim().toLowerCase();
+  const emailOf = (req: Request) => {
+    const email = (req.body as { email?: unknown } | undefined)?.email;
+    return typeof email === 'string' ? email.trim().toLowerCase() : '';
+  };
   const ipOf = (req: Request) => ipKeyGenerator(req.ip ?? '');
   /** One limiter, counted in MariaDB so every instance sees the same attempts. */
   const limiter = (o: { prefix: string; windowMs: number; limit: number; key: (req: Request) => string; failuresOnly: boolean; what: string }) =>
@@ -45,12 +48,12 @@ export function authRouter(deps: { sequelize: Sequelize; config: AppConfig; pass
       store: new MariaDbRateLimitStore(sequelize, o.prefix),
       keyGenerator: o.key,
       handler: (_req, res, _next, options) => {
-        const retry = res.getHeader('Retry-After');
+        const retry = String(res.getHeader('Retry-After') ?? Math.ceil(options.windowMs / 1000));
         res.status(options.statusCode).json({
           error: {
             code: 'rate_limited',
-            message: `Too many ${o.what}. Try again in ${retry ?? Math.ceil(options.windowMs / 1000)} seconds.`,
-            requestId: res.locals.requestId,
+            message: `Too many ${o.what}. Try again in ${retry} seconds.`,
+            requestId: res.locals.requestId as string | undefined,
           },
         });
       },
@@ -106,7 +109,7 @@ export function authRouter(deps: { sequelize: Sequelize; config: AppConfig; pass
           ...loginLimiters,
         ],
         handler: (req: Request, res: Response, next: NextFunction) => {
-          passport.authenticate('local', (err: unknown, user: UserDto | false) => {
+          (passport.authenticate as (strategy: string, done: (err: unknown, user: UserDto | false) => void) => RequestHandler)('local', (err: unknown, user: UserDto | false) => {
             if (err) return next(err);
             if (!user) return next(new AppError(401, 'invalid_credentials', INVALID_CREDENTIALS));
             signIn(req, user).then(() => res.json({ user }), next);

@@ -9,10 +9,9 @@ import type { UserDto } from '#shared/schemas/auth';
 import type { SqlSessionStore } from './session-store';
 
 declare global {
-  // eslint-disable-next-line @typescript-eslint/no-namespace
   namespace Express {
-    // eslint-disable-next-line @typescript-eslint/no-empty-object-type
-    interface User extends UserDto {}
+    // Passport's user is ours: merge our fields into Express.User (an alias cannot merge).
+    interface User extends UserDto {} // eslint-disable-line @typescript-eslint/no-empty-object-type
   }
 }
 

@@ -37,7 +37,7 @@ export function presentCrop(c: CropWithOverrides): CropDto {
       source: o.note ? `Set for this garden: ${o.note}` : 'Set for this garden',
       confidence: null,
       origin: 'garden',
-      libraryDefault: { value: def.value as Scalar, source: def.source, confidence: def.confidence },
+      libraryDefault: { value: def.value, source: def.source, confidence: def.confidence },
       updatedAt: o.updatedAt.toISOString(),
     };
   });

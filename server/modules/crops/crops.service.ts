@@ -29,7 +29,7 @@ async function overridesOf(gardenId: number, cropKeys: string[], transaction?: T
   const byCrop = new Map<string, Map<CropParamKey, CropOverride>>();
   for (const row of rows) {
     if (!(CROP_PARAM_KEYS as string[]).includes(row.paramKey)) continue;
-    const m = byCrop.get(row.cropKey) ?? new Map();
+    const m = byCrop.get(row.cropKey) ?? new Map<CropParamKey, CropOverride>();
     m.set(row.paramKey as CropParamKey, row);
     byCrop.set(row.cropKey, m);
   }
@@ -61,7 +61,7 @@ function valuesAfter(current: CropWithOverrides, input: CropOverridesUpdateInput
 }
 
 function inconsistent(problems: Partial<Record<CropParamKey, string>>): AppError {
-  const fields = Object.fromEntries(Object.entries(problems).map(([key, message]) => [`params.${key}.value`, message!]));
+  const fields = Object.fromEntries(Object.entries(problems).map(([key, message]) => [`params.${key}.value`, message]));
   const message = [...new Set(Object.values(fields))].join(' ');
   return new AppError(400, 'validation_failed', message, fields);
 }
@@ -74,7 +74,7 @@ const isDegreeDays = (key: CropParamKey) => {
 export async function listCrops(gardenId: number, q: CropListQuery): Promise<CropWithOverrides[]> {
   const byCrop = await overridesOf(gardenId, CROP_LIBRARY.map((c) => c.key));
   const text = q.q?.toLowerCase();
-  return CROP_LIBRARY.map((crop) => ({ crop, overrides: byCrop.get(crop.key) ?? new Map() })).filter((c) => {
+  return CROP_LIBRARY.map((crop) => ({ crop, overrides: byCrop.get(crop.key) ?? new Map<CropParamKey, CropOverride>() })).filter((c) => {
     const season = (c.overrides.has('season') ? overrideValue(c.overrides.get('season')!) : c.crop.params.season.value) as string;
     if (q.season && season !== q.season) return false;
     return !text || c.crop.name.toLowerCase().includes(text) || c.crop.botanicalName.toLowerCase().includes(text);
@@ -84,7 +84,7 @@ export async function listCrops(gardenId: number, q: CropListQuery): Promise<Cro
 export async function getCrop(gardenId: number, cropKey: string, transaction?: Transaction): Promise<CropWithOverrides> {
   const crop = cropOrNotFound(cropKey);
   const byCrop = await overridesOf(gardenId, [crop.key], transaction);
-  return { crop, overrides: byCrop.get(crop.key) ?? new Map() };
+  return { crop, overrides: byCrop.get(crop.key) ?? new Map<CropParamKey, CropOverride>() };
 }
 
 /**
@@ -97,7 +97,7 @@ export async function updateCropOverrides(gardenId: number, userId: number, crop
   const garden = await getGarden(gardenId);
   return inTransaction(CropOverride.sequelize!, async (transaction) => {
     const byCrop = await overridesOf(gardenId, [crop.key], transaction, true);
-    const after = valuesAfter({ crop, overrides: byCrop.get(crop.key) ?? new Map() }, input);
+    const after = valuesAfter({ crop, overrides: byCrop.get(crop.key) ?? new Map<CropParamKey, CropOverride>() }, input);
     const problems = paramProblems(after, garden.units);
     if (Object.keys(problems).length) throw inconsistent(problems);
     const basis = basisOfValues(after);

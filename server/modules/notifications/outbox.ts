@@ -46,7 +46,7 @@ export async function readAlerts(db: Sequelize, gardenIds: number[], ids: number
   );
   return rows.map((r) => ({
     gardenId: r.gardenId,
-    alert: { ...r, reasons: JSON.parse(r.reasonsJson) as string[], updatedAt: new Date(r.updatedAt).toISOString() } as StoredAlert,
+    alert: { ...r, reasons: JSON.parse(r.reasonsJson) as string[], updatedAt: new Date(r.updatedAt).toISOString() },
   }));
 }
 

@@ -60,12 +60,12 @@ export async function listPlantings(gardenId: number, q: PlantingListQuery) {
   if (q.bedId) and.push({ bedId: q.bedId });
   if (q.varietyId) and.push({ varietyId: q.varietyId });
   if (q.seedLotId) and.push({ seedLotId: q.seedLotId });
-  if (q.crop) and.push({ '$variety.crop_key$': q.crop } as WhereOptions<Planting>);
+  if (q.crop) and.push({ '$variety.crop_key$': q.crop });
   if (q.sownFrom) and.push({ startOn: { [Op.gte]: q.sownFrom } });
   if (q.sownTo) and.push({ startOn: { [Op.lte]: q.sownTo } });
   if (q.q) {
     const like = { [Op.like]: likeText(q.q) };
-    and.push({ [Op.or]: [{ '$variety.name$': like }, { '$bed.name$': like }, { notes: like }] } as WhereOptions<Planting>);
+    and.push({ [Op.or]: [{ '$variety.name$': like }, { '$bed.name$': like }, { notes: like }] });
   }
   const where = { [Op.and]: and };
   // Joined only to filter and sort: no columns of theirs are read in the first two steps.

@@ -66,7 +66,7 @@ export async function computeGardenProgress(weather: WeatherService, gardenId: n
     const e = startEvent(p, variety).event;
     const own = e?.packetDays ? { days: e.packetDays, from: e.kind } : undefined;
     const key = `${variety.id}:${own?.days}:${own?.from}`;
-    if (!targets.has(key)) targets.set(key, varietyTarget(garden, variety, effectiveValues(crop), async () => w.history, own));
+    if (!targets.has(key)) targets.set(key, varietyTarget(garden, variety, effectiveValues(crop), () => Promise.resolve(w.history), own));
     results.push(computeOne(garden, p, crop, await targets.get(key)!, w));
   }
   return { garden, today: w.today, results };
@@ -163,7 +163,7 @@ export async function previewProgress(weather: WeatherService, gardenId: number,
   planting.variety = variety;
   const e = startEvent(planting, variety).event;
   const own = e?.packetDays ? { days: e.packetDays, from: e.kind } : undefined;
-  const target = await varietyTarget(garden, variety, effectiveValues(crop), async () => w.history, own);
+  const target = await varietyTarget(garden, variety, effectiveValues(crop), () => Promise.resolve(w.history), own);
   const computed = computeOne(garden, planting, crop, target, w);
   let boltSeason: PreviewComputation['boltSeason'] = null;
   const effective = effectiveValues(crop);

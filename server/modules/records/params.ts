@@ -6,5 +6,5 @@ import { validationError } from '../../errors';
 export function recordId(params: Record<string, unknown>, name: string): number {
   const result = z.strictObject({ [name]: idParamSchema }).safeParse({ [name]: params[name] });
   if (!result.success) throw validationError(result.error, 'params');
-  return result.data[name] as number;
+  return result.data[name];
 }

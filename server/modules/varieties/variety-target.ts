@@ -124,7 +124,7 @@ export async function varietyTargets(
   const [history, rows] = await Promise.all([needsHistory ? loadHistory(garden) : Promise.resolve([]), startRowsOf(varieties.map((v) => v.id))]);
   const byVariety = new Map<number, StartRow[]>(varieties.map((v) => [v.id, []]));
   for (const row of rows) byVariety.get(row.varietyId)?.push(row);
-  const once = async () => history;
+  const once = () => Promise.resolve(history);
   const targets = await Promise.all(varieties.map((v) => varietyTarget(garden, v, cropOf(v), once, undefined, byVariety.get(v.id))));
   return new Map(varieties.map((v, i) => [v.id, targets[i]]));
 }

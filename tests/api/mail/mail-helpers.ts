@@ -58,7 +58,7 @@ export async function insertAlert(
       type: QueryTypes.INSERT,
     },
   );
-  return id as number;
+  return id;
 }
 
 export async function setPreference(userId: number, gardenId: number, delivery: Delivery, types: AlertType[] | null = null, digestHour = 7) {

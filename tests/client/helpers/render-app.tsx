@@ -19,7 +19,7 @@ function everyRoute(list: RouteObject[]): RouteObject[] {
  * file before any test runs, so a test meets its page ready instead of racing the first import.
  * (tests/client/lazy-part.test.tsx covers the loading line and a failed download.)
  */
-await Promise.all(everyRoute(routes).map((route) => (route.handle as { preload?: () => Promise<unknown> } | undefined)?.preload?.()));
+await Promise.all(everyRoute(routes).map((route) => (route.handle as { preload?: () => Promise<unknown> } | undefined)?.preload?.() ?? Promise.resolve()));
 
 /** Renders the whole app at `path` with a fresh client that never retries. */
 export function renderApp(path: string) {

@@ -22,7 +22,7 @@ export function RegisterConfirmPage() {
   const finish = () =>
     confirm.mutate(undefined, {
       // As a new sign-up always has: straight to the new garden, which asks for its location next.
-      onSuccess: ({ garden }) => navigate(`/g/${garden.id}`, { replace: true }),
+      onSuccess: ({ garden }) => void navigate(`/g/${garden.id}`, { replace: true }),
     });
 
   return (

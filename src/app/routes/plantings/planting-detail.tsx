@@ -60,7 +60,7 @@ function DeletePlanting({ planting: p, photoCount }: { planting: PlantingDto; ph
       question={`Delete this planting of ${p.variety.name} in ${p.bed.name}?`}
       consequence={`${inWords(lost)} are deleted with it, for good. To keep its record but show it ended, set its status to Failed or Harvested instead.`}
       confirmLabel="Delete planting"
-      onConfirm={() => remove.mutate(undefined, { onSuccess: () => navigate(`/g/${garden.id}/plantings`, { replace: true }) })}
+      onConfirm={() => remove.mutate(undefined, { onSuccess: () => void navigate(`/g/${garden.id}/plantings`, { replace: true }) })}
       pending={remove.isPending}
       error={remove.error}
     />

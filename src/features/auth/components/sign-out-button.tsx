@@ -13,7 +13,7 @@ export function SignOutButton({ className = 'px-3 text-sm' }: { className?: stri
       variant="quiet"
       className={className}
       disabled={logout.isPending}
-      onClick={() => logout.mutate(undefined, { onSuccess: () => navigate('/sign-in', { replace: true }) })}
+      onClick={() => logout.mutate(undefined, { onSuccess: () => void navigate('/sign-in', { replace: true }) })}
       title={logout.isError ? `Not signed out: ${logout.error.message}` : undefined}
     >
       <LogOut className="size-4" aria-hidden="true" />

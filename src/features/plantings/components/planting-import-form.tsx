@@ -40,7 +40,8 @@ const COLUMN_HELP: Record<(typeof PLANTING_CSV_COLUMNS)[number], string> = {
   bolted: DATE,
   notes: 'text',
   log_date: `${DATE}, when the row carries a log entry`,
-  log_kind: list(LOG_KINDS),
+  // Photo entries come with their photo, from the upload; a file cannot carry one.
+  log_kind: list(LOG_KINDS.filter((k) => k !== 'photo')),
   log_amount: 'harvests only: a number',
   log_unit: list(HARVEST_UNITS),
   log_note: 'text',
