@@ -5,6 +5,7 @@
  * later with its retries. Nothing a visitor typed is put in these messages except the address
  * they go to, so the sign-up form cannot be used to mail someone else words of its choosing.
  */
+import { esc, mailPage } from '../notifications/mail-content';
 import { randomUUID } from 'node:crypto';
 import { QueryTypes } from 'sequelize';
 import type { Sequelize, Transaction } from 'sequelize';
@@ -16,19 +17,7 @@ export const FINISH_SUBJECT = 'Finish creating your Heatclock account';
 export const EXISTING_SUBJECT = 'Someone tried to create a Heatclock account with your e-mail';
 export const LINK_HOURS = 24;
 
-const esc = (s: string) => s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
-
-function page(subject: string, paragraphs: string[]): string {
-  return [
-    '<!doctype html>',
-    '<html lang="en"><head><meta charset="utf-8"><meta name="viewport" content="width=device-width">',
-    `<title>${esc(subject)}</title></head>`,
-    '<body style="font-family: sans-serif; line-height: 1.5; max-width: 40em">',
-    `<h1>${esc(subject)}</h1>`,
-    ...paragraphs.map((p) => `<p>${p}</p>`),
-    '</body></html>',
-  ].join('\n');
-}
+const page = (subject: string, paragraphs: string[]) => mailPage(subject, paragraphs.map((p) => `<p>${p}</p>`));
 
 export function renderFinishMail(email: string, confirmUrl: string): MailContent {
   const intro = `You, or someone using your address, asked to create a Heatclock account for ${email}.`;

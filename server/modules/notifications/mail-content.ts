@@ -35,7 +35,7 @@ export interface MailContent {
 const when = (a: MailAlert) => (a.endsOn ? dayRange(a.firstOn, a.endsOn) : `from ${dayMonth(a.firstOn)}`);
 const heading = (a: MailAlert) => `${ALERT_SEVERITY_WORDS[a.severity]} · ${ALERT_TYPE_WORDS[a.type]}: ${a.title}`;
 
-const esc = (s: string) => s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
+export const esc = (s: string) => s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
 
 function alertText(a: MailAlert): string {
   return [
@@ -69,20 +69,27 @@ function footerText(ctx: MailContext, reason: string): string {
   ].join('\n');
 }
 
-function page(subject: string, intro: string, body: string, ctx: MailContext, reason: string): string {
+/** One accessible HTML page for every Heatclock mail: its subject as title and heading, then `body`. */
+export function mailPage(subject: string, body: string[]): string {
   return [
     '<!doctype html>',
     '<html lang="en"><head><meta charset="utf-8"><meta name="viewport" content="width=device-width">',
     `<title>${esc(subject)}</title></head>`,
     '<body style="font-family: sans-serif; line-height: 1.5; max-width: 40em">',
     `<h1>${esc(subject)}</h1>`,
+    ...body,
+    '</body></html>',
+  ].join('\n');
+}
+
+function page(subject: string, intro: string, body: string, ctx: MailContext, reason: string): string {
+  return mailPage(subject, [
     `<p>Hello ${esc(ctx.memberName)},</p><p>${esc(intro)}</p>`,
     body,
     `<p><a href="${esc(ctx.gardenUrl)}">Open ${esc(ctx.gardenName)} in Heatclock</a></p>`,
     `<footer><p>${esc(reason)} <a href="${esc(ctx.settingsUrl)}">Choose what you receive</a> or `,
     `<a href="${esc(ctx.unsubscribeUrl)}">stop e-mail from ${esc(ctx.gardenName)}</a>.</p></footer>`,
-    '</body></html>',
-  ].join('\n');
+  ]);
 }
 
 /** Mail is worded once for everyone it goes to: stored dates in the default language. */
