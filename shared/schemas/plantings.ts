@@ -113,6 +113,8 @@ export const plantingListQuerySchema = z.strictObject({
   q: z.string().trim().max(100).optional(),
   sownFrom: z.iso.date().optional(),
   sownTo: z.iso.date().optional(),
+  /** A growing season by its start year: '2025' is the 2025 season north, the 2025–26 season south. */
+  season: z.coerce.number({ error: 'Season must be a year, e.g. 2025.' }).int({ error: 'Season must be a year, e.g. 2025.' }).min(1900, { error: 'Season must be a year, e.g. 2025.' }).max(2200, { error: 'Season must be a year, e.g. 2025.' }).optional(),
   sort: z.enum(PLANTING_SORTS, { error: 'Sort by sown, crop, variety, bed, status, progress, ready or risk.' }).default('sown'),
   order: sortOrderSchema,
   ...pageQueryShape,

@@ -4,6 +4,10 @@ import type { PlantingMethod, PlantingQuantityUnit, PlantingStatus } from '#shar
 import type { Bed } from './bed';
 import type { Variety } from './variety';
 import type { SeedLot } from './seed-lot';
+import { seasonInputs, seasonYearOf } from '../planting-season';
+
+/** What a planting's season is read from (start-event.ts); a save touching none of them keeps it. */
+const SEASON_FIELDS = ['method', 'status', 'sownOn', 'emergedOn', 'transplantedOn', 'varietyId', 'gardenId'] as const;
 
 export class Planting extends Model<InferAttributes<Planting>, InferCreationAttributes<Planting>> {
   declare id: CreationOptional<number>;
@@ -23,6 +27,8 @@ export class Planting extends Model<InferAttributes<Planting>, InferCreationAttr
   declare lastHarvestOn: string | null;
   declare boltedOn: string | null;
   declare startOn: string | null;
+  /** The growing season's start year (planting-season.ts), written by the beforeSave hook. */
+  declare seasonYear: CreationOptional<number | null>;
   declare notes: string;
   declare createdBy: number | null;
   declare createdAt: CreationOptional<Date>;
@@ -53,6 +59,7 @@ export class Planting extends Model<InferAttributes<Planting>, InferCreationAttr
         lastHarvestOn: date(),
         boltedOn: date(),
         startOn: date(),
+        seasonYear: { type: DataTypes.SMALLINT, allowNull: true },
         notes: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
         createdBy: { type: DataTypes.INTEGER, allowNull: true },
         createdAt: DataTypes.DATE,
@@ -64,8 +71,12 @@ export class Planting extends Model<InferAttributes<Planting>, InferCreationAttr
         modelName: 'Planting',
         hooks: {
           // The natural key's start date always follows the stage dates it is made from.
-          beforeSave: (p) => {
+          // The stored season follows the one start-event rule, whatever path saved the planting.
+          beforeSave: async (p, options) => {
             p.startOn = p.sownOn ?? p.transplantedOn ?? null;
+            if (!p.isNewRecord && !SEASON_FIELDS.some((k) => p.changed(k))) return;
+            const inputs = await seasonInputs(Planting.sequelize!, p.gardenId, p.varietyId, options.transaction);
+            p.seasonYear = inputs ? seasonYearOf(p, inputs.variety, inputs.latitude) : null;
           },
         },
       },

@@ -5,6 +5,7 @@ import { Garden, Membership } from '../../db/models';
 import type { GardenRow } from './gardens.presenter';
 import { AppError } from '../../errors';
 import { inTransaction } from '../../lib/transaction';
+import { refreshGardenSeasons } from '../../db/planting-season';
 
 /** The user's gardens with their role, by name: one indexed read, plain rows (sent on every page load). */
 export async function listGardensFor(userId: number) {
@@ -27,6 +28,11 @@ export async function getGarden(gardenId: number) {
 export async function updateGarden(gardenId: number, input: GardenUpdateInput) {
   const garden = await getGarden(gardenId);
   // In a transaction, so the garden's counters move with its settings (progress-invalidation.ts).
-  await inTransaction(Garden.sequelize!, (transaction) => garden.update(input, { transaction }));
+  // Its plantings' stored seasons follow its hemisphere, in the same transaction.
+  await inTransaction(Garden.sequelize!, async (transaction) => {
+    const moved = input.latitude !== undefined && input.latitude !== garden.latitude;
+    await garden.update(input, { transaction });
+    if (moved) await refreshGardenSeasons(Garden.sequelize!, gardenId, transaction);
+  });
   return garden;
 }

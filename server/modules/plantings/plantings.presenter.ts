@@ -5,7 +5,8 @@ import type { ProgressSummaryDto } from '#shared/schemas/progress';
 import { dayToken, rangeToken } from '#shared/format/dates';
 import { plantingAttention } from '#shared/plantings/attention';
 import { addDays } from '#shared/thermal/index';
-import { packetEmergenceDays, plantingSeason } from '#shared/thermal/start-event';
+import { packetEmergenceDays } from '#shared/thermal/start-event';
+import { seasonOfYear } from '#shared/thermal/season';
 import type { Planting, Variety } from '../../db/models';
 
 /** What comes next for the planting: its own dates first, then the degree-day projection. */
@@ -43,7 +44,8 @@ export function presentPlanting(p: Planting, garden: { latitude: number | null; 
     crop: { key: v.cropKey, name: crop?.name ?? v.cropKey, season: crop?.params.season.value ?? 'cool' },
     seedLot: lot ? { id: lot.id, label: seedLotLabel(lot) } : null,
     ...stages,
-    season: plantingSeason(p, v, garden.latitude ?? 0)?.label ?? null,
+    // The stored season (server/db/planting-season.ts), labelled for the garden's hemisphere.
+    season: p.seasonYear === null || p.seasonYear === undefined ? null : seasonOfYear(p.seasonYear, garden.latitude ?? 0).label,
     nextEvent: nextEvent(p, v, garden.today, progress),
     logCount: Number(p.get('logCount') ?? 0),
     progress,

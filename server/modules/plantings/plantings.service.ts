@@ -63,6 +63,8 @@ export async function listPlantings(gardenId: number, q: PlantingListQuery) {
   if (q.crop) and.push({ '$variety.crop_key$': q.crop });
   if (q.sownFrom) and.push({ startOn: { [Op.gte]: q.sownFrom } });
   if (q.sownTo) and.push({ startOn: { [Op.lte]: q.sownTo } });
+  // The stored season, read through the (garden_id, season_year) index.
+  if (q.season !== undefined) and.push({ seasonYear: q.season });
   if (q.q) {
     const like = { [Op.like]: likeText(q.q) };
     and.push({ [Op.or]: [{ '$variety.name$': like }, { '$bed.name$': like }, { notes: like }] });
