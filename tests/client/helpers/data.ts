@@ -1,4 +1,5 @@
 import type { AlertDto } from '#shared/schemas/alerts';
+import type { ClimateDto } from '#shared/schemas/climate';
 import type { UserDto } from '#shared/schemas/auth';
 import type { GardenDto } from '#shared/schemas/gardens';
 import type { BedDto } from '#shared/schemas/beds';
@@ -342,6 +343,25 @@ export function anAlert(overrides: Partial<AlertDto> = {}): AlertDto {
     acknowledgedAt: null,
     acknowledgedBy: null,
     resolvedAt: null,
+    ...overrides,
+  };
+}
+
+/** A garden's climate facts; by default a garden with no stored weather yet. */
+export function aClimate(overrides: Partial<ClimateDto> = {}): ClimateDto {
+  const none = { p10: null, p50: null, p90: null, years: 0, estimate: true };
+  return {
+    years: 0,
+    estimate: true,
+    hemisphere: 'north',
+    reason: 'No weather is stored for this garden yet.',
+    lastSpringFrost: none,
+    firstFallFrost: none,
+    frostFreeDays: none,
+    extremeMinimum: { mean: null, unit: 'F', years: 0, estimate: true },
+    zone: { zone: null, years: 0, estimate: true },
+    override: null,
+    source: 'history',
     ...overrides,
   };
 }

@@ -8,7 +8,7 @@ import type { UserDto } from '#shared/schemas/auth';
 import type { GardenDto } from '#shared/schemas/gardens';
 import { AppProviders } from '@/app/providers';
 import { routes } from '@/app/router';
-import { aToday } from './data';
+import { aClimate, aToday } from './data';
 
 function everyRoute(list: RouteObject[]): RouteObject[] {
   return list.flatMap((route) => [route, ...everyRoute(route.children ?? [])]);
@@ -56,6 +56,8 @@ export function memberOf(gardens: GardenDto[]) {
     ...quietAlerts,
     quietPreferences,
     http.get('/api/gardens/:gardenId/mail/failed', () => HttpResponse.json({ items: [] })),
+    // The settings page's "Climate here": a garden with no stored weather yet.
+    http.get('/api/gardens/:gardenId/climate', () => HttpResponse.json({ climate: aClimate() })),
   ];
 }
 
