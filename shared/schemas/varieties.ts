@@ -134,3 +134,22 @@ export interface VarietyDto {
 }
 
 export type VarietyPage = Page<VarietyDto>;
+
+/** What this garden's own harvests say a variety needs (server/modules/varieties/calibration.ts). */
+export interface CalibrationDto {
+  /** The unit of every degree-day figure here except `medianC`. */
+  unit: 'F' | 'C';
+  /** Harvests measured; `unmeasured` had no start event or days without weather before the harvest. */
+  count: number;
+  unmeasured: number;
+  median: number | null;
+  /** The median in °C-days, as a grower's target is stored. */
+  medianC: number | null;
+  p25: number | null;
+  p75: number | null;
+  min: number | null;
+  max: number | null;
+  /** Words when few harvests back the figure; null when enough do. */
+  caution: string | null;
+  harvests: { plantingId: number; startOn: string; firstHarvestOn: string; degreeDays: number; days: number }[];
+}

@@ -120,3 +120,41 @@ describe('compact variety cards', () => {
     expect(seen.filter((r) => r.method === 'PATCH').map((r) => r.body)).toEqual([{ spacingCm: 25.4 }]);
   });
 });
+
+describe('calibrating from the garden’s harvests', () => {
+  it('when the grower opens "From your harvests", then the median and its harvests show with a caution, and adopting sends the median in °C-days', async () => {
+    let asked = 0;
+    server.use(
+      http.get('/api/gardens/1/varieties/7/calibration', () => {
+        asked++;
+        return HttpResponse.json({
+          unit: 'F',
+          count: 2,
+          unmeasured: 0,
+          median: 1008,
+          medianC: 560,
+          p25: 972,
+          p75: 1044,
+          min: 972,
+          max: 1044,
+          caution: 'Only 2 harvests back this figure: treat it as a first guess and keep recording.',
+          harvests: [
+            { plantingId: 5, startOn: '2025-04-02', firstHarvestOn: '2025-05-30', degreeDays: 1044, days: 58 },
+            { plantingId: 6, startOn: '2025-08-10', firstHarvestOn: '2025-09-28', degreeDays: 972, days: 49 },
+          ],
+        });
+      }),
+      http.patch('/api/gardens/1/varieties/7', () => HttpResponse.json({ variety: aVariety({ gddTargetOverrideC: 560 }) })),
+    );
+    const { user } = varietiesPage('F', [aVariety()]);
+    const card = await screen.findByRole('article', { name: 'Copperleaf Butterhead' });
+    expect(asked).toBe(0); // nothing is asked for until the grower opens it
+    await user.click(within(card).getByText('From your harvests of Copperleaf Butterhead'));
+    expect(await within(card).findByText('1,008 °F-days')).toBeTruthy();
+    expect(within(card).getByText(/^Only 2 harvests back this figure/)).toBeTruthy();
+    await user.click(within(card).getByRole('button', { name: 'Use 1,008 °F-days as this variety’s target' }));
+    await within(card).findByText(/^Saved: plantings of Copperleaf Butterhead now count toward 1,008 °F-days\./);
+    const patch = seen.find((r) => r.method === 'PATCH' && r.path === '/api/gardens/1/varieties/7');
+    expect(patch?.body).toEqual({ gddTargetOverrideC: 560 });
+  });
+});

@@ -12,8 +12,10 @@ import { presentVariety } from './varieties.presenter';
 import { varietyTarget, varietyTargets } from './variety-target';
 import type { WeatherService } from '../weather/weather.service';
 import type { ReadCache } from '../../lib/read-cache';
+import type { ProgressService } from '../progress/progress.service';
+import { calibrationOf } from './calibration';
 
-export function varietiesRouter(table: RouteTableEntry[], weather: WeatherService, cache: ReadCache) {
+export function varietiesRouter(table: RouteTableEntry[], weather: WeatherService, cache: ReadCache, progress: ProgressService) {
   const router = Router();
   const detail = async (gardenId: number, varietyId: number) => {
     const variety = await getVariety(gardenId, varietyId);
@@ -56,6 +58,16 @@ export function varietiesRouter(table: RouteTableEntry[], weather: WeatherServic
         access: 'viewer',
         handler: async (req, res) => {
           res.json({ variety: await detail(req.membership!.gardenId, recordId(req.params, 'varietyId')) });
+        },
+      },
+      {
+        method: 'get',
+        path: '/:varietyId/calibration',
+        access: 'viewer',
+        handler: async (req, res) => {
+          const gardenId = req.membership!.gardenId;
+          const variety = await getVariety(gardenId, recordId(req.params, 'varietyId'));
+          await cache.send(req, res, 'calibration', () => calibrationOf(progress, gardenId, variety));
         },
       },
       {

@@ -11,6 +11,7 @@ import { Button } from '@/components/ui/button';
 import { ConfirmDelete } from '@/components/ui/confirm-delete';
 import { useDeleteVariety } from '@/features/varieties/api/delete-variety';
 import { VarietyForm } from '@/features/varieties/components/variety-form';
+import { CalibrationPanel } from '@/features/varieties/components/calibration-panel';
 import { showMeasure } from '@/features/varieties/utils/variety-measures';
 
 const ratingWord = (n: number | null) => (n === null ? 'not known' : RATING_WORDS[n]);
@@ -94,6 +95,7 @@ export function VarietyCard({ gardenId, variety: v, units, canEdit }: { gardenId
         </dl>
         {v.notes && <p>{v.notes}</p>}
       </details>
+      <CalibrationPanel gardenId={gardenId} varietyId={v.id} varietyName={v.name} canEdit={canEdit} />
       {canEdit && (
         <div className="flex flex-wrap gap-2 border-t border-line pt-3">
           <Button variant="quiet" aria-label={`Edit variety ${v.name}`} onClick={() => setEditing(true)}>
