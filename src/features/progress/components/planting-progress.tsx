@@ -1,3 +1,4 @@
+import { Download } from 'lucide-react';
 import type { ProgressDto } from '#shared/schemas/progress';
 import { degreeDayUnit } from '@/lib/format';
 import { LoadProblem } from '@/components/ui/load-problem';
@@ -22,6 +23,17 @@ export function PlantingProgress({ gardenId, plantingId }: { gardenId: number; p
     <div className="flex flex-col gap-4">
       <ProgressChartPanel progress={progress.data} title={chartTitle(progress.data)} />
       <ProgressSummary progress={progress.data} />
+      {progress.data.series.length > 0 && (
+        <p>
+          <a
+            href={`/api/gardens/${gardenId}/plantings/${plantingId}/degree-days.csv`}
+            download
+            className="inline-flex min-h-11 items-center gap-2 rounded-md border border-line bg-paper-raised px-4 font-semibold"
+          >
+            <Download className="size-5" aria-hidden="true" /> Download day-by-day degree days (CSV)
+          </a>
+        </p>
+      )}
     </div>
   );
 }
