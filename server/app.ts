@@ -28,10 +28,12 @@ import { seedLotsRouter } from './modules/seed-lots/seed-lots.router';
 import { plantingsRouter } from './modules/plantings/plantings.router';
 import { photosRouter } from './modules/photos/photos.router';
 import { weatherRouter } from './modules/weather/weather.router';
+import { climateRouter } from './modules/climate/climate.router';
 import { WeatherService } from './modules/weather/weather.service';
 import { createWeatherClient } from './integrations/weather/open-meteo';
 import { ProgressService } from './modules/progress/progress.service';
 import { progressRouter } from './modules/progress/progress.router';
+import { planRouter } from './modules/plan/plan.router';
 import { registerProgressInvalidation } from './modules/progress/progress-invalidation';
 import { plantingProgressProcessor } from './jobs/processors/planting-progress';
 import { AlertService } from './modules/alerts/alerts.service';
@@ -46,6 +48,9 @@ import { createMailSender, mailQueued } from './modules/notifications/mail-sende
 import { enqueueAlertMail } from './modules/notifications/alert-mail';
 import { notificationsRouter } from './modules/notifications/notifications.router';
 import { unsubscribeRouter } from './modules/notifications/unsubscribe.router';
+import { CalendarService } from './modules/calendar/calendar.service';
+import { calendarRouter } from './modules/calendar/calendar.router';
+import { degreeDaysCsvRouter } from './modules/progress/degree-days-csv';
 
 const IMMUTABLE = 'public, max-age=31536000, immutable';
 
@@ -162,15 +167,19 @@ export function createApp({ config, sequelize, logger = createLogger(config.logL
   api.use(passport.session());
   api.use(authRouter({ sequelize, config, passport, table: routes }));
   api.use(gardensRouter({ table: routes, weather: weatherService }));
+  api.use(climateRouter({ sequelize, weather: weatherService, table: routes, cache: readCache }));
   api.use(weatherRouter({ sequelize, weather: weatherService, table: routes, cache: readCache, evaluate: (gardenId) => alerts.evaluate(gardenId) }));
   api.use(bedsRouter(routes));
   api.use(cropsRouter(routes));
-  api.use(varietiesRouter(routes, weatherService, readCache));
+  api.use(varietiesRouter(routes, weatherService, readCache, progress));
   api.use(seedLotsRouter(routes, readCache));
   api.use(progressRouter(progress, alerts, routes, readCache));
+  api.use(planRouter(routes, weatherService, readCache));
   api.use(alertsRouter(alerts, routes, readCache));
   api.use(plantingsRouter(config, routes, progress, readCache));
   api.use(photosRouter(config, routes));
+  api.use(calendarRouter(new CalendarService({ sequelize, progress, alerts, appUrl: config.mail.appUrl, secret: config.sessionSecret }), routes));
+  api.use(degreeDaysCsvRouter(progress, routes));
   api.use(notificationsRouter({ sequelize, table: routes, mailIsLocalFake: config.mail.mode === 'fake' }));
   api.use('/api', () => {
     throw new AppError(404, 'not_found', 'No such API route.');

@@ -19,6 +19,8 @@ const EXPECTED: Record<string, RouteTableEntry['access']> = {
   'get /api/gardens': 'signed-in',
   'get /api/gardens/:gardenId': 'viewer',
   'patch /api/gardens/:gardenId': 'owner',
+  'get /api/gardens/:gardenId/climate': 'viewer',
+  'put /api/gardens/:gardenId/climate': 'owner',
   'get /api/gardens/:gardenId/weather': 'viewer',
   'post /api/gardens/:gardenId/weather/refresh': 'grower',
   'post /api/gardens/:gardenId/weather/imports': 'grower',
@@ -34,6 +36,7 @@ const EXPECTED: Record<string, RouteTableEntry['access']> = {
   'get /api/gardens/:gardenId/varieties': 'viewer',
   'post /api/gardens/:gardenId/varieties': 'grower',
   'get /api/gardens/:gardenId/varieties/:varietyId': 'viewer',
+  'get /api/gardens/:gardenId/varieties/:varietyId/calibration': 'viewer',
   'patch /api/gardens/:gardenId/varieties/:varietyId': 'grower',
   'delete /api/gardens/:gardenId/varieties/:varietyId': 'grower',
   'get /api/gardens/:gardenId/seed-lots': 'viewer',
@@ -48,6 +51,7 @@ const EXPECTED: Record<string, RouteTableEntry['access']> = {
   'post /api/gardens/:gardenId/plantings': 'grower',
   'get /api/gardens/:gardenId/plantings/export.csv': 'viewer',
   'get /api/gardens/:gardenId/plantings/preview': 'viewer',
+  'get /api/gardens/:gardenId/plan': 'viewer',
   'post /api/gardens/:gardenId/plantings/import': 'grower',
   'get /api/gardens/:gardenId/plantings/:plantingId': 'viewer',
   'patch /api/gardens/:gardenId/plantings/:plantingId': 'grower',
@@ -71,6 +75,11 @@ const EXPECTED: Record<string, RouteTableEntry['access']> = {
   'get /api/gardens/:gardenId/mail/failed': 'owner',
   'get /api/dev/mail': 'signed-in',
   'get /api/dev/mail/sign-up': 'public',
+  'get /api/me/calendar-feed': 'signed-in',
+  'post /api/me/calendar-feed': 'signed-in',
+  'delete /api/me/calendar-feed': 'signed-in',
+  'get /api/calendar/:token.ics': 'public',
+  'get /api/gardens/:gardenId/plantings/:plantingId/degree-days.csv': 'viewer',
 };
 
 const app = testApp();

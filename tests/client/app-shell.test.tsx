@@ -175,6 +175,7 @@ describe('app shell', () => {
       'Beds',
       'Crops',
       'Weather',
+      'Plan',
       'Garden settings',
       'Test mailbox',
     ]);

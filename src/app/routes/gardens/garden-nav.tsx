@@ -1,7 +1,7 @@
 import { useEffect, useId, useRef, useState } from 'react';
 import { NavLink, useLocation } from 'react-router-dom';
 import type { LucideIcon } from 'lucide-react';
-import { BellRing, CalendarDays, Carrot, CloudSun, Ellipsis, LayoutGrid, Library, Mail, Package, Settings, Sprout } from 'lucide-react';
+import { BellRing, CalendarDays, CalendarRange, Carrot, CloudSun, Ellipsis, LayoutGrid, Library, Mail, Package, Settings, Sprout } from 'lucide-react';
 import { SignOutButton } from '@/features/auth/components/sign-out-button';
 import { MailboxLink } from '@/features/notifications/components/mailbox-link';
 import { AlertsNavLink } from '@/features/alerts/components/alerts-nav-link';
@@ -25,6 +25,7 @@ const MORE_PAGES: ReadonlyArray<{ path: string; label: string; icon: LucideIcon 
   { path: 'beds', label: 'Beds', icon: LayoutGrid },
   { path: 'crops', label: 'Crops', icon: Carrot },
   { path: 'weather', label: 'Weather', icon: CloudSun },
+  { path: 'plan', label: 'Plan', icon: CalendarRange },
   { path: 'settings', label: 'Garden settings', icon: Settings },
 ];
 

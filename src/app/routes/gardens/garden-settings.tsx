@@ -4,6 +4,8 @@ import { GardenSettingsForm } from '@/features/gardens/components/garden-setting
 import { useCurrentGarden } from '@/app/routes/gardens/garden-layout';
 import { NotificationPreferencesSection } from '@/features/notifications/components/notification-preferences-section';
 import { FailedMailSection } from '@/features/notifications/components/failed-mail-section';
+import { CalendarFeedSection } from '@/features/calendar/components/calendar-feed-section';
+import { ClimateFactsSection } from '@/features/climate/components/climate-facts-section';
 
 export function GardenSettingsPage() {
   const garden = useCurrentGarden();
@@ -26,7 +28,10 @@ export function GardenSettingsPage() {
           </section>
         </>
       )}
+      {/* Keyed so another garden's override form starts from that garden's figures. */}
+      <ClimateFactsSection key={`climate-${garden.id}`} gardenId={garden.id} isOwner={isOwner} />
       <NotificationPreferencesSection gardenId={garden.id} />
+      <CalendarFeedSection />
       {isOwner && <FailedMailSection gardenId={garden.id} />}
     </div>
   );
