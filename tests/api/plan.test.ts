@@ -41,6 +41,8 @@ describe('the sowing plan', () => {
     const res = await clients.viewer.get(`${base}/plan?varietyId=${lettuce.id}`);
     expect(res.status).toBe(200);
     const plan = res.body as PlanDto;
+    // Growers read plain words: no internal source marks or date tokens reach them.
+    expect(JSON.stringify(plan)).not.toMatch(/SCIENCE|from memory|no source|⟦/);
     expect(plan.season.label).toBe('2026');
     expect(plan.frostRisk).toBe('50');
     expect(plan.candidates.length).toBe(53);

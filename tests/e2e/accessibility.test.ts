@@ -119,6 +119,7 @@ describe.each(WIDTHS)('signed in as a grower, at $width px: no serious or critic
     ['Beds', () => `/g/${gardenId}/beds`, 'Beds'],
     ['Crops', () => `/g/${gardenId}/crops`, 'Crop library'],
     ['Garden settings', () => `/g/${gardenId}/settings`, 'Garden settings'],
+    ['Plan', () => `/g/${gardenId}/plan`, 'Plan'],
     ['Test mailbox', () => '/mailbox', 'Test mailbox'],
   ];
 

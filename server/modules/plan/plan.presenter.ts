@@ -140,7 +140,7 @@ function succession(good: Run[], plan: PlanComputation): PlanSuccessionDto | nul
     everyDays,
     from,
     to,
-    words: `For a steady harvest, ${verb} every ${countOf(everyDays, 'day')} from ${dayToken(from)} to ${dayToken(to)} (${countOf(sowings, plan.startKind === 'transplant' ? 'planting' : 'sowing')}). The spacing follows how far ready days spread across past years, in whole weeks (common practice, no source).`,
+    words: `For a steady harvest, ${verb} every ${countOf(everyDays, 'day')} from ${dayToken(from)} to ${dayToken(to)} (${countOf(sowings, plan.startKind === 'transplant' ? 'planting' : 'sowing')}). The spacing follows how far ready days spread across past years, in whole weeks (a rule of thumb).`,
   };
 }
 
@@ -204,9 +204,9 @@ export function presentPlan(plan: PlanComputation): PlanDto {
     succession: plan.missing ? null : succession(good, plan),
     summary,
     method:
-      `One start day every ${countOf(CANDIDATE_STEP_DAYS, 'day')} of the ${plan.season.label} season (common practice, no source) is tried against each of the garden's past years with the variety's heat target. ` +
-      `Frost dates are the last spring and first autumn day at or below 0 °C (SCIENCE §4, NOAA freeze-probability practice), read so that ${risk} in 100 past seasons had frost past them. ` +
-      `A start day is recommended when it is not too early for the crop's hardiness class (Purdue HO-203 from Illinois VC-14 classes; week offsets from memory), ready before the first autumn frost in most years, ` +
-      `and fewer than ${Math.round(BOLT_SHARE_LIMIT * 100)} % of past years brought high bolt risk into the first week of harvest (common practice, no source).`,
+      `One start day every ${countOf(CANDIDATE_STEP_DAYS, 'day')} of the ${plan.season.label} season is tried against each of the garden's past years with the variety's heat target. ` +
+      `Frost dates are the last spring and first autumn day at or below 0 °C, taken so that ${risk} in 100 past seasons had a frost beyond them, the way freeze probabilities are given in NOAA's climate normals. ` +
+      `A start day is recommended when it is not too early for the crop's hardiness class (hardiness classes from Purdue Extension HO-203; how many weeks before the frost is a common rule of thumb, not yet checked against a published table), ready before the first autumn frost in most years, ` +
+      `and fewer than ${Math.round(BOLT_SHARE_LIMIT * 100)} % of past years brought high bolt risk into the first week of harvest (a rule of thumb).`,
   };
 }
