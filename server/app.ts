@@ -34,6 +34,7 @@ import { createWeatherClient } from './integrations/weather/open-meteo';
 import { ProgressService } from './modules/progress/progress.service';
 import { progressRouter } from './modules/progress/progress.router';
 import { planRouter } from './modules/plan/plan.router';
+import { compareRouter } from './modules/compare/compare.router';
 import { registerProgressInvalidation } from './modules/progress/progress-invalidation';
 import { plantingProgressProcessor } from './jobs/processors/planting-progress';
 import { AlertService } from './modules/alerts/alerts.service';
@@ -175,6 +176,7 @@ export function createApp({ config, sequelize, logger = createLogger(config.logL
   api.use(seedLotsRouter(routes, readCache));
   api.use(progressRouter(progress, alerts, routes, readCache));
   api.use(planRouter(routes, weatherService, readCache));
+  api.use(compareRouter(routes, progress, readCache));
   api.use(alertsRouter(alerts, routes, readCache));
   api.use(plantingsRouter(config, routes, progress, readCache));
   api.use(photosRouter(config, routes));

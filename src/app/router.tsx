@@ -43,6 +43,7 @@ export const routes: RouteObject[] = [
           { path: 'beds', ...page(() => import('@/app/routes/beds/beds').then((m) => m.BedsPage)) },
           { path: 'crops', ...page(() => import('@/app/routes/crops/crops').then((m) => m.CropsPage)) },
           { path: 'plan', ...page(() => import('@/app/routes/plan/plan').then((m) => m.PlanPage)) },
+          { path: 'compare', ...page(() => import('@/app/routes/compare/compare').then((m) => m.ComparePage)) },
           { path: 'weather', ...page(() => import('@/app/routes/weather/weather').then((m) => m.WeatherPage)) },
           { path: 'alerts', ...page(() => import('@/app/routes/alerts/alerts').then((m) => m.AlertsPage)) },
           { path: 'settings', ...page(() => import('@/app/routes/gardens/garden-settings').then((m) => m.GardenSettingsPage)) },

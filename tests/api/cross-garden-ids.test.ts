@@ -89,6 +89,8 @@ describe('another garden’s record ids', () => {
       { route: `delete ${g}/plantings/:plantingId/log/:entryId`, url: `${A}/plantings/${B.plantingId}/log/${B.entryId}` },
       { route: `delete ${g}/plantings/:plantingId/log/:entryId`, url: `${A}/plantings/${own.planting.id}/log/${B.entryId}` },
       { route: `get ${g}/plantings/:plantingId/progress`, url: `${A}/plantings/${B.plantingId}/progress` },
+      { route: `get ${g}/plantings/:plantingId/degree-days.csv`, url: `${A}/plantings/${B.plantingId}/degree-days.csv` },
+      { route: `get ${g}/varieties/:varietyId/calibration`, url: `${A}/varieties/${B.varietyId}/calibration` },
       { route: `post ${g}/alerts/:alertId/acknowledge`, url: `${A}/alerts/${B.alertId}/acknowledge` },
       { route: `get ${g}/plantings/:plantingId/photos`, url: `${A}/plantings/${B.plantingId}/photos` },
       { route: `post ${g}/plantings/:plantingId/photos`, url: `${A}/plantings/${B.plantingId}/photos`, attach: await png() },

@@ -52,6 +52,8 @@ const EXPECTED: Record<string, RouteTableEntry['access']> = {
   'get /api/gardens/:gardenId/plantings/export.csv': 'viewer',
   'get /api/gardens/:gardenId/plantings/preview': 'viewer',
   'get /api/gardens/:gardenId/plan': 'viewer',
+  'get /api/gardens/:gardenId/compare': 'viewer',
+  'get /api/gardens/:gardenId/compare.csv': 'viewer',
   'post /api/gardens/:gardenId/plantings/import': 'grower',
   'get /api/gardens/:gardenId/plantings/:plantingId': 'viewer',
   'patch /api/gardens/:gardenId/plantings/:plantingId': 'grower',

@@ -176,6 +176,7 @@ describe('app shell', () => {
       'Crops',
       'Weather',
       'Plan',
+      'Compare',
       'Garden settings',
       'Test mailbox',
     ]);

@@ -120,6 +120,7 @@ describe.each(WIDTHS)('signed in as a grower, at $width px: no serious or critic
     ['Crops', () => `/g/${gardenId}/crops`, 'Crop library'],
     ['Garden settings', () => `/g/${gardenId}/settings`, 'Garden settings'],
     ['Plan', () => `/g/${gardenId}/plan`, 'Plan'],
+    ['Compare', () => `/g/${gardenId}/compare`, 'Compare'],
     ['Test mailbox', () => '/mailbox', 'Test mailbox'],
   ];
 

@@ -100,7 +100,9 @@ describe('properties (fast-check)', () => {
           cutoff: m.cutoff,
           tminNext: cToF(d.next),
         });
-        expect(f).toBeCloseTo(cDaysToFDays(c), 6);
+        // Exact in real arithmetic; in doubles the sine method's arcsine near an intercept amplifies
+        // rounding (seen: 5.6e-7 on 40.23 °F-days, seed -841719582), so 5 decimals, not 6.
+        expect(f).toBeCloseTo(cDaysToFDays(c), 5);
       }),
       { numRuns: 20000 },
     );

@@ -1,7 +1,7 @@
 import { useEffect, useId, useRef, useState } from 'react';
 import { NavLink, useLocation } from 'react-router-dom';
 import type { LucideIcon } from 'lucide-react';
-import { BellRing, CalendarDays, CalendarRange, Carrot, CloudSun, Ellipsis, LayoutGrid, Library, Mail, Package, Settings, Sprout } from 'lucide-react';
+import { BellRing, CalendarDays, CalendarRange, Carrot, ChartScatter, CloudSun, Ellipsis, LayoutGrid, Library, Mail, Package, Settings, Sprout } from 'lucide-react';
 import { SignOutButton } from '@/features/auth/components/sign-out-button';
 import { MailboxLink } from '@/features/notifications/components/mailbox-link';
 import { AlertsNavLink } from '@/features/alerts/components/alerts-nav-link';
@@ -26,6 +26,7 @@ const MORE_PAGES: ReadonlyArray<{ path: string; label: string; icon: LucideIcon 
   { path: 'crops', label: 'Crops', icon: Carrot },
   { path: 'weather', label: 'Weather', icon: CloudSun },
   { path: 'plan', label: 'Plan', icon: CalendarRange },
+  { path: 'compare', label: 'Compare', icon: ChartScatter },
   { path: 'settings', label: 'Garden settings', icon: Settings },
 ];
 
@@ -36,7 +37,7 @@ export function GardenNav({ gardenId, userName }: { gardenId: number; userName: 
       aria-label="Garden"
       className="fixed inset-x-0 bottom-0 z-30 border-t border-line bg-paper-sunk pb-[env(safe-area-inset-bottom)] md:static md:border-t-0 md:bg-transparent md:pb-0"
     >
-      <ul className="grid grid-cols-4 md:mx-auto md:flex md:max-w-5xl md:flex-wrap md:gap-x-4 md:px-4 lg:gap-x-5">
+      <ul className="grid grid-cols-4 md:mx-auto md:flex md:max-w-5xl md:flex-nowrap md:gap-x-3 md:overflow-x-auto md:px-4 lg:gap-x-5">
         <li>
           <NavLink end to={base} className={TAB}>
             <CalendarDays className={TAB_ICON} aria-hidden />

@@ -94,8 +94,8 @@ export function VarietyCard({ gardenId, variety: v, units, canEdit }: { gardenId
           ))}
         </dl>
         {v.notes && <p>{v.notes}</p>}
+        <CalibrationPanel gardenId={gardenId} varietyId={v.id} varietyName={v.name} canEdit={canEdit} />
       </details>
-      <CalibrationPanel gardenId={gardenId} varietyId={v.id} varietyName={v.name} canEdit={canEdit} />
       {canEdit && (
         <div className="flex flex-wrap gap-2 border-t border-line pt-3">
           <Button variant="quiet" aria-label={`Edit variety ${v.name}`} onClick={() => setEditing(true)}>
