@@ -1,7 +1,7 @@
 import { useMemo, useState } from 'react';
 import type { CompareDto, ComparePlantingDto } from '#shared/schemas/compare';
 import { lazyPart } from '@/lib/lazy-part';
-import { degreeDayUnit, formatDayMonth, formatDegreeDays, formatPercent } from '@/lib/format';
+import { degreeDayUnit, formatDegreeDays, formatFullDate, formatPercent } from '@/lib/format';
 import { MarkIcon, seasonMark } from './season-marks';
 import { chartPoints } from './chart-points';
 
@@ -119,7 +119,7 @@ function PlantingsTable({ dto }: { dto: CompareDto }) {
             <tr key={p.plantingId} className="border-b border-line">
               <th scope="row" className="p-1 font-normal">{p.variety}</th>
               <td className="p-1">{p.seasonLabel ?? '—'}</td>
-              <td className="p-1">{p.startOn ? formatDayMonth(p.startOn) : '—'}</td>
+              <td className="p-1">{p.startOn ? formatFullDate(p.startOn) : '—'}</td>
               <td className="p-1">{n(p.daysToHarvest, 'days')}</td>
               <td className="p-1">{dd(p.ddToHarvest)}</td>
               <td className="p-1">{n(p.daysToBolt, 'days')}</td>
