@@ -1,3 +1,4 @@
+import { sendCsv } from '../../lib/send-csv';
 import { Router } from 'express';
 import { stringify } from 'csv-stringify/sync';
 import { compareQuerySchema } from '#shared/schemas/compare';
@@ -78,12 +79,7 @@ export function compareRouter(table: RouteTableEntry[], progress: ProgressServic
         handler: async (req, res) => {
           const q = parseQuery(compareQuerySchema, req.query);
           const dto = await computeCompare(progress, req.membership!.gardenId, q);
-          res.set({
-            'Content-Type': 'text/csv; charset=utf-8',
-            'Content-Disposition': `attachment; filename="compare-${dto.crop.key}.csv"`,
-            'X-Content-Type-Options': 'nosniff',
-          });
-          res.send(compareCsv(dto));
+          sendCsv(res, `compare-${dto.crop.key}.csv`, compareCsv(dto));
         },
       },
     ],

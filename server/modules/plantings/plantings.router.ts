@@ -1,3 +1,4 @@
+import { sendCsv } from '../../lib/send-csv';
 import { Router } from 'express';
 import { logEntryCreateSchema, logListQuerySchema, plantingCreateSchema, plantingListQuerySchema, plantingPreviewQuerySchema, plantingUpdateSchema } from '#shared/schemas/plantings';
 import type { AppConfig } from '../../config';
@@ -89,12 +90,7 @@ export function plantingsRouter(config: AppConfig, table: RouteTableEntry[], pro
           const gardenId = req.membership!.gardenId;
           const garden = await getGarden(gardenId);
           const csv = await exportPlantingsCsv(gardenId);
-          res.set({
-            'Content-Type': 'text/csv; charset=utf-8',
-            'Content-Disposition': `attachment; filename="plantings-${localDate(garden.timeZone)}.csv"`,
-            'X-Content-Type-Options': 'nosniff',
-          });
-          res.send(csv);
+          sendCsv(res, `plantings-${localDate(garden.timeZone)}.csv`, csv);
         },
       },
       {

@@ -4,6 +4,7 @@
  * unit, named in the header. Text cells go through the plantings export's `neutralise`; numbers
  * are written as the plain numbers the server computed (they cannot start a formula).
  */
+import { sendCsv } from '../../lib/send-csv';
 import { Router } from 'express';
 import { stringify } from 'csv-stringify/sync';
 import type { ProgressDto } from '#shared/schemas/progress';
@@ -36,12 +37,7 @@ export function degreeDaysCsvRouter(progress: ProgressService, table: RouteTable
           const { gardenId } = req.membership!;
           const plantingId = recordId(req.params, 'plantingId');
           const dto = JSON.parse(await progress.plantingProgress(gardenId, plantingId)) as ProgressDto;
-          res.set({
-            'Content-Type': 'text/csv; charset=utf-8',
-            'Content-Disposition': `attachment; filename="degree-days-planting-${plantingId}-${dto.today}.csv"`,
-            'X-Content-Type-Options': 'nosniff',
-          });
-          res.send(degreeDaysCsv(dto));
+          sendCsv(res, `degree-days-planting-${plantingId}-${dto.today}.csv`, degreeDaysCsv(dto));
         },
       },
     ],
