@@ -104,5 +104,8 @@ export default defineConfig({
     hookTimeout: 60_000,
     fileParallelism: true,
     pool: 'forks',
+    // Two files at a time: on this 2-core machine the suite takes 413 s instead of 711 s with one
+    // (the default of CPUs − 1); the tests share the test database by design (own rows, leases).
+    maxWorkers: 2,
   },
 });
