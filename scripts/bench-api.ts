@@ -95,7 +95,9 @@ async function seed() {
 }
 
 async function startServer(port: number) {
-  const child = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
+  // BENCH_PROFILE=<dir> writes the server's CPU profile there on exit (profile before optimising).
+  const profile = process.env.BENCH_PROFILE ? ['--cpu-prof', '--cpu-prof-dir', path.resolve(process.env.BENCH_PROFILE)] : [];
+  const child = spawn(process.execPath, [...profile, '--import', 'tsx', 'server/index.ts'], {
     cwd: projectRoot,
     env: { ...process.env, NODE_ENV: 'production', PORT: String(port), HOST: '127.0.0.1', DB_NAME: DB, SCHEDULER: 'off', LOG_LEVEL: 'error' },
     stdio: ['ignore', 'pipe', 'inherit'],
@@ -153,7 +155,7 @@ try {
   const base = `http://127.0.0.1:${port}`;
   const cookie = await signIn(base);
   const g = (id: number) => `${base}/api/gardens/${id}`;
-  const endpoints: { name: string; url: string; signedIn: boolean }[] = [
+  const all: { name: string; url: string; signedIn: boolean }[] = [
     { name: '/api/health', url: `${base}/api/health`, signedIn: false },
     { name: '/api/auth/me', url: `${base}/api/auth/me`, signedIn: true },
     { name: '/api/gardens', url: `${base}/api/gardens`, signedIn: true },
@@ -166,6 +168,10 @@ try {
     { name: `plantings list (${BIG_COUNT} plantings)`, url: `${g(ids.big)}/plantings`, signedIn: true },
     { name: `Today (${BIG_COUNT} plantings)`, url: `${g(ids.big)}/today`, signedIn: true },
   ];
+  // BENCH_ONLY=<text> measures only the endpoints whose name holds it (with health for the ratio)
+  // and writes nothing to docs/benchmarks.md: a quick look, or a profile (BENCH_PROFILE).
+  const only = process.env.BENCH_ONLY;
+  const endpoints = only ? all.filter((e) => e.name === '/api/health' || e.name.includes(only)) : all;
   // Cold: the first read of the day computes and stores every growing planting's progress.
   const cold = {
     todayDemo: await timeOnce(`${g(ids.home)}/today`, cookie),
@@ -197,29 +203,35 @@ try {
     ...endpoints.map(row),
   ].join('\n');
 
-  // Overload: 200 connections on the heaviest read; only 2xx or 503 may come back.
-  const before = rssOf(server);
-  const over = await load(`${g(ids.home)}/today`, cookie, 200, 20);
-  const after = rssOf(server);
-  const codes = Object.entries(over.statusCodeStats ?? {}).map(([code, v]) => `${code}: ${(v as { count: number }).count}`).join(', ');
-  const overload = `200 connections × 20 s on Today (demo garden): ${Math.round(over.requests.average)} req/s, p50 ${over.latency.p50} ms, p99 ${over.latency.p99} ms; status codes ${codes}; socket errors ${over.errors}, timeouts ${over.timeouts}; server RSS ${before} MB before, ${after} MB after.`;
+  if (only) {
+    console.log(table);
+  } else {
+    // Overload: 200 connections on the heaviest read; only 2xx or 503 may come back.
+    const before = rssOf(server);
+    const over = await load(`${g(ids.home)}/today`, cookie, 200, 20);
+    const after = rssOf(server);
+    const codes = Object.entries(over.statusCodeStats ?? {}).map(([code, v]) => `${code}: ${(v as { count: number }).count}`).join(', ');
+    const overload = `200 connections × 20 s on Today (demo garden): ${Math.round(over.requests.average)} req/s, p50 ${over.latency.p50} ms, p99 ${over.latency.p99} ms; status codes ${codes}; socket errors ${over.errors}, timeouts ${over.timeouts}; server RSS ${before} MB before, ${after} MB after.`;
 
-  let client = '';
-  const clientBench = path.join(projectRoot, 'scripts', 'bench-client.ts');
-  if (existsSync(clientBench)) {
-    const { benchClient, clientTable } = (await import(clientBench)) as { benchClient: (b: string) => Promise<unknown>; clientTable: (r: unknown) => string };
-    try {
-      client = `\n### Client (headless Chromium, loopback)\n\n${clientTable(await benchClient(base))}\n`;
-    } catch (err) {
-      client = `\nClient figures could not be taken: ${(err as Error).message}\n`;
+    let client = '';
+    const clientBench = path.join(projectRoot, 'scripts', 'bench-client.ts');
+    if (existsSync(clientBench)) {
+      const { benchClient, clientTable } = (await import(clientBench)) as { benchClient: (b: string) => Promise<unknown>; clientTable: (r: unknown) => string };
+      try {
+        client = `\n### Client (headless Chromium, loopback)\n\n${clientTable(await benchClient(base))}\n`;
+      } catch (err) {
+        client = `\nClient figures could not be taken: ${(err as Error).message}\n`;
+      }
     }
-  }
 
-  const machine = `${os.cpus().length} × ${os.cpus()[0]?.model ?? 'CPU'}, ${Math.round(os.totalmem() / 2 ** 30)} GiB, Node ${process.version}`;
-  const report = `\n## bench:api — ${new Date().toISOString().slice(0, 16).replace('T', ' ')} UTC\n\n${machine}. ${CONNECTIONS} connections, ${SECONDS} s per endpoint, median of ${RUNS} runs (min–max), production build, one Node process, signed in as the demo grower (health unauthenticated).\n\n${table}\n\nFirst (uncached) reads: Today of the demo garden ${cold.todayDemo.ms} ms, Today of the ${BIG_COUNT}-planting garden ${cold.todayBig.ms} ms, one planting's progress ${cold.progress.ms} ms; evaluating the ${BIG_COUNT}-planting garden's alerts ${ids.evaluateBig} ms.\n\n${overload}\n${client}`;
-  console.log(report);
-  mkdirSync(path.join(projectRoot, 'docs'), { recursive: true });
-  appendFileSync(path.join(projectRoot, 'docs', 'benchmarks.md'), report);
+    const machine = `${os.cpus().length} × ${os.cpus()[0]?.model ?? 'CPU'}, ${Math.round(os.totalmem() / 2 ** 30)} GiB, Node ${process.version}`;
+    const report = `\n## bench:api — ${new Date().toISOString().slice(0, 16).replace('T', ' ')} UTC\n\n${machine}. ${CONNECTIONS} connections, ${SECONDS} s per endpoint, median of ${RUNS} runs (min–max), production build, one Node process, signed in as the demo grower (health unauthenticated).\n\n${table}\n\nFirst (uncached) reads: Today of the demo garden ${cold.todayDemo.ms} ms, Today of the ${BIG_COUNT}-planting garden ${cold.todayBig.ms} ms, one planting's progress ${cold.progress.ms} ms; evaluating the ${BIG_COUNT}-planting garden's alerts ${ids.evaluateBig} ms.\n\n${overload}\n${client}`;
+    console.log(report);
+    mkdirSync(path.join(projectRoot, 'docs'), { recursive: true });
+    appendFileSync(path.join(projectRoot, 'docs', 'benchmarks.md'), report);
+  }
 } finally {
+  const exited = new Promise((resolve) => server.once('exit', resolve));
   server.kill('SIGTERM');
+  await exited;
 }
