@@ -12,6 +12,12 @@ export interface SeasonFrost {
   /** Last day with a low ≤ threshold in the spring half; null if none (or the half is incomplete). */
   lastSpringFrost: string | null;
   firstFallFrost: string | null;
+  /**
+   * First day with a low ≤ threshold among the fall half's recorded days, complete or not: a frost
+   * that was seen happened even if later days are missing (a planting's own cut-off uses it; the
+   * frost-date statistics use only complete halves).
+   */
+  firstFallFrostSeen: string | null;
   springComplete: boolean;
   fallComplete: boolean;
 }
@@ -137,6 +143,7 @@ export function frostDatesOfSeries(s: DenseSeries, latitude: number, opts: Frost
         season: seasonOfYear(y, latitude).label,
         lastSpringFrost: last === null ? null : fromDayNumber(last),
         firstFallFrost: first === null ? null : fromDayNumber(first),
+        firstFallFrostSeen: fallFrosts.length ? fromDayNumber(fallFrosts[0]) : null,
         springComplete,
         fallComplete,
       });

@@ -114,8 +114,10 @@ export function prepareSowingSweep(input: SweepPreparationInput): SweepClimatolo
     }
   }
   const frost = frostDatesOfSeries(series, latitude, { thresholdC: input.frostThresholdC ?? 0 });
+  // Each season's first frost that was seen, even in an autumn with missing days: skipping that
+  // season would make the next year's frost the cut-off of this year's sowings.
   const fallFrosts = Int32Array.from(
-    frost.seasons.filter((s) => s.firstFallFrost !== null).map((s) => toDayNumber(s.firstFallFrost!) - series.first),
+    frost.seasons.filter((s) => s.firstFallFrostSeen !== null).map((s) => toDayNumber(s.firstFallFrostSeen!) - series.first),
   );
   return { latitude, method, series, prefixDd, prefixMissing, prefixHigh, fallFrosts };
 }

@@ -184,6 +184,24 @@ describe('sowing-window sweep', () => {
     expect(candidates.every((c) => c.missCutoffShare === 0)).toBe(true);
   });
 
+  it('a season with missing autumn days keeps its own seen frost as the cut-off, never the next year’s', () => {
+    // Hand-built: 20/8 °C every day (9.6 °C-days at base 4.4, simple average), a −2 °C low each
+    // 10 October, and 2019 missing from 10 November to the year's end (its fall half is then
+    // incomplete, so the frost-date statistics leave it out).
+    const flat: DegreeDayMethod = { base: 4.4, method: 'average' };
+    const history = constantDays('2014-01-01', 365 * 7 + 1, 20, 8)
+      .map((d) => (d.date.slice(5) === '10-10' ? { ...d, tmin: -2 } : d))
+      .filter((d) => !(d.date >= '2019-11-10' && d.date <= '2019-12-31'));
+    const clim = prepareSowingSweep({ history, latitude: 45, method: flat });
+    // Sown 20 September: 34 days of 9.6 and the frosty day's (20 − 2) / 2 − 4.4 = 4.6 make 331
+    // °C-days on day 35 (25 October), after that year's frost.
+    const [c] = sowingWindowSweep(clim, { from: '2021-09-20', to: '2021-09-20', target: 331, cutoff: 'first-fall-frost' }).candidates;
+    expect(c.maturityDays.p50).toBe(35);
+    expect(c.analogYears).toBe(7);
+    // Every analog year, 2019 included, had its frost on 10 October, before the harvest.
+    expect(c.missCutoffShare).toBe(1);
+  });
+
   it('plans a whole season; at 35 °S that is July–June', () => {
     expect(seasonCandidates('2025-03-01', -35)).toEqual({ from: '2024-07-01', to: '2025-06-30' });
   });
