@@ -25,17 +25,12 @@ try {
   if (wantDemo && !(await databaseIsEmpty()) && !(await demoAlreadySeeded())) {
     console.log('[db] accounts exist and none is the demo coordinator: demo not seeded');
   } else if (wantDemo) {
-    const { users, gardens } = await seedDemo(sequelize);
-    console.log(`[db] demo ready: ${gardens.length} gardens, ${users.length} accounts`);
     const fake = config.weather.mode === 'fake' ? (await import('../fixtures/weather/server')).startFakeWeather('error') : null;
     const weather = createWeatherService(config, sequelize, createLogger('warn'));
-    for (const garden of gardens) {
-      const cellId = (await weather.locateGarden(garden)) ?? garden.weatherCellId;
-      if (cellId) await weather.prepareCell(cellId, garden.id);
-    }
-    await weather.backfillPending();
+    // The gardens' weather is fetched inside, and decides the past lettuce and spinach outcomes.
+    const { users, gardens } = await seedDemo(sequelize, { weather });
     fake?.close();
-    console.log(`[db] demo weather ready (${config.weather.mode})`);
+    console.log(`[db] demo ready: ${gardens.length} gardens, ${users.length} accounts, weather from the ${config.weather.mode === 'fake' ? 'local fake' : 'weather service'}`);
     // Alerts from that weather, and today's digest for each demo member: the server sends them on start.
     const alerts = new AlertService(sequelize, weather, new ProgressService(sequelize, weather));
     alerts.mail = { enqueue: enqueueAlertMail, afterCommit: () => undefined };

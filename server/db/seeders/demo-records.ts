@@ -73,10 +73,19 @@ interface Template {
 /** A season's plantings, shifted a few days per season so the years differ as real ones do. */
 const TEMPLATES: Template[] = [
   { variety: 'Brookside Shelling', bed: 1, method: 'direct-sow', day: 75, emerge: 11, harvest: [68, 82], quantity: [6, 'row-m'] },
+  // Lettuce and spinach are sown side by side in spring, late spring and late summer, so their
+  // varieties meet the same weather; with weather at hand their harvests and bolting follow it
+  // (settleDemoOutcomes), and these fixed days are used only without it.
   { variety: 'Longwinter Savoy', bed: 2, method: 'direct-sow', day: 80, emerge: 9, thin: 24, harvest: [44, 52], bolt: { after: 50, seasons: [1, 3] }, quantity: [3, 'row-m'] },
   { variety: 'Tealshield', bed: 2, method: 'direct-sow', day: 82, emerge: 9, thin: 24, harvest: [42, 58], quantity: [3, 'row-m'] },
+  { variety: 'Longwinter Savoy', bed: 1, method: 'direct-sow', day: 108, emerge: 8, harvest: [40, 48], bolt: { after: 36, seasons: [0, 1, 2, 3] }, quantity: [3, 'row-m'] },
+  { variety: 'Tealshield', bed: 7, method: 'direct-sow', day: 110, emerge: 8, harvest: [40, 50], bolt: { after: 47, seasons: [1] }, quantity: [3, 'row-m'] },
   { variety: 'Copperleaf Butterhead', bed: 3, method: 'direct-sow', day: 85, emerge: 6, thin: 21, harvest: [56, 70], bolt: { after: 66, seasons: [2] }, quantity: [24, 'plants'] },
   { variety: 'Marbleridge Romaine', bed: 3, method: 'transplant', day: 95, harvest: [58, 66], bolt: { after: 60, seasons: [1, 2, 3] }, quantity: [18, 'plants'] },
+  { variety: 'Summerhold Batavian', bed: 4, method: 'direct-sow', day: 88, emerge: 6, thin: 21, harvest: [58, 72], quantity: [18, 'plants'] },
+  { variety: 'Copperleaf Butterhead', bed: 5, method: 'direct-sow', day: 118, emerge: 5, harvest: [50, 60], bolt: { after: 52, seasons: [0, 2] }, quantity: [18, 'plants'] },
+  { variety: 'Marbleridge Romaine', bed: 4, method: 'transplant', day: 122, harvest: [52, 58], bolt: { after: 40, seasons: [0, 1, 2, 3] }, quantity: [12, 'plants'] },
+  { variety: 'Summerhold Batavian', bed: 2, method: 'direct-sow', day: 120, emerge: 5, harvest: [52, 66], quantity: [18, 'plants'] },
   { variety: 'Peppertooth', bed: 4, method: 'direct-sow', day: 88, emerge: 5, harvest: [30, 40], bolt: { after: 38, seasons: [0, 1, 2, 3] }, quantity: [2, 'row-m'] },
   { variety: 'Slowhand', bed: 5, method: 'direct-sow', day: 90, emerge: 10, harvest: [45, 50], bolt: { after: 52, seasons: [0, 2, 3] }, quantity: [2, 'row-m'] },
   { variety: 'Emberglobe', bed: 6, method: 'direct-sow', day: 85, emerge: 5, harvest: [27, 33], quantity: [3, 'row-m'] },
@@ -87,9 +96,28 @@ const TEMPLATES: Template[] = [
   { variety: 'Tallgrass Bush', bed: 4, method: 'direct-sow', day: 140, emerge: 8, harvest: [56, 75], quantity: [4, 'row-m'] },
   { variety: 'Sundial Pole', bed: 11, method: 'direct-sow', day: 145, emerge: 8, harvest: [66, 100], quantity: [12, 'plants'] },
   { variety: 'Snowtip Breakfast', bed: 12, method: 'direct-sow', day: 235, emerge: 5, harvest: [25, 30], quantity: [20, 'plants'] },
-  { variety: 'Copperleaf Butterhead', bed: 6, method: 'direct-sow', day: 225, emerge: 6, thin: 21, harvest: [52, 64], quantity: [18, 'plants'] },
-  { variety: 'Longwinter Savoy', bed: 1, method: 'direct-sow', day: 240, emerge: 10, harvest: [48, 70], quantity: [3, 'row-m'] },
+  { variety: 'Copperleaf Butterhead', bed: 6, method: 'direct-sow', day: 225, emerge: 6, thin: 21, harvest: [52, 64], bolt: { after: 50, seasons: [1, 3] }, quantity: [18, 'plants'] },
+  { variety: 'Marbleridge Romaine', bed: 7, method: 'transplant', day: 215, harvest: [50, 58], bolt: { after: 38, seasons: [0, 1, 2, 3] }, quantity: [12, 'plants'] },
+  { variety: 'Summerhold Batavian', bed: 12, method: 'direct-sow', day: 228, emerge: 6, harvest: [54, 66], quantity: [18, 'plants'] },
+  { variety: 'Longwinter Savoy', bed: 1, method: 'direct-sow', day: 240, emerge: 10, harvest: [48, 70], bolt: { after: 40, seasons: [0, 2] }, quantity: [3, 'row-m'] },
+  { variety: 'Tealshield', bed: 5, method: 'direct-sow', day: 242, emerge: 10, harvest: [46, 64], quantity: [3, 'row-m'] },
 ];
+
+/**
+ * Invented for the demo: what each lettuce and spinach variety really needs, unknown to the
+ * product. `dd` is the degree days (°C-days, the crop's method) from the start event to the
+ * first picking; `heatDays` how many heat days (highs above the crop's bolt heat threshold) it
+ * stands, once past its first 40 % of growth, before it runs to seed. With the garden's weather at
+ * hand the plantings above follow these (demo-outcomes.ts), so Compare ranks them from what the
+ * weather did, and Calibration finds targets that differ from the packet's.
+ */
+export const DEMO_VARIETY_TRUTH: Readonly<Record<string, { dd: number; heatDays: number }>> = {
+  'Summerhold Batavian': { dd: 600, heatDays: 14 },
+  'Copperleaf Butterhead': { dd: 540, heatDays: 6 },
+  'Marbleridge Romaine': { dd: 520, heatDays: 2 },
+  Tealshield: { dd: 380, heatDays: 7 },
+  'Longwinter Savoy': { dd: 420, heatDays: 2 },
+};
 
 /**
  * Plantings placed back from the seeding day in the garden that is in season then, so Today has
@@ -119,6 +147,8 @@ interface Ctx {
   users: User[];
   today: string;
   transaction: Transaction;
+  /** The garden's weather will be fetched: lettuce and spinach outcomes are left for it to decide. */
+  weatherDecides: boolean;
 }
 
 async function seedBeds({ garden, transaction }: Ctx, hemisphere: 'N' | 'S') {
@@ -249,9 +279,20 @@ async function seedInSeason(ctx: Ctx, beds: Bed[], varieties: Map<string, Variet
   }
 }
 
-async function seedPlantings(ctx: Ctx, beds: Bed[], varieties: Map<string, Variety>, lots: Map<string, SeedLot>) {
+/** A demo planting whose harvest and bolting are left for the garden's weather to decide (demo-outcomes.ts). */
+export interface PendingOutcome {
+  plantingId: number;
+  variety: string;
+  /** Days the picking lasts once it starts, from the template. */
+  pickingDays: number;
+  /** The planting's creator and the other members, for the log entries. */
+  authors: number[];
+}
+
+async function seedPlantings(ctx: Ctx, beds: Bed[], varieties: Map<string, Variety>, lots: Map<string, SeedLot>): Promise<PendingOutcome[]> {
   const { garden, users, today, transaction } = ctx;
-  if (await Planting.count({ where: { gardenId: garden.id }, transaction })) return;
+  const pending: PendingOutcome[] = [];
+  if (await Planting.count({ where: { gardenId: garden.id }, transaction })) return pending;
   await seedInSeason(ctx, beds, varieties, lots);
   const latitude = garden.latitude ?? 0;
   const current = seasonOf(today, latitude);
@@ -263,9 +304,10 @@ async function seedPlantings(ctx: Ctx, beds: Bed[], varieties: Map<string, Varie
       const start = addDays(seasonStart, t.day + jitter);
       const at = (d: number | undefined) => (d === undefined ? undefined : addDays(start, d));
       const known = (d: string | undefined) => (d && d <= today ? d : null);
-      const bolts = t.bolt && t.bolt.seasons.includes(s) ? at(t.bolt.after) : undefined;
-      const harvestFrom = t.harvest && (!bolts || at(t.harvest[0])! < bolts) ? at(t.harvest[0]) : undefined;
-      const harvestTo = t.harvest ? (bolts ? (harvestFrom ? bolts : undefined) : at(t.harvest[1])) : undefined;
+      const byWeather = ctx.weatherDecides && DEMO_VARIETY_TRUTH[t.variety] !== undefined;
+      const bolts = !byWeather && t.bolt && t.bolt.seasons.includes(s) ? at(t.bolt.after) : undefined;
+      const harvestFrom = !byWeather && t.harvest && (!bolts || at(t.harvest[0])! < bolts) ? at(t.harvest[0]) : undefined;
+      const harvestTo = !byWeather && t.harvest ? (bolts ? (harvestFrom ? bolts : undefined) : at(t.harvest[1])) : undefined;
       const status = statusAt({ harvestFrom, harvestTo, bolt: bolts }, start, today);
       const indoor = t.method === 'indoor-start';
       const transplanted = t.method === 'transplant' ? start : at(t.transplant);
@@ -291,6 +333,10 @@ async function seedPlantings(ctx: Ctx, beds: Bed[], varieties: Map<string, Varie
         },
         { transaction },
       );
+      if (byWeather && status !== 'planned') {
+        const authors = users.map((u) => u.id);
+        pending.push({ plantingId: planting.id, variety: t.variety, pickingDays: t.harvest ? t.harvest[1] - t.harvest[0] : 10, authors: [...authors.slice(i % authors.length), ...authors.slice(0, i % authors.length)] });
+      }
       const events: Event[] = [];
       if (t.thin !== undefined) events.push({ on: at(t.thin)!, kind: 'thinned', note: 'Thinned to the final spacing.' });
       events.push({ on: at(indoor ? (t.transplant ?? 0) + 3 : 2)!, kind: 'watered', note: 'Deep soak after a dry spell.' });
@@ -322,12 +368,18 @@ async function seedPlantings(ctx: Ctx, beds: Bed[], varieties: Map<string, Varie
       }
     }
   }
+  return pending;
 }
 
-export async function seedGardenRecords(garden: Garden, users: User[], today: string, transaction: Transaction) {
-  const ctx: Ctx = { garden, users, today, transaction };
+/**
+ * Beds, varieties, seed lots and (into a garden without plantings) the seasons of plantings.
+ * With `weatherDecides`, the lettuce and spinach plantings that have started are returned without
+ * harvest or bolting, for settleDemoOutcomes once the garden's weather is in.
+ */
+export async function seedGardenRecords(garden: Garden, users: User[], today: string, transaction: Transaction, opts: { weatherDecides?: boolean } = {}): Promise<PendingOutcome[]> {
+  const ctx: Ctx = { garden, users, today, transaction, weatherDecides: opts.weatherDecides ?? false };
   const beds = await seedBeds(ctx, (garden.latitude ?? 0) < 0 ? 'S' : 'N');
   const varieties = await seedVarieties(ctx);
   const lots = await seedLots(ctx, varieties);
-  await seedPlantings(ctx, beds, varieties, lots);
+  return seedPlantings(ctx, beds, varieties, lots);
 }

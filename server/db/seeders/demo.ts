@@ -4,6 +4,9 @@ import { hashPassword } from '../../modules/auth/password';
 import type { Role } from '#shared/schemas/gardens';
 import { localDate } from '../../lib/local-date';
 import { seedGardenRecords } from './demo-records';
+import type { PendingOutcome } from './demo-records';
+import { settleDemoOutcomes } from './demo-outcomes';
+import type { WeatherService } from '../../modules/weather/weather.service';
 
 /** Invented demo scenario: every name and place here is fictional. */
 export const DEMO_PASSWORD = 'heatclock-demo';
@@ -44,10 +47,15 @@ export async function demoAlreadySeeded(): Promise<boolean> {
   return (await User.count({ where: { email: DEMO_USERS[0].email } })) === 1;
 }
 
-/** Idempotent: finds or creates each account, garden and membership by its natural key. */
-export async function seedDemo(sequelize: Sequelize) {
+/**
+ * Idempotent: finds or creates each account, garden and membership by its natural key. With a
+ * weather service, it also fetches the gardens' weather and lets it decide the lettuce and spinach
+ * harvests and bolting of the past seasons (demo-outcomes.ts); without one they follow fixed days.
+ */
+export async function seedDemo(sequelize: Sequelize, opts: { weather?: WeatherService } = {}) {
   const hash = await hashPassword(DEMO_PASSWORD);
-  return sequelize.transaction(async (transaction) => {
+  const pending = new Map<number, PendingOutcome[]>();
+  const seeded = await sequelize.transaction(async (transaction) => {
     const users = [];
     for (const u of DEMO_USERS) {
       const [user] = await User.findOrCreate({
@@ -76,13 +84,28 @@ export async function seedDemo(sequelize: Sequelize) {
           transaction,
         });
       }
-      await seedGardenRecords(
+      const waiting = await seedGardenRecords(
         garden,
         users.map((u) => u.user),
         localDate(garden.timeZone),
         transaction,
+        { weatherDecides: opts.weather !== undefined },
       );
+      pending.set(garden.id, waiting);
     }
     return { users: users.map((u) => u.user), gardens };
   });
+  const { weather } = opts;
+  if (weather) {
+    for (const garden of seeded.gardens) {
+      const cellId = (await weather.locateGarden(garden)) ?? garden.weatherCellId;
+      if (cellId) await weather.prepareCell(cellId, garden.id);
+    }
+    await weather.backfillPending();
+    for (const garden of seeded.gardens) {
+      await garden.reload();
+      await sequelize.transaction((transaction) => settleDemoOutcomes(weather, garden, pending.get(garden.id) ?? [], transaction));
+    }
+  }
+  return seeded;
 }
