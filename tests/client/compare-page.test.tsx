@@ -108,4 +108,38 @@ describe('compare page', () => {
     await waitFor(() => expect(compares().at(-1)!.query.get('seasons')).toBe('2025'));
     expect(screen.getByRole('link', { name: 'Download CSV' }).getAttribute('href')).toBe('/api/gardens/1/compare.csv?crop=lettuce&seasons=2025');
   });
+
+  it('when the page opens, then it compares the crop with the most varieties (or the one in the address), and counts read "1 day"', async () => {
+    const arugula = { id: 5, crop: { key: 'arugula', name: 'Arugula', season: 'cool' }, name: 'Peppertooth' } as unknown as VarietyDto;
+    const oneDay = aComparison();
+    oneDay.plantings[0] = { ...oneDay.plantings[0], longestHotStreak: 1 };
+    server.use(
+      signedInAs(grower),
+      ...memberOf([aGarden({ role: 'viewer' })]),
+      http.get('/api/gardens/1/varieties', () => HttpResponse.json({ items: [arugula, variety(1, 'Copperleaf Butterhead'), variety(2, 'Emberproof Cos')], page: 1, pageSize: 200, total: 3 })),
+      http.get('/api/gardens/1/compare', () => HttpResponse.json(oneDay)),
+    );
+    renderApp('/g/1/compare');
+    // Arugula comes first by name, but lettuce has two varieties to compare.
+    expect(((await screen.findByRole('combobox', { name: 'Crop' }, { timeout: CLIENT_WAIT_MS })) as HTMLSelectElement).value).toBe('lettuce');
+    const table = await screen.findByRole('table', {}, { timeout: CLIENT_WAIT_MS });
+    expect(within(table).getByText('1 day')).toBeTruthy();
+    const compares = () => seen.filter((r) => r.path === '/api/gardens/1/compare');
+    expect(compares().at(-1)!.query.get('crop')).toBe('lettuce');
+    fireEvent.change(screen.getByRole('combobox', { name: 'Crop' }), { target: { value: 'arugula' } });
+    await waitFor(() => expect(compares().at(-1)!.query.get('crop')).toBe('arugula'));
+  });
+
+  it('when the address names a crop, then that crop is compared', async () => {
+    const arugula = { id: 5, crop: { key: 'arugula', name: 'Arugula', season: 'cool' }, name: 'Peppertooth' } as unknown as VarietyDto;
+    server.use(
+      signedInAs(grower),
+      ...memberOf([aGarden({ role: 'viewer' })]),
+      http.get('/api/gardens/1/varieties', () => HttpResponse.json({ items: [arugula, variety(1, 'Copperleaf Butterhead'), variety(2, 'Emberproof Cos')], page: 1, pageSize: 200, total: 3 })),
+      http.get('/api/gardens/1/compare', () => HttpResponse.json(aComparison())),
+    );
+    renderApp('/g/1/compare?crop=arugula');
+    expect(((await screen.findByRole('combobox', { name: 'Crop' }, { timeout: CLIENT_WAIT_MS })) as HTMLSelectElement).value).toBe('arugula');
+    await waitFor(() => expect(seen.filter((r) => r.path === '/api/gardens/1/compare').at(-1)!.query.get('crop')).toBe('arugula'));
+  });
 });

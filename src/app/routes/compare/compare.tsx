@@ -1,4 +1,5 @@
 import { useMemo, useState } from 'react';
+import { useSearchParams } from 'react-router-dom';
 import { Loading } from '@/components/ui/loading';
 import { LoadProblem } from '@/components/ui/load-problem';
 import { useCurrentGarden } from '@/app/routes/gardens/garden-layout';
@@ -11,13 +12,20 @@ export function ComparePage() {
   const varieties = useVarieties(garden.id);
   // The crops with records: those the garden has varieties of.
   const crops = useMemo(() => {
-    const seen = new Map<string, string>();
-    for (const v of varieties.data?.items ?? []) seen.set(v.crop.key, v.crop.name);
-    return [...seen].map(([key, name]) => ({ key, name })).sort((a, b) => a.name.localeCompare(b.name));
+    const seen = new Map<string, { key: string; name: string; varieties: number }>();
+    for (const v of varieties.data?.items ?? []) {
+      const c = seen.get(v.crop.key) ?? { key: v.crop.key, name: v.crop.name, varieties: 0 };
+      c.varieties++;
+      seen.set(v.crop.key, c);
+    }
+    return [...seen.values()].sort((a, b) => a.name.localeCompare(b.name));
   }, [varieties.data]);
-  const [chosen, setChosen] = useState<string | null>(null);
+  // The crop in the address (?crop=), else the one with the most varieties to compare.
+  const [params, setParams] = useSearchParams();
+  const asked = params.get('crop');
   const [seasons, setSeasons] = useState<number[] | null>(null);
-  const crop = chosen ?? crops[0]?.key ?? null;
+  const most = crops.reduce<(typeof crops)[number] | undefined>((best, c) => (!best || c.varieties > best.varieties ? c : best), undefined);
+  const crop = (asked && crops.some((c) => c.key === asked) ? asked : most?.key) ?? null;
   const compare = useCompare(garden.id, crop, seasons);
   const available = compare.data?.availableSeasons ?? [];
   const checked = (year: number) => seasons === null || seasons.includes(year);
@@ -41,7 +49,7 @@ export function ComparePage() {
               className="min-h-11 rounded border border-line bg-paper-raised p-2"
               value={crop ?? ''}
               onChange={(e) => {
-                setChosen(e.target.value);
+                setParams({ crop: e.target.value }, { replace: true });
                 setSeasons(null);
               }}
             >

@@ -1,4 +1,5 @@
 import { useMemo, useState } from 'react';
+import { countOf } from '#shared/format/count-words';
 import type { CompareDto, ComparePlantingDto } from '#shared/schemas/compare';
 import { lazyPart } from '@/lib/lazy-part';
 import { degreeDayUnit, formatDegreeDays, formatFullDate, formatPercent } from '@/lib/format';
@@ -97,7 +98,7 @@ function PlantingsTable({ dto }: { dto: CompareDto }) {
   ];
   const choose = (key: SortKey) => setSort((s) => (s.key === key ? { key, dir: s.dir === 1 ? -1 : 1 } : { key, dir: key === 'variety' || key === 'season' || key === 'startOn' ? 1 : -1 }));
   const dd = (x: number | null) => (x === null ? '—' : formatDegreeDays(x, dto.unit, 1));
-  const n = (x: number | null, unit: string) => (x === null ? '—' : `${x} ${unit}`);
+  const days = (x: number | null) => (x === null ? '—' : countOf(x, 'day'));
   return (
     <div className="overflow-x-auto">
       <table className="w-full min-w-[56rem] border-collapse text-left text-sm">
@@ -120,13 +121,13 @@ function PlantingsTable({ dto }: { dto: CompareDto }) {
               <th scope="row" className="p-1 font-normal">{p.variety}</th>
               <td className="p-1">{p.seasonLabel ?? '—'}</td>
               <td className="p-1">{p.startOn ? formatFullDate(p.startOn) : '—'}</td>
-              <td className="p-1">{n(p.daysToHarvest, 'days')}</td>
+              <td className="p-1">{days(p.daysToHarvest)}</td>
               <td className="p-1">{dd(p.ddToHarvest)}</td>
-              <td className="p-1">{n(p.daysToBolt, 'days')}</td>
+              <td className="p-1">{days(p.daysToBolt)}</td>
               <td className="p-1">{dd(p.ddToBolt)}</td>
               <td className="p-1">{p.heatDays === null ? '—' : `${p.heatDays} before ${p.heatUntil === 'bolt' ? 'bolting' : 'harvest'}`}</td>
-              <td className="p-1">{n(p.longestHotStreak, 'days')}</td>
-              <td className="p-1">{n(p.dayLengthAtBolt, 'h')}</td>
+              <td className="p-1">{days(p.longestHotStreak)}</td>
+              <td className="p-1">{p.dayLengthAtBolt === null ? '—' : `${p.dayLengthAtBolt} h`}</td>
               <td className="p-1">{p.boltedBeforeHarvest === null ? '—' : p.boltedBeforeHarvest ? 'Yes' : 'No'}</td>
             </tr>
           ))}
