@@ -89,4 +89,30 @@ describe('plan page', () => {
     await waitFor(() => expect(plans().at(-1)!.query.get('frostRisk')).toBe('10'));
     expect(screen.getByRole('radio', { name: /1 year in 10/ })).toHaveProperty('checked', true);
   });
+
+  it('when a second variety is chosen, then both plans are shown side by side, each under its own name', async () => {
+    const other = { ...variety, id: 8, name: 'Tealshield', crop: { ...variety.crop, key: 'spinach', name: 'Spinach' } } as typeof variety;
+    server.use(
+      signedInAs(grower),
+      ...memberOf([aGarden({ role: 'viewer' })]),
+      http.get('/api/gardens/1/varieties', () => HttpResponse.json({ items: [variety, other], page: 1, pageSize: 200, total: 2 })),
+      http.get('/api/gardens/1/plan', ({ request }) => {
+        const id = Number(new URL(request.url).searchParams.get('varietyId'));
+        const plan = aPlan('50');
+        return HttpResponse.json(id === 8 ? { ...plan, variety: { id: 8, name: 'Tealshield', cropName: 'Spinach' } } : plan);
+      }),
+    );
+    renderApp('/g/1/plan');
+    await screen.findByRole('heading', { name: 'When to sow Copperleaf Butterhead, 2027' }, { timeout: CLIENT_WAIT_MS });
+    const withSelect = screen.getByRole('combobox', { name: 'Side by side with' });
+    // The second list leaves out the variety already planned.
+    expect(within(withSelect).getAllByRole('option').map((o) => o.textContent)).toEqual(['No second variety', 'Tealshield (Spinach)']);
+    fireEvent.change(withSelect, { target: { value: '8' } });
+    await screen.findByRole('heading', { name: 'When to sow Tealshield, 2027' }, { timeout: CLIENT_WAIT_MS });
+    expect(screen.getByRole('heading', { name: 'When to sow Copperleaf Butterhead, 2027' })).toBeTruthy();
+    const plans = seen.filter((r) => r.path === '/api/gardens/1/plan').map((r) => r.query.get('varietyId'));
+    expect(new Set(plans)).toEqual(new Set(['7', '8']));
+    fireEvent.change(withSelect, { target: { value: '' } });
+    await waitFor(() => expect(screen.queryByRole('heading', { name: 'When to sow Tealshield, 2027' })).toBeNull());
+  });
 });

@@ -1,3 +1,4 @@
+import { useId } from 'react';
 import type { PlanDto } from '#shared/schemas/plan';
 import { lazyPart } from '@/lib/lazy-part';
 import { formatDayMonth, formatDayWindow } from '@/lib/format';
@@ -17,10 +18,14 @@ function FrostLine({ plan }: { plan: PlanDto }) {
 }
 
 export function PlanView({ plan }: { plan: PlanDto }) {
+  // Two plans can be on the page side by side: each labels its own sections.
+  const id = useId();
   return (
-    <div className="space-y-5">
-      <section aria-labelledby="plan-windows">
-        <h2 id="plan-windows" className="text-lg font-semibold">When to {plan.startKind === 'transplant' ? 'set out' : 'sow'}, {plan.season.label}</h2>
+    <div className="min-w-0 space-y-5">
+      <section aria-labelledby={`${id}-windows`}>
+        <h2 id={`${id}-windows`} className="text-lg font-semibold">
+          When to {plan.startKind === 'transplant' ? 'set out' : 'sow'} {plan.variety.name}, {plan.season.label}
+        </h2>
         {plan.windows.length ? (
           <ul className="mt-2 space-y-2">
             {plan.windows.map((w) => (
@@ -44,8 +49,10 @@ export function PlanView({ plan }: { plan: PlanDto }) {
         )}
       </section>
       {plan.candidates.length > 0 && (
-        <section aria-labelledby="plan-chart">
-          <h2 id="plan-chart" className="text-lg font-semibold">Across the season</h2>
+        <section aria-labelledby={`${id}-chart`}>
+          <h2 id={`${id}-chart`} className="text-lg font-semibold">
+            {plan.variety.name} across the season
+          </h2>
           <p className="text-sm">Bars: share of past years (%) with high bolt risk while ready to pick, for each start day. Green bands: the recommended windows.</p>
           <PlanChart plan={plan} />
           <details className="mt-2">
