@@ -35,10 +35,10 @@ const v = (cropKey: string, name: string, dtmDays: number, dtmFrom: VarietySeed[
 
 /** Invented variety names; the packet facts are plausible, not copied from any catalogue. */
 export const DEMO_VARIETIES: VarietySeed[] = [
-  v('lettuce', 'Copperleaf Butterhead', 50, 'emergence', [4, 8], 4, 3, ['open-pollinated', 'heirloom'], 0.5, 25, { containerFriendly: true, thinSpacingCm: 25, sunHours: 5, waterCmPerWeek: 2.5 }),
+  v('lettuce', 'Copperleaf Butterhead', 50, 'emergence', [4, 8], 3, 3, ['open-pollinated', 'heirloom'], 0.5, 25, { containerFriendly: true, thinSpacingCm: 25, sunHours: 5, waterCmPerWeek: 2.5 }),
   v('lettuce', 'Marbleridge Romaine', 62, 'emergence', [4, 9], 2, 2, ['f1-hybrid', 'pelleted'], 0.5, 30, { thinSpacingCm: 30 }),
   v('spinach', 'Longwinter Savoy', 42, 'sowing', [6, 12], 2, 2, ['open-pollinated'], 1.5, 8, { thinSpacingCm: 10 }),
-  v('spinach', 'Tealshield', 40, 'sowing', [6, 12], 4, 3, ['f1-hybrid', 'treated'], 1.5, 8, { notes: 'Fungicide-treated seed, pink coating.' }),
+  v('spinach', 'Tealshield', 40, 'sowing', [6, 12], 3, 3, ['f1-hybrid', 'treated'], 1.5, 8, { notes: 'Fungicide-treated seed, pink coating.' }),
   v('arugula', 'Peppertooth', 35, 'sowing', [4, 8], 2, 2, ['open-pollinated', 'organic'], 0.5, 10, { containerFriendly: true }),
   v('cilantro', 'Slowhand', 50, 'sowing', [7, 14], 4, 2, ['open-pollinated'], 1, 15),
   v('cilantro', 'Brightstem', 45, 'sowing', [7, 14], 1, 1, ['open-pollinated'], 1, 15, { notes: 'Quick to leaf, quick to bolt.' }),
