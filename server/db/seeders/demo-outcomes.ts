@@ -84,11 +84,16 @@ export async function settleDemoOutcomes(weather: WeatherService, garden: Garden
     }
     const truth = DEMO_VARIETY_TRUTH[p.variety];
     const o = outcomeOf(dto, degreeDaysIn(truth.dd, garden.units), thresholds.get(cropKey)!, truth.heatDays, p.pickingDays);
-    if (o.status === 'growing' && !o.firstHarvestOn) continue;
-    await planting.update(o, { transaction });
     const [a, b = a, c = b] = p.authors;
     const log = (entryOn: string, kind: 'harvest' | 'bolted' | 'observation', note: string, createdBy: number, amount: number | null = null) =>
       PlantingLog.create({ gardenId: garden.id, plantingId: planting.id, entryOn, kind, amount, amountUnit: amount === null ? null : 'kg', note, photoId: null, createdBy }, { transaction });
+    if (o.status === 'growing' && !o.firstHarvestOn) {
+      // Still growing today: a recent look, as a grower tending it would have noted.
+      const lastLook = addDays(dto.today, -3);
+      if (dto.startEvent && lastLook > dto.startEvent.on) await log(lastLook, 'observation', 'Heads filling out; no sign of bolting yet.', b);
+      continue;
+    }
+    await planting.update(o, { transaction });
     if (o.firstHarvestOn) await log(o.firstHarvestOn, 'harvest', 'First picking.', a, 0.6);
     if (o.lastHarvestOn && o.lastHarvestOn !== o.firstHarvestOn && o.status === 'harvested') await log(o.lastHarvestOn, 'harvest', 'Final picking.', b, 0.8);
     if (o.boltedOn) {
