@@ -25,6 +25,8 @@ import { createLogger } from '../server/lib/logger';
 import { localDate } from '../server/lib/local-date';
 import { createApp, createWeatherService } from '../server/app';
 import { addDays } from '#shared/thermal/dates';
+import { seasonOf, seasonOfYear } from '#shared/thermal/season';
+import { seasonYearOf } from '../server/db/planting-season';
 
 const SECONDS = Number(process.env.BENCH_SECONDS ?? 30);
 const RUNS = Number(process.env.BENCH_RUNS ?? 3);
@@ -32,6 +34,10 @@ const CONNECTIONS = 50;
 const DB = process.env.BENCH_DB_NAME ?? 'heatclock_bench';
 const BIG_COUNT = 5000;
 const BIG = `Bench garden with ${BIG_COUNT} plantings`;
+/** Past lettuce plantings of the compare garden, per season, over COMPARE_SEASONS seasons. */
+const COMPARE_PER_SEASON = 200;
+const COMPARE_SEASONS = 3;
+const COMPARED = `Bench garden with ${COMPARE_PER_SEASON * COMPARE_SEASONS} past lettuce plantings`;
 
 async function freePort(): Promise<number> {
   return new Promise((resolve) => {
@@ -73,9 +79,10 @@ async function seed() {
       );
     }
   }
+  const compared = await seedCompared(demo, home.id, users.map((u) => u.id));
   const fake = (await import('../fixtures/weather/server')).startFakeWeather('error');
   const weather = createWeatherService({ ...base, db: { ...base.db, database: DB } }, sequelize, createLogger('warn'));
-  for (const g of [...gardens, big]) {
+  for (const g of [...gardens, big, compared.garden]) {
     const cellId = (await weather.locateGarden(g)) ?? g.weatherCellId;
     if (cellId) await weather.prepareCell(cellId, g.id);
   }
@@ -87,11 +94,56 @@ async function seed() {
   await (app.locals.alerts as { evaluate: (gardenId: number) => Promise<unknown> }).evaluate(big.id);
   const evaluateBig = Math.round(performance.now() - t);
   const planting = await Planting.findOne({ where: { gardenId: home.id, status: 'growing' }, order: [['id', 'ASC']] });
+  const lettuce = await Variety.findAll({ where: { gardenId: home.id, cropKey: 'lettuce' }, order: [['id', 'ASC']] });
   // Start cold: no stored progress and no pending weather events for the worker to warm it with.
   await sequelize.query('DELETE FROM garden_events');
   await sequelize.query('DELETE FROM planting_progress');
   await sequelize.close();
-  return { home: home.id, big: big.id, planting: planting!.id, today: localDate(home.timeZone), evaluateBig };
+  return {
+    home: home.id, big: big.id, planting: planting!.id, today: localDate(home.timeZone), evaluateBig,
+    lettuce: lettuce.map((v) => v.id), compared: compared.garden.id, comparedSeasons: compared.seasons,
+  };
+}
+
+/**
+ * A copy of the in-season demo garden holding COMPARE_SEASONS past seasons of lettuce, each with
+ * COMPARE_PER_SEASON plantings sown a week apart in its spring, each recorded as picked, bolted or
+ * both (some bolted before their first harvest, some after), for the compare read.
+ */
+async function seedCompared(demo: (typeof DEMO_GARDENS)[number], homeId: number, userIds: number[]) {
+  const [garden] = await Garden.findOrCreate({ where: { name: COMPARED }, defaults: { ...demo, name: COMPARED } });
+  for (const userId of userIds) await Membership.findOrCreate({ where: { userId, gardenId: garden.id }, defaults: { userId, gardenId: garden.id, role: 'grower' } });
+  const latitude = garden.latitude ?? demo.latitude;
+  const current = seasonOf(localDate(garden.timeZone), latitude).startYear;
+  const seasons = Array.from({ length: COMPARE_SEASONS }, (_, k) => current - COMPARE_SEASONS + k);
+  if ((await Planting.count({ where: { gardenId: garden.id } })) === 0) {
+    const varieties: Variety[] = [];
+    for (const v of await Variety.findAll({ where: { gardenId: homeId, cropKey: 'lettuce' }, order: [['id', 'ASC']] })) {
+      varieties.push(await Variety.create({ ...v.get({ plain: true }), id: undefined, gardenId: garden.id }));
+    }
+    const BEDS = 20;
+    const beds = await Bed.bulkCreate(Array.from({ length: BEDS }, (_, i) => ({ gardenId: garden.id, name: `Lettuce row ${i + 1}`, kind: 'row' as const, lengthM: 10, widthM: 1, notes: '' })));
+    // bulkCreate runs no beforeSave hook, so the start day and season are written here from the same rule.
+    const rows = seasons.flatMap((year) => {
+      // A month into the season's spring (September south of the equator, March north of it).
+      const first = addDays(seasonOfYear(year, latitude).start, 62);
+      return Array.from({ length: COMPARE_PER_SEASON }, (_, i) => {
+        const variety = varieties[i % varieties.length];
+        const sownOn = addDays(first, 7 * Math.floor(i / BEDS));
+        const firstHarvestOn = addDays(sownOn, 48 + (i % 5) * 4);
+        const boltedOn = i % 4 === 0 ? null : addDays(sownOn, 44 + (i % 9) * 4);
+        const p = {
+          gardenId: garden.id, bedId: beds[i % BEDS].id, varietyId: variety.id, seedLotId: null,
+          method: 'direct-sow' as const, status: boltedOn && boltedOn < firstHarvestOn ? ('bolted' as const) : ('harvested' as const),
+          quantity: 10, quantityUnit: 'plants' as const, sownOn, emergedOn: null, thinnedOn: null, transplantedOn: null,
+          firstHarvestOn, lastHarvestOn: addDays(firstHarvestOn, 14), boltedOn, notes: '', createdBy: null, startOn: sownOn,
+        };
+        return { ...p, seasonYear: seasonYearOf(p, variety, latitude) };
+      });
+    });
+    await Planting.bulkCreate(rows);
+  }
+  return { garden, seasons };
 }
 
 async function startServer(port: number) {
@@ -127,13 +179,34 @@ async function signIn(base: string): Promise<string> {
 
 interface Sample { rps: number; p50: number; p99: number; errors: number }
 
-async function load(url: string, cookie: string, connections = CONNECTIONS, duration = SECONDS) {
-  return autocannon({ url, connections, duration, headers: { cookie } });
+/** `vary(n)`: the path of the n-th request, for a read that must miss the read cache every time. */
+async function load(url: string, cookie: string, connections = CONNECTIONS, duration = SECONDS, vary?: (n: number) => string) {
+  const requests = vary ? [{ setupRequest: (req: autocannon.Request) => ({ ...req, path: vary(asked++) }) }] : undefined;
+  return autocannon({ url, connections, duration, headers: { cookie }, ...(requests ? { requests } : {}) });
 }
 
-async function sample(url: string, cookie: string): Promise<Sample> {
-  const r = await load(url, cookie);
+async function sample(url: string, cookie: string, vary?: (n: number) => string): Promise<Sample> {
+  const r = await load(url, cookie, CONNECTIONS, SECONDS, vary);
+  if (vary && asked > 3 * VARIANTS) console.warn(`\n${asked} varied requests so far but only ${3 * VARIANTS} distinct paths: the later ones may have hit the read cache`);
   return { rps: Math.round(r.requests.average), p50: r.latency.p50, p99: r.latency.p99, errors: r.errors + r.timeouts + r.non2xx };
+}
+
+/**
+ * Distinct paths for a read that must miss: the query schemas are strict (no spare parameter),
+ * but the read cache keys by the URL as sent, so a number written with n leading zeros
+ * (varietyId=0…07, parsed as 7) or a season named again (seasons=2023,2023,…, de-duplicated) is
+ * the same request to the service and a new key to the cache. Paths stay under 8 KB.
+ */
+const VARIANTS = 6000;
+const zeros = (n: number) => '0'.repeat(n % VARIANTS);
+/** Varied requests made so far, across every run: each one gets a path of its own. */
+let asked = 0;
+
+/** Times of `count` sequential reads, each at a path not read before. */
+async function sequential(base: string, cookie: string, count: number, vary: (n: number) => string) {
+  const ms: number[] = [];
+  for (let k = 0; k < count; k++) ms.push((await timeOnce(`${base}${vary(asked++)}`, cookie)).ms);
+  return ms;
 }
 
 async function timeOnce(url: string, cookie: string): Promise<{ ms: number; bytes: number }> {
@@ -155,7 +228,11 @@ try {
   const base = `http://127.0.0.1:${port}`;
   const cookie = await signIn(base);
   const g = (id: number) => `${base}/api/gardens/${id}`;
-  const all: { name: string; url: string; signedIn: boolean }[] = [
+  // Each miss asks for another of the demo's lettuces at another risk, the variety id written with n leading zeros.
+  const planPath = (n: number) => `/api/gardens/${ids.home}/plan?varietyId=${zeros(Math.floor(n / 3))}${ids.lettuce[n % ids.lettuce.length]}&frostRisk=${['10', '50', '90'][n % 3]}`;
+  const comparePath = (n: number) => `/api/gardens/${ids.compared}/compare?crop=lettuce&seasons=${[...Array<number>(Math.floor(n / 3) % VARIANTS).fill(ids.comparedSeasons[n % 3]), ...ids.comparedSeasons].join(',')}`;
+  const seasonsText = `${ids.comparedSeasons.length} seasons`;
+  const all: { name: string; url: string; signedIn: boolean; vary?: (n: number) => string }[] = [
     { name: '/api/health', url: `${base}/api/health`, signedIn: false },
     { name: '/api/auth/me', url: `${base}/api/auth/me`, signedIn: true },
     { name: '/api/gardens', url: `${base}/api/gardens`, signedIn: true },
@@ -167,27 +244,50 @@ try {
     { name: 'Today (demo garden)', url: `${g(ids.home)}/today`, signedIn: true },
     { name: `plantings list (${BIG_COUNT} plantings)`, url: `${g(ids.big)}/plantings`, signedIn: true },
     { name: `Today (${BIG_COUNT} plantings)`, url: `${g(ids.big)}/today`, signedIn: true },
+    { name: 'plan of a demo lettuce, read-cache hit', url: `${g(ids.home)}/plan?varietyId=${ids.lettuce[0]}&frostRisk=50`, signedIn: true },
+    { name: 'plan of a demo lettuce, read-cache miss each request', url: `${g(ids.home)}/plan?varietyId=${ids.lettuce[0]}&frostRisk=50`, signedIn: true, vary: planPath },
+    { name: `compare lettuce, ${seasonsText} × ${COMPARE_PER_SEASON}, read-cache hit`, url: `${base}${comparePath(0)}`, signedIn: true },
+    { name: `compare lettuce, ${seasonsText} × ${COMPARE_PER_SEASON}, read-cache miss each request`, url: `${base}${comparePath(0)}`, signedIn: true, vary: comparePath },
   ];
   // BENCH_ONLY=<text> measures only the endpoints whose name holds it (with health for the ratio)
   // and writes nothing to docs/benchmarks.md: a quick look, or a profile (BENCH_PROFILE).
   const only = process.env.BENCH_ONLY;
   const endpoints = only ? all.filter((e) => e.name === '/api/health' || e.name.includes(only)) : all;
-  // Cold: the first read of the day computes and stores every growing planting's progress.
-  const cold = {
-    todayDemo: await timeOnce(`${g(ids.home)}/today`, cookie),
-    todayBig: await timeOnce(`${g(ids.big)}/today`, cookie),
-    progress: await timeOnce(`${g(ids.home)}/plantings/${ids.planting}/progress`, cookie),
+  // First reads of plan and compare, before anything below warms them: the plan's weather and
+  // climatology are loaded and prepared; the compare computes and stores 600 progress answers.
+  const wants = (prefix: string) => endpoints.some((e) => e.name.startsWith(prefix));
+  const first = {
+    plan: wants('plan of') ? await timeOnce(`${base}${planPath(asked++)}`, cookie) : null,
+    compare: wants('compare') ? await timeOnce(`${base}${comparePath(asked++)}`, cookie) : null,
   };
+  // Cold: the first read of the day computes and stores every growing planting's progress.
+  const cold = only
+    ? null
+    : {
+        todayDemo: await timeOnce(`${g(ids.home)}/today`, cookie),
+        todayBig: await timeOnce(`${g(ids.big)}/today`, cookie),
+        progress: await timeOnce(`${g(ids.home)}/plantings/${ids.planting}/progress`, cookie),
+      };
   const sizes = new Map<string, number>();
   for (const e of endpoints) sizes.set(e.name, (await timeOnce(e.url, cookie)).bytes);
+  // Sequential misses (one request at a time, each at a path not read before), per run.
+  const seqPlan: number[] = [];
+  const seqCompare: number[] = [];
   const samples = new Map<string, Sample[]>(endpoints.map((e) => [e.name, []]));
   for (let run = 0; run < RUNS; run++) {
     for (const e of endpoints) {
-      samples.get(e.name)!.push(await sample(e.url, cookie));
+      samples.get(e.name)!.push(await sample(e.url, cookie, e.vary));
       process.stdout.write('.');
     }
+    if (first.plan) seqPlan.push(median(await sequential(base, cookie, 30, planPath)));
+    if (first.compare) seqCompare.push(median(await sequential(base, cookie, 10, comparePath)));
   }
   console.log();
+  const misses = [
+    first.plan ? `Plan: first read after the server started ${first.plan.ms} ms (weather loaded, climatology prepared); sequential read-cache misses (30 a run, each another variety or risk) p50 ${median(seqPlan)}${spread(seqPlan)} ms.` : '',
+    first.compare ? `Compare: first read ${first.compare.ms} ms (computes and stores the ${COMPARE_PER_SEASON * COMPARE_SEASONS} plantings' progress); sequential read-cache misses over stored progress (10 a run) p50 ${median(seqCompare)}${spread(seqCompare)} ms.` : '',
+  ].filter(Boolean).join(' ');
+  console.log(misses);
   const healthRps = median(samples.get('/api/health')!.map((s) => s.rps));
   const row = (e: (typeof endpoints)[number]) => {
     const xs = samples.get(e.name)!;
@@ -225,7 +325,7 @@ try {
     }
 
     const machine = `${os.cpus().length} × ${os.cpus()[0]?.model ?? 'CPU'}, ${Math.round(os.totalmem() / 2 ** 30)} GiB, Node ${process.version}`;
-    const report = `\n## bench:api — ${new Date().toISOString().slice(0, 16).replace('T', ' ')} UTC\n\n${machine}. ${CONNECTIONS} connections, ${SECONDS} s per endpoint, median of ${RUNS} runs (min–max), production build, one Node process, signed in as the demo grower (health unauthenticated).\n\n${table}\n\nFirst (uncached) reads: Today of the demo garden ${cold.todayDemo.ms} ms, Today of the ${BIG_COUNT}-planting garden ${cold.todayBig.ms} ms, one planting's progress ${cold.progress.ms} ms; evaluating the ${BIG_COUNT}-planting garden's alerts ${ids.evaluateBig} ms.\n\n${overload}\n${client}`;
+    const report = `\n## bench:api — ${new Date().toISOString().slice(0, 16).replace('T', ' ')} UTC\n\n${machine}. ${CONNECTIONS} connections, ${SECONDS} s per endpoint, median of ${RUNS} runs (min–max), production build, one Node process, signed in as the demo grower (health unauthenticated).\n\n${table}\n\nFirst (uncached) reads: Today of the demo garden ${cold!.todayDemo.ms} ms, Today of the ${BIG_COUNT}-planting garden ${cold!.todayBig.ms} ms, one planting's progress ${cold!.progress.ms} ms. ${misses} Evaluating the ${BIG_COUNT}-planting garden's alerts ${ids.evaluateBig} ms.\n\n${overload}\n${client}`;
     console.log(report);
     mkdirSync(path.join(projectRoot, 'docs'), { recursive: true });
     appendFileSync(path.join(projectRoot, 'docs', 'benchmarks.md'), report);

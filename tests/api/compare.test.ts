@@ -1,11 +1,15 @@
 import { describe, expect, it } from 'vitest';
 import { testApp, testDb, testWeather } from '../helpers/test-app';
-import { gardenWithClients, makePlanting, makeVariety } from '../helpers/garden-records';
+import { gardenWithClients, makeBed, makePlanting, makeVariety } from '../helpers/garden-records';
 import { giveGardenWeather, steadyDays } from '../helpers/garden-weather';
 import { dayLengthHours } from '#shared/thermal/day-length';
 import type { DailyTemp } from '#shared/thermal/types';
 import type { CompareDto } from '#shared/schemas/compare';
+import { withinCap } from '../../server/modules/compare/compare.service';
+import { Planting } from '../../server/db/models';
 import type { Garden } from '../../server/db/models';
+import { seasonYearOf } from '../../server/db/planting-season';
+import { addDays } from '#shared/thermal/dates';
 
 const TODAY = '2025-09-01';
 // Lettuce counts from 40 °F (4.444… °C) by single sine with no upper threshold; its bolt heat threshold is 27 °C.
@@ -115,7 +119,11 @@ describe('the variety comparison', () => {
     await giveGardenWeather(sequelize, garden, springs());
     const delta = await makeVariety(garden.id, { name: 'Delta' });
     const d1 = await makePlanting(garden.id, { varietyId: delta.id, sownOn: '2025-04-01', firstHarvestOn: '2025-05-08', boltedOn: '2025-05-25', status: 'bolted' });
+    // A planned planting has nothing to compare yet: it is left out, not counted as a planting.
+    await makePlanting(garden.id, { varietyId: delta.id, sownOn: '2025-09-01', status: 'planned' });
     const dto = (await clients.viewer.get(`${base}/compare?crop=lettuce`)).body as CompareDto;
+    expect(dto.plantings.map((p) => p.plantingId)).toEqual([d1.id]);
+    expect(dto.varieties[0].plantings).toBe(1);
     // 1–7 May: 7 hot days before the harvest on 8 May.
     expect(dto.plantings.find((p) => p.plantingId === d1.id)).toMatchObject({ heatUntil: 'harvest', heatDays: 7, longestHotStreak: 7, daysToHarvest: 37, ddToHarvest: r1(29 * COOL + 8 * HOT), daysToBolt: 54, boltedBeforeHarvest: false });
     expect(dto.varieties[0]).toMatchObject({ rank: 1, boltedBeforeHarvestShare: 0 });
@@ -167,5 +175,42 @@ describe('the variety comparison', () => {
     expect(lines).toHaveLength(1 + 4);
     expect(lines.find((l) => l.startsWith(`${a1.id},`))).toMatch(new RegExp(`^${a1.id},Alpha,2025,2025-04-01,,2025-05-05,,,34,${r1(29 * COOL + 5 * HOT)},4,4,bolt,[0-9.]+,yes$`));
     expect(lines.find((l) => l.startsWith(`${b2.id},`))).toBe(`${b2.id},Bravo,2025,2025-04-01,2025-05-21,,50,${r1(30 * COOL + 20 * HOT)},,,19,10,harvest,,no`);
+  });
+  it('when a garden holds 600 plantings of the crop over two seasons, then every one of them counts, newest season included', async () => {
+    const { clients, base, garden } = await gardenWithClients(app);
+    await garden.update({ units: 'C' });
+    await giveGardenWeather(sequelize, garden, springs());
+    const variety = await makeVariety(garden.id, { name: 'Many' });
+    const beds = await Promise.all(Array.from({ length: 20 }, () => makeBed(garden.id)));
+    // Written in bulk as a seeder would: no save hooks, so the start day and season are given from the same rule.
+    const rows = ['2024-04-01', '2025-04-01'].flatMap((first) =>
+      Array.from({ length: 300 }, (_, i) => {
+        const sownOn = addDays(first, Math.floor(i / beds.length));
+        const p = {
+          gardenId: garden.id, bedId: beds[i % beds.length].id, varietyId: variety.id, seedLotId: null, method: 'direct-sow' as const,
+          status: 'harvested' as const, quantity: 10, quantityUnit: 'plants' as const, sownOn, emergedOn: null, thinnedOn: null,
+          transplantedOn: null, firstHarvestOn: addDays(sownOn, 40), lastHarvestOn: null, boltedOn: null, notes: '', createdBy: null, startOn: sownOn,
+        };
+        return { ...p, seasonYear: seasonYearOf(p, variety, garden.latitude) };
+      }),
+    );
+    await Planting.bulkCreate(rows);
+    const dto = (await clients.viewer.get(`${base}/compare?crop=lettuce`)).body as CompareDto;
+    expect(dto.seasons.map((s) => s.year)).toEqual([2024, 2025]);
+    expect(dto.plantings).toHaveLength(600);
+    expect(dto.plantings.filter((p) => p.season === 2025)).toHaveLength(300);
+    expect(dto.plantings.every((p) => p.daysToHarvest === 40)).toBe(true);
+    expect(dto.varieties[0]).toMatchObject({ plantings: 600, withOutcome: 600 });
+  });
+  it('when a crop holds more plantings than the cap, then whole seasons are counted, newest first, and the ones left out are named', () => {
+    const of = (year: number | null, n: number, from: number) => Array.from({ length: n }, (_, k) => ({ id: from + k, varietyId: 1, seasonYear: year }));
+    const wanted = [...of(2022, 300, 1), ...of(2023, 300, 301), ...of(null, 5, 601), ...of(2024, 300, 606)];
+    expect(withinCap(wanted, 1000).picked).toHaveLength(905);
+    const { picked, left } = withinCap(wanted, 700);
+    expect([...new Set(picked.map((p) => p.seasonYear))]).toEqual([2023, 2024]);
+    expect(picked).toHaveLength(600);
+    expect([...left]).toEqual([2022, null]);
+    // A newest season larger than the cap alone is cut to it rather than dropped.
+    expect(withinCap(of(2024, 300, 1), 200).picked).toHaveLength(200);
   });
 });

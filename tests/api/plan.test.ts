@@ -5,7 +5,7 @@ import { giveGardenWeather } from '../helpers/garden-weather';
 import { addDays, dayOfYear, daysBetween } from '#shared/thermal/dates';
 import type { DailyTemp } from '#shared/thermal/types';
 import type { PlanDto } from '#shared/schemas/plan';
-import { preparedStats } from '../../server/modules/plan/plan.service';
+import { loadedWeatherStats, preparedStats } from '../../server/modules/plan/plan.service';
 
 const NORTH_TODAY = '2026-02-10';
 
@@ -138,6 +138,34 @@ describe('the sowing plan', () => {
     expect(theirs.body.error.fields.varietyId).toBe('Choose a variety of this garden.');
     expect((await clients.viewer.get(`${base}/plan?varietyId=${variety.id}`)).status).toBe(200);
     expect((await clients.outsider.get(`${base}/plan?varietyId=${variety.id}`)).status).toBe(404);
+  });
+
+  it('when station days are imported after a plan was read, then the next plan is made from them, not from the weather kept in memory', async () => {
+    const { clients, base, garden } = await gardenWithClients(app);
+    await garden.update({ units: 'C' });
+    await giveGardenWeather(sequelize, garden, seasonal('2014-01-01', addDays(NORTH_TODAY, -1), false));
+    const lettuce = await makeVariety(garden.id, { dtmDays: 50, dtmFrom: 'sowing' });
+    const misses = loadedWeatherStats.misses;
+    const before = (await clients.viewer.get(`${base}/plan?varietyId=${lettuce.id}&frostRisk=50`)).body as PlanDto;
+    // Another risk, and a variety added since (which moves the read cache's revision only): the garden's weather comes from memory.
+    expect((await clients.viewer.get(`${base}/plan?varietyId=${lettuce.id}&frostRisk=10`)).status).toBe(200);
+    const twin = await makeVariety(garden.id, { dtmDays: 50, dtmFrom: 'sowing' });
+    const twinBefore = (await clients.viewer.get(`${base}/plan?varietyId=${twin.id}&frostRisk=50`)).body as PlanDto;
+    expect(twinBefore.candidates).toEqual(before.candidates);
+    expect(loadedWeatherStats.misses).toBe(misses + 1);
+    // Every spring and summer of five past years far hotter at the garden's own station.
+    const hot = ['2021', '2022', '2023', '2024', '2025'].flatMap((y) => seasonal(`${y}-03-01`, `${y}-09-30`, false).map((d) => `${d.date},${(d.tmax + 8).toFixed(1)},${(d.tmin + 8).toFixed(1)}`));
+    const imported = await clients.grower
+      .post(`${base}/weather/imports`)
+      .field('unit', 'C')
+      .attach('file', Buffer.from(['date,high,low', ...hot].join('\n')), { filename: 'station.csv', contentType: 'text/csv' });
+    expect(imported.status).toBe(201);
+    const after = (await clients.viewer.get(`${base}/plan?varietyId=${lettuce.id}&frostRisk=50`)).body as PlanDto;
+    expect(loadedWeatherStats.misses).toBe(misses + 2);
+    expect(after.candidates.map((c) => c.harvest.p50)).not.toEqual(before.candidates.map((c) => c.harvest.p50));
+    const twinAfter = (await clients.viewer.get(`${base}/plan?varietyId=${twin.id}&frostRisk=50`)).body as PlanDto;
+    expect(twinAfter.candidates).toEqual(after.candidates);
+    expect(loadedWeatherStats.misses).toBe(misses + 2);
   });
 });
 

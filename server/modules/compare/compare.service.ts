@@ -6,7 +6,7 @@
  * and the longest run of them, and the day length when it bolted; per variety the medians, the
  * share that bolted before harvest and a heat-tolerance rank from the heat days endured.
  */
-import { Op } from 'sequelize';
+import { Op, QueryTypes } from 'sequelize';
 import { countOf } from '#shared/format/count-words';
 import { dayLengthHours } from '#shared/thermal/day-length';
 import { addDays, daysBetween } from '#shared/thermal/dates';
@@ -20,10 +20,49 @@ import { AppError } from '../../errors';
 import { effectiveValues, getCrop } from '../crops/crops.service';
 import { cropBoltTriggers } from '../crops/crop-thermal';
 import type { ProgressService } from '../progress/progress.service';
+import { PROGRESS_FORMAT } from '../progress/progress.repository';
+import { localDate } from '../../lib/local-date';
 
 /** Fewer plantings than this make a shaky rank (common practice, no source). */
 export const FEW_PLANTINGS = 3;
-const MAX_PLANTINGS = 500;
+/**
+ * Plantings of the crop counted at most: the most recent seasons whose plantings fit, whole
+ * seasons only, so a season is counted entirely or not at all and `seasons` of the answer names
+ * exactly those counted (a garden that outgrows it sees its oldest seasons left out, not a season
+ * cut short). About 60 ms of stored answers read and parsed per 1,000 plantings.
+ */
+export const MAX_PLANTINGS = 2000;
+
+/** Stored progress answers read per query (an IN list of ids). */
+const BODY_SLICE = 1000;
+
+type Figures = ReturnType<typeof plantingFigures>;
+
+/**
+ * Plantings' figures by what they are made from: the SHA-1 of the stored progress answer (taken
+ * by the database, so unchanged answers are neither sent nor parsed again), the threshold and the
+ * latitude. Parsing the answers (≈6 KB each) was most of a comparison's time; a recomputed answer
+ * has another digest. Least recently used first past FIGURES_MAX (≈0.5 KB each).
+ */
+const FIGURES = new Map<string, Figures>();
+const FIGURES_MAX = 10_000;
+
+function remembered(key: string): Figures | undefined {
+  const found = FIGURES.get(key);
+  if (found) {
+    FIGURES.delete(key);
+    FIGURES.set(key, found);
+  }
+  return found;
+}
+
+function remember(key: string, figures: Figures) {
+  FIGURES.set(key, figures);
+  for (const k of FIGURES.keys()) {
+    if (FIGURES.size <= FIGURES_MAX) break;
+    FIGURES.delete(k);
+  }
+}
 
 const r1 = (x: number) => Math.round(x * 10) / 10;
 
@@ -106,6 +145,85 @@ function evidenceOf(counted: readonly ComparePlantingDto[], score: number | null
   return `Endured a median of ${heatWords(score)} ${highs} ${across}; ${bolted} of them bolted, the others reached harvest first.`;
 }
 
+interface PickedPlanting {
+  id: number;
+  varietyId: number;
+  seasonYear: number | null;
+}
+
+/**
+ * The plantings counted under MAX_PLANTINGS: whole seasons, newest first, while they fit (the
+ * newest always, cut to the cap in the unlikely case it alone holds more); plantings without a
+ * season (no start event) only when every season fits. `left`: the seasons left out.
+ */
+export function withinCap<P extends PickedPlanting>(wanted: P[], cap = MAX_PLANTINGS): { picked: P[]; left: Set<number | null> } {
+  if (wanted.length <= cap) return { picked: wanted, left: new Set() };
+  const bySeason = new Map<number | null, P[]>();
+  for (const p of wanted) {
+    const list = bySeason.get(p.seasonYear);
+    if (list) list.push(p);
+    else bySeason.set(p.seasonYear, [p]);
+  }
+  const newestFirst = [...bySeason.keys()].sort((a, b) => (a === null ? 1 : b === null ? -1 : b - a));
+  const kept = new Set<number | null>();
+  let count = 0;
+  for (const year of newestFirst) {
+    const n = bySeason.get(year)!.length;
+    if (kept.size && count + n > cap) break;
+    kept.add(year);
+    count += n;
+  }
+  const picked = wanted.filter((p) => kept.has(p.seasonYear)).slice(0, cap);
+  return { picked, left: new Set(newestFirst.filter((y) => !kept.has(y))) };
+}
+
+/**
+ * The figures of these plantings from their stored progress answers for the garden's today: one
+ * query for the digests; the answers missing are computed and stored in one pass; then one query
+ * for the answers not seen before (with their digests, so a row rewritten in between is keyed by
+ * what was read).
+ */
+async function figuresOf(progress: ProgressService, garden: Garden, ids: number[], thresholdShown: number | null, latitude: number | null): Promise<Map<number, Figures>> {
+  const db = Planting.sequelize!;
+  const today = localDate(garden.timeZone, progress.now());
+  const keyOf = (digest: string) => `${digest}|${thresholdShown}|${latitude}`;
+  const read = async <T extends object>(columns: string, some: number[]) => {
+    const rows: T[] = [];
+    for (let i = 0; i < some.length; i += BODY_SLICE) {
+      rows.push(
+        ...(await db.query<T>(
+          `SELECT planting_id AS plantingId, ${columns} FROM planting_progress
+            WHERE garden_id = ? AND computed_for = ? AND format = ? AND planting_id IN (?)`,
+          { replacements: [garden.id, today, PROGRESS_FORMAT, some.slice(i, i + BODY_SLICE)], type: QueryTypes.SELECT },
+        )),
+      );
+    }
+    return rows;
+  };
+  const out = new Map<number, Figures>();
+  const stored = new Set<number>();
+  for (const r of await read<{ plantingId: number; digest: string }>('SHA1(body_json) AS digest', ids)) {
+    stored.add(r.plantingId);
+    const known = remembered(keyOf(r.digest));
+    if (known) out.set(r.plantingId, known);
+  }
+  const missing = ids.filter((id) => !stored.has(id));
+  if (missing.length) await progress.summaries(garden.id, missing);
+  const unseen = ids.filter((id) => !out.has(id));
+  if (unseen.length) {
+    for (const r of await read<{ plantingId: number; digest: string; body: string }>('SHA1(body_json) AS digest, body_json AS body', unseen)) {
+      const figures = plantingFigures(JSON.parse(r.body) as ProgressDto, thresholdShown, latitude);
+      remember(keyOf(r.digest), figures);
+      out.set(r.plantingId, figures);
+    }
+  }
+  // An answer dropped by a change that landed meanwhile is computed on its own.
+  for (const id of ids) {
+    if (!out.has(id)) out.set(id, plantingFigures(JSON.parse(await progress.plantingProgress(garden.id, id)) as ProgressDto, thresholdShown, latitude));
+  }
+  return out;
+}
+
 export interface CompareInput {
   crop: string;
   seasons?: number[];
@@ -126,24 +244,24 @@ export async function computeCompare(progress: ProgressService, gardenId: number
 
   const varieties = await Variety.findAll({ where: { gardenId, cropKey: input.crop }, attributes: ['id', 'name'], order: [['name', 'ASC']] });
   const varietyIds = varieties.map((v) => v.id);
+  // Three small columns of every started planting of the crop (a planned one has nothing to
+  // compare yet): cheap however many seasons the garden keeps.
   const all = varietyIds.length
-    ? await Planting.findAll({ where: { gardenId, varietyId: { [Op.in]: varietyIds } }, attributes: ['id', 'varietyId', 'seasonYear'], order: [['id', 'ASC']], limit: MAX_PLANTINGS })
+    ? await Planting.findAll({ where: { gardenId, varietyId: { [Op.in]: varietyIds }, status: { [Op.ne]: 'planned' } }, attributes: ['id', 'varietyId', 'seasonYear'], order: [['id', 'ASC']], raw: true })
     : [];
   const availableYears = [...new Set(all.map((p) => p.seasonYear).filter((y): y is number => y !== null))].sort((a, b) => a - b);
   const chosen = input.seasons ? new Set(input.seasons) : null;
-  const picked = chosen ? all.filter((p) => p.seasonYear !== null && chosen.has(p.seasonYear)) : all;
-
-  // Computes the plantings without a stored answer for today in one pass, so each read below is a stored one.
-  if (picked.length) await progress.summaries(gardenId, picked.map((p) => p.id));
+  const wanted = chosen ? all.filter((p) => p.seasonYear !== null && chosen.has(p.seasonYear)) : all;
+  const { picked, left } = withinCap(wanted);
+  const figures = picked.length ? await figuresOf(progress, garden, picked.map((p) => p.id), thresholdShown, latitude) : new Map<number, Figures>();
   const plantings: ComparePlantingDto[] = [];
   for (const p of picked) {
-    const dto = JSON.parse(await progress.plantingProgress(gardenId, p.id)) as ProgressDto;
     plantings.push({
       plantingId: p.id,
       varietyId: p.varietyId,
       season: p.seasonYear,
       seasonLabel: p.seasonYear === null ? null : label(p.seasonYear),
-      ...plantingFigures(dto, thresholdShown, latitude),
+      ...figures.get(p.id)!,
     });
   }
 
@@ -177,7 +295,7 @@ export async function computeCompare(progress: ProgressService, gardenId: number
         : null,
   }));
 
-  const seasonYears = chosen ? [...chosen].sort((a, b) => a - b) : availableYears;
+  const seasonYears = (chosen ? [...chosen].sort((a, b) => a - b) : availableYears).filter((y) => !left.has(y));
   return {
     crop: { key: crop.crop.key, name: crop.crop.name },
     unit,

@@ -5,7 +5,13 @@
  * planting's progress uses (progress-loader.ts: the garden's weather, varietyTarget, cropMethod,
  * cropBoltTriggers): one rule, one place. The prepared climatology (≈27 ms) is kept per weather
  * cell and inputs in a small LRU, so a plan at another risk or for another variety of the same
- * crop only runs the sweep (≈1 ms).
+ * crop only runs the sweep (≈1 ms). The garden's loaded weather (≈30 years of days, 45–110 ms to
+ * read and merge) is kept too, per garden, keyed by the garden's progress epoch (every weather
+ * write — station import, refresh, backfill, gap fill, a new location — moves it in the write's
+ * own transaction, weather-events.ts; record changes move it too), its weather cell, time zone and
+ * local day. The epoch is read before the days are, so a plan never uses days older than a change
+ * committed before it began; a new variety or bed (which only move the read cache's revision) does
+ * not reload 30 years of days.
  */
 import { addDays, daysBetween, isLeapYear } from '#shared/thermal/dates';
 import { frostDatesOfSeries } from '#shared/thermal/frost-dates';
@@ -24,6 +30,9 @@ import { effectiveValues, getCrop } from '../crops/crops.service';
 import { cropBoltTriggers, cropMethod } from '../crops/crop-thermal';
 import { varietyTarget } from '../varieties/variety-target';
 import { loadGardenWeather } from '../progress/progress-loader';
+import type { GardenWeather } from '../progress/progress-loader';
+import { ProgressRepository } from '../progress/progress.repository';
+import { localDate } from '../../lib/local-date';
 
 /** Start days tried: one a week (common practice, no source). */
 export const CANDIDATE_STEP_DAYS = 7;
@@ -84,8 +93,51 @@ const PREPARED = new Map<string, Prepared>();
 const PREPARED_MAX = 32;
 export const preparedStats = { hits: 0, misses: 0 };
 
+/** Loaded weather per weather service (tests build many apps), one entry per garden, least recently used first. */
+const LOADED = new WeakMap<WeatherService, Map<number, { key: string; weather: Promise<GardenWeather> }>>();
+const LOADED_MAX = 16;
+export const loadedWeatherStats = { hits: 0, misses: 0 };
+
+/**
+ * The garden's weather as loadGardenWeather reads it, from memory while the garden's progress
+ * epoch, weather cell, time zone and local day are those it was read at; concurrent requests
+ * share one read.
+ */
+async function gardenWeather(weather: WeatherService, garden: Garden): Promise<GardenWeather> {
+  const epoch = await new ProgressRepository(Garden.sequelize!).epoch(garden.id);
+  let held = LOADED.get(weather);
+  if (!held) LOADED.set(weather, (held = new Map<number, { key: string; weather: Promise<GardenWeather> }>()));
+  const key = [epoch, garden.weatherCellId, garden.timeZone, localDate(garden.timeZone, weather.now())].join('|');
+  const found = held.get(garden.id);
+  held.delete(garden.id);
+  if (found?.key === key) {
+    held.set(garden.id, found);
+    loadedWeatherStats.hits++;
+    return found.weather;
+  }
+  loadedWeatherStats.misses++;
+  const entry = { key, weather: loadGardenWeather(weather, garden) };
+  held.set(garden.id, entry);
+  for (const id of held.keys()) {
+    if (held.size <= LOADED_MAX) break;
+    held.delete(id);
+  }
+  // A failed read is not kept: the next request reads again.
+  entry.weather.catch(() => held.get(garden.id) === entry && held.delete(garden.id));
+  return entry.weather;
+}
+
+/** Fingerprints of loaded histories: the same kept history is not walked again for every plan. */
+const FINGERPRINTS = new WeakMap<readonly DailyTemp[], string>();
+
 /** A cheap fingerprint of the days themselves: a garden's own station days or a refill change it. */
 function fingerprint(history: readonly DailyTemp[]): string {
+  let known = FINGERPRINTS.get(history);
+  if (known === undefined) FINGERPRINTS.set(history, (known = fingerprintOf(history)));
+  return known;
+}
+
+function fingerprintOf(history: readonly DailyTemp[]): string {
   let h = 0x811c9dc5;
   for (const d of history) {
     h = Math.imul(h ^ Math.round(d.tmax * 100), 0x01000193);
@@ -146,7 +198,7 @@ export async function computePlan(weather: WeatherService, gardenId: number, inp
   const hardiness = effective.hardiness as HardinessClass;
   const startKind = variety.dtmFrom === 'transplant' ? 'transplant' : 'sowing';
   const risk = Number(input.frostRisk) as 10 | 50 | 90;
-  const w = await loadGardenWeather(weather, garden);
+  const w = await gardenWeather(weather, garden);
   const latitude = garden.latitude;
   const season = plannedSeason(w.today, latitude ?? 0);
   const base: PlanComputation = {
