@@ -23,7 +23,7 @@ describe('a transaction that deadlocks is run again', () => {
     const garden = await createGarden();
     const a = await makeBed(garden.id);
     const b = await makeBed(garden.id);
-    const before = { a: a.lengthM, b: b.lengthM };
+    const before = { a: a.lengthM!, b: b.lengthM! };
     const firstHeld = signal();
     const secondHeld = signal();
     const attempts = { one: 0, two: 0 };
@@ -57,8 +57,8 @@ describe('a transaction that deadlocks is run again', () => {
     expect(attempts.one + attempts.two).toBe(3);
     await a.reload();
     await b.reload();
-    expect(a.lengthM - before.a).toBeCloseTo(2, 6);
-    expect(b.lengthM - before.b).toBeCloseTo(2, 6);
+    expect(a.lengthM! - before.a).toBeCloseTo(2, 6);
+    expect(b.lengthM! - before.b).toBeCloseTo(2, 6);
   });
 
   it('when the error is not a deadlock or lock wait, then it is not retried', async () => {
