@@ -106,6 +106,9 @@ export function errorHandler(logger: Logger): ErrorRequestHandler {
       logger.warn('unreadable request body', { requestId, method: req.method, path: req.path, encoding: req.headers['content-encoding'], cause: bp.code ?? bp.type });
     } else if (typeof bp.status === 'number' && bp.status >= 400 && bp.status < 500 && bp.type)
       appErr = new AppError(bp.status, 'bad_request', 'The request could not be read.');
+    // The router could not decode a path parameter (a stray % in the address).
+    else if (err instanceof URIError && (err as URIError & { status?: number }).status === 400)
+      appErr = new AppError(400, 'malformed_address', 'The address could not be read: it has a broken %-escape.');
     else if (isDatabaseDown(err))
       appErr = new AppError(503, 'database_unavailable', 'The database is not reachable right now. Please try again shortly.', undefined, {
         'Retry-After': '5',

@@ -17,6 +17,15 @@ function rawBytesIn(text: string) {
 }
 
 describe('odd bodies', () => {
+  it('when an address has a broken %-escape in a path parameter, then 400 in words, not 500', async () => {
+    const { clients, base } = await gardenWithClients(app);
+    for (const path of [`${base}/plantings/%E0%A4%A`, `${base}/varieties/%zz`, '/api/calendar/%E0%A4%A.ics']) {
+      const res = await clients.grower.get(path);
+      expect(res.status, path).toBe(400);
+      expect(res.body.error).toMatchObject({ code: 'malformed_address' });
+    }
+  });
+
   it('when a body has a __proto__ key, then 400 names __proto__ as an unknown field, at the top and nested', async () => {
     const { clients, base } = await gardenWithClients(app);
     const top = await clients.grower.post(`${base}/beds`).set('Content-Type', 'application/json').send('{"name":"North bed","kind":"bed","__proto__":{"gardenId":1}}');
