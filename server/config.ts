@@ -29,6 +29,9 @@ const envSchema = z.object({
   REGISTER_MAX_PER_IP: z.coerce.number().int().positive().default(10),
   REGISTER_MAX_PER_EMAIL: z.coerce.number().int().positive().default(3),
   REGISTER_WINDOW_MINUTES: z.coerce.number().positive().default(60),
+  PASSWORD_RESET_MAX_PER_IP: z.coerce.number().int().positive().default(10),
+  PASSWORD_RESET_MAX_PER_EMAIL: z.coerce.number().int().positive().default(3),
+  PASSWORD_RESET_WINDOW_MINUTES: z.coerce.number().positive().default(60),
   TRUST_PROXY: z.string().optional(),
   COOKIE_SECURE: z.enum(['true', 'false']).optional(),
   LOG_LEVEL: z.enum(['silent', 'error', 'warn', 'info', 'debug']).optional(),
@@ -79,6 +82,9 @@ export interface AppConfig {
   registerMaxPerIp: number;
   registerMaxPerEmail: number;
   registerWindowMs: number;
+  passwordResetMaxPerIp: number;
+  passwordResetMaxPerEmail: number;
+  passwordResetWindowMs: number;
   trustProxy: string | undefined;
   /** Secure cookies need HTTPS; a production server bound to loopback is assumed to be a local demo unless told otherwise. */
   cookieSecure: boolean;
@@ -200,6 +206,9 @@ export function loadConfig(source: NodeJS.ProcessEnv = process.env): AppConfig {
     registerMaxPerIp: e.REGISTER_MAX_PER_IP,
     registerMaxPerEmail: e.REGISTER_MAX_PER_EMAIL,
     registerWindowMs: e.REGISTER_WINDOW_MINUTES * 60_000,
+    passwordResetMaxPerIp: e.PASSWORD_RESET_MAX_PER_IP,
+    passwordResetMaxPerEmail: e.PASSWORD_RESET_MAX_PER_EMAIL,
+    passwordResetWindowMs: e.PASSWORD_RESET_WINDOW_MINUTES * 60_000,
     trustProxy: e.TRUST_PROXY,
     cookieSecure: e.COOKIE_SECURE ? e.COOKIE_SECURE === 'true' : e.NODE_ENV === 'production' && !/^(127\.|localhost$|::1$)/.test(e.HOST),
     logLevel: e.LOG_LEVEL ?? (e.NODE_ENV === 'test' ? 'silent' : 'info'),

@@ -23,7 +23,7 @@ export function testDb() {
   if (!shared) {
     // Every test signs up and fails sign-ins from 127.0.0.1, and the counts live in the shared test
     // database: per-address limits are raised here; the tests of the limits set their own.
-    const config = loadConfig({ LOGIN_MAX_FAILURES_PER_IP: '100000', REGISTER_MAX_PER_IP: '100000', REGISTER_MAX_PER_EMAIL: '100000', ...process.env, NODE_ENV: 'test' });
+    const config = loadConfig({ LOGIN_MAX_FAILURES_PER_IP: '100000', REGISTER_MAX_PER_IP: '100000', REGISTER_MAX_PER_EMAIL: '100000', PASSWORD_RESET_MAX_PER_IP: '100000', ...process.env, NODE_ENV: 'test' });
     const sequelize = createSequelize(config.db);
     initModels(sequelize);
     const fake = startFakeWeather('error');

@@ -23,41 +23,54 @@ function signIn(req: Request, user: UserDto): Promise<void> {
     req.login(user, (err) => {
       if (err) return reject(err instanceof Error ? err : new Error('Signing in failed.'));
       req.session.signedInAt = Date.now();
+      req.session.userAgent = (req.get('user-agent') ?? '').slice(0, 255) || undefined;
       req.session.save((e: unknown) => (e ? reject(e instanceof Error ? e : new Error('The session could not be saved.')) : resolve()));
     }),
   );
 }
 
+export const emailOf = (req: Request) => {
+  const email = (req.body as { email?: unknown } | undefined)?.email;
+  return typeof email === 'string' ? email.trim().toLowerCase() : '';
+};
+export const ipOf = (req: Request) => ipKeyGenerator(req.ip ?? '');
+
+export interface LimiterOptions {
+  prefix: string;
+  windowMs: number;
+  limit: number;
+  key: (req: Request) => string;
+  failuresOnly: boolean;
+  what: string;
+}
+
+/** One limiter, counted in MariaDB so every instance sees the same attempts. */
+export const dbRateLimiter = (sequelize: Sequelize, o: LimiterOptions) =>
+  rateLimit({
+    windowMs: o.windowMs,
+    limit: o.limit,
+    skipSuccessfulRequests: o.failuresOnly,
+    standardHeaders: 'draft-8',
+    legacyHeaders: false,
+    store: new MariaDbRateLimitStore(sequelize, o.prefix),
+    keyGenerator: o.key,
+    handler: (_req, res, _next, options) => {
+      const retry = String(res.getHeader('Retry-After') ?? Math.ceil(options.windowMs / 1000));
+      res.status(options.statusCode).json({
+        error: {
+          code: 'rate_limited',
+          message: `Too many ${o.what}. Try again in ${retry} seconds.`,
+          requestId: res.locals.requestId as string | undefined,
+        },
+      });
+    },
+  });
+
 export function authRouter(deps: { sequelize: Sequelize; config: AppConfig; passport: ReturnType<typeof configurePassport>; table: RouteTableEntry[] }) {
   const { sequelize, config, passport, table } = deps;
   const router = Router();
 
-  const emailOf = (req: Request) => {
-    const email = (req.body as { email?: unknown } | undefined)?.email;
-    return typeof email === 'string' ? email.trim().toLowerCase() : '';
-  };
-  const ipOf = (req: Request) => ipKeyGenerator(req.ip ?? '');
-  /** One limiter, counted in MariaDB so every instance sees the same attempts. */
-  const limiter = (o: { prefix: string; windowMs: number; limit: number; key: (req: Request) => string; failuresOnly: boolean; what: string }) =>
-    rateLimit({
-      windowMs: o.windowMs,
-      limit: o.limit,
-      skipSuccessfulRequests: o.failuresOnly,
-      standardHeaders: 'draft-8',
-      legacyHeaders: false,
-      store: new MariaDbRateLimitStore(sequelize, o.prefix),
-      keyGenerator: o.key,
-      handler: (_req, res, _next, options) => {
-        const retry = String(res.getHeader('Retry-After') ?? Math.ceil(options.windowMs / 1000));
-        res.status(options.statusCode).json({
-          error: {
-            code: 'rate_limited',
-            message: `Too many ${o.what}. Try again in ${retry} seconds.`,
-            requestId: res.locals.requestId as string | undefined,
-          },
-        });
-      },
-    });
+  const limiter = (o: LimiterOptions) => dbRateLimiter(sequelize, o);
   // Sign-in failures per e-mail and address (a guessed password), and per address alone (made-up e-mails).
   const loginLimiters = [
     limiter({ prefix: 'login:', windowMs: config.loginWindowMs, limit: config.loginMaxFailures, key: (req) => `${emailOf(req)}|${ipOf(req)}`, failuresOnly: true, what: 'sign-in attempts' }),

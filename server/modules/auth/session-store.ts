@@ -12,7 +12,7 @@
 import session from 'express-session';
 import type { SessionData } from 'express-session';
 import { QueryTypes } from 'sequelize';
-import type { Sequelize } from 'sequelize';
+import type { Sequelize, Transaction } from 'sequelize';
 import type { UserDto } from '#shared/schemas/auth';
 import { accessContext, ACCESS_COLUMNS, ACCESS_JOINS } from '../../lib/garden-access';
 import type { AccessRow } from '../../lib/garden-access';
@@ -102,10 +102,11 @@ export class SqlSessionStore extends session.Store {
     // MariaDB evaluates the assignments in order.
     this.db
       .query(
-        `INSERT INTO sessions (sid, user_id, expires, data, created_at, updated_at) VALUES (?, ?, ?, ?, ?, ?)
+        `INSERT INTO sessions (sid, user_id, expires, data, user_agent, last_seen_at, created_at, updated_at) VALUES (?, ?, ?, ?, ?, ?, ?, ?)
          ON DUPLICATE KEY UPDATE user_id = IF(expires > ?, VALUES(user_id), user_id), data = IF(expires > ?, VALUES(data), data),
+           user_agent = IF(expires > ?, VALUES(user_agent), user_agent), last_seen_at = VALUES(last_seen_at),
            updated_at = VALUES(updated_at), expires = IF(expires > ?, VALUES(expires), expires)`,
-        { replacements: [sid, sess.passport?.user ?? null, expires, JSON.stringify(sess), now, now, now, now, now] },
+        { replacements: [sid, sess.passport?.user ?? null, expires, JSON.stringify(sess), sess.userAgent ?? null, now, now, now, now, now, now, now] },
       )
       .then(() => {
         this.loaded.delete(sid);
@@ -114,14 +115,17 @@ export class SqlSessionStore extends session.Store {
       .catch((err: unknown) => cb?.(err));
   }
 
-  /** Moves the expiry only when it would move by more than TOUCH_EVERY_MS; never revives a removed row. */
+  /**
+   * Moves the expiry only when it would move by more than TOUCH_EVERY_MS; never revives a removed row.
+   * The session list's "last seen" rides on this write, so it is true to within TOUCH_EVERY_MS.
+   */
   override touch(sid: string, sess: SessionData, cb?: Callback) {
     const expires = expiryOf(sess);
     const found = this.loaded.get(sid);
     if (found && expires.getTime() - found.expiresMs < TOUCH_EVERY_MS) return cb?.();
     this.db
-      .query('UPDATE sessions SET expires = ?, updated_at = ? WHERE sid = ? AND expires < ? AND expires > ?', {
-        replacements: [expires, new Date(), sid, new Date(expires.getTime() - TOUCH_EVERY_MS), new Date()],
+      .query('UPDATE sessions SET expires = ?, updated_at = ?, last_seen_at = ? WHERE sid = ? AND expires < ? AND expires > ?', {
+        replacements: [expires, new Date(), new Date(), sid, new Date(expires.getTime() - TOUCH_EVERY_MS), new Date()],
       })
       .then(() => {
         // Concurrent requests of the same session need not write it again.
@@ -151,12 +155,17 @@ export class SqlSessionStore extends session.Store {
   }
 
   /** Ends every session of a user (optionally but one), on every instance at once. */
-  async endAllFor(userId: number, exceptSid?: string): Promise<number> {
-    const [, removed] = await this.db.query(`UPDATE sessions SET expires = ? WHERE user_id = ?${exceptSid ? ' AND sid <> ?' : ''}`, {
-      replacements: exceptSid ? [new Date(0), userId, exceptSid] : [new Date(0), userId],
+  async endAllFor(userId: number, exceptSid?: string, transaction?: Transaction): Promise<number> {
+    return endSessionsOf(this.db, userId, exceptSid, transaction);
+  }
+
+  /** Ends one session of a user (not a delete: see `set`, a request still running must not write it back). */
+  async endOne(userId: number, sid: string): Promise<number> {
+    const [, removed] = await this.db.query('UPDATE sessions SET expires = ? WHERE user_id = ? AND sid = ? AND expires > ?', {
+      replacements: [new Date(0), userId, sid, new Date()],
       type: QueryTypes.UPDATE,
     });
-    // Expired rows are refused at once and swept later.
+    this.loaded.delete(sid);
     return removed;
   }
 
@@ -174,4 +183,17 @@ export class SqlSessionStore extends session.Store {
 function expiryOf(sess: SessionData): Date {
   const e = sess.cookie?.expires;
   return e ? new Date(e) : new Date(Date.now() + (sess.cookie?.originalMaxAge ?? 0));
+}
+
+/**
+ * Ends every session of a user (optionally but one) by expiring it in place: refused at once on
+ * every instance, swept later, and a request still running cannot write it back (see `set`).
+ */
+export async function endSessionsOf(db: Sequelize, userId: number, exceptSid?: string, transaction?: Transaction): Promise<number> {
+  const [, removed] = await db.query(`UPDATE sessions SET expires = ? WHERE user_id = ?${exceptSid ? ' AND sid <> ?' : ''}`, {
+    replacements: exceptSid ? [new Date(0), userId, exceptSid] : [new Date(0), userId],
+    type: QueryTypes.UPDATE,
+    transaction,
+  });
+  return removed;
 }

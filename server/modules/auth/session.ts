@@ -7,6 +7,8 @@ import { SqlSessionStore } from './session-store';
 declare module 'express-session' {
   interface SessionData {
     signedInAt?: number;
+    /** The browser's User-Agent at sign-in (cut to 255 characters), for the account's list of sessions. */
+    userAgent?: string;
     passport?: { user?: number };
   }
 }

@@ -18,6 +18,11 @@ export function SignInPage() {
   return (
     <AuthFrame title="Sign in" intro="Welcome back. Your gardens are waiting.">
       <SignInForm onSignedIn={() => navigate(next, { replace: true })} />
+      <p className="mt-4 text-sm">
+        <Link to="/forgot-password" className="font-semibold text-frost underline">
+          Forgot password?
+        </Link>
+      </p>
       <p className="mt-6 text-sm">
         New to Heatclock?{' '}
         <Link
