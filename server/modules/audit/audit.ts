@@ -9,6 +9,17 @@ import type { Transaction } from 'sequelize';
 export type AuditEntity = 'planting' | 'variety' | 'seed-lot' | 'germination-test' | 'bed' | 'weather-import' | 'member' | 'invitation' | 'garden-settings' | 'crop-settings' | 'climate';
 export type AuditAction = 'created' | 'changed' | 'deleted' | 'imported' | 'invited' | 'revoked' | 'joined' | 'left' | 'removed';
 
+/** The signed-in user who made a change, as the routes know them (`req.user`). */
+export interface AuditActor {
+  id: number;
+  name: string;
+}
+
+/** The actor of a request's user: only id and name reach the trail, never the e-mail. */
+export function actorOf(user: { id: number; name: string }): AuditActor {
+  return { id: user.id, name: user.name };
+}
+
 /** Before and after of each changed field (either side absent for a create or a delete). */
 export type AuditChanges = Record<string, { from?: unknown; to?: unknown }>;
 
@@ -46,6 +57,13 @@ export function changedFields(before: Record<string, unknown>, after: Record<str
   const same = (a: unknown, b: unknown) => (a instanceof Date && b instanceof Date ? a.getTime() === b.getTime() : JSON.stringify(a) === JSON.stringify(b));
   const out: AuditChanges = {};
   for (const f of fields) if (!same(before[f], after[f])) out[f] = { from: before[f] ?? null, to: after[f] ?? null };
+  return out;
+}
+
+/** A created record's fields as `to` values, or a deleted one's as `from` values (empty text and nulls left out). */
+export function fieldsOf(record: Record<string, unknown>, side: 'from' | 'to'): AuditChanges {
+  const out: AuditChanges = {};
+  for (const [field, value] of Object.entries(record)) if (value !== null && value !== undefined && value !== '') out[field] = { [side]: value };
   return out;
 }
 

@@ -1,7 +1,8 @@
 import { Router } from 'express';
 import { bedCreateSchema, bedListQuerySchema, bedUpdateSchema } from '#shared/schemas/beds';
 import { parseBody, parseChange, parseQuery } from '../../lib/validate';
-import { mountRoutes } from '../../lib/routes';
+import { mountRoutes, requireSignedIn } from '../../lib/routes';
+import { actorOf } from '../audit/audit';
 import type { RouteTableEntry } from '../../lib/routes';
 import { recordId } from '../records/params';
 import { pageOf } from '../records/paging';
@@ -33,7 +34,7 @@ export function bedsRouter(table: RouteTableEntry[]) {
         path: '/',
         access: 'grower',
         handler: async (req, res) => {
-          const bed = await createBed(req.membership!.gardenId, parseBody(bedCreateSchema, req.body));
+          const bed = await createBed(req.membership!.gardenId, actorOf(requireSignedIn(req)), parseBody(bedCreateSchema, req.body));
           res.status(201).json({ bed: presentBed(bed) });
         },
       },
@@ -52,7 +53,7 @@ export function bedsRouter(table: RouteTableEntry[]) {
         handler: async (req, res) => {
           const gardenId = req.membership!.gardenId;
           const bedId = recordId(req.params, 'bedId');
-          await updateBed(gardenId, bedId, parseChange(bedUpdateSchema, req.body));
+          await updateBed(gardenId, bedId, actorOf(requireSignedIn(req)), parseChange(bedUpdateSchema, req.body));
           res.json({ bed: await one(gardenId, bedId) });
         },
       },
@@ -61,7 +62,7 @@ export function bedsRouter(table: RouteTableEntry[]) {
         path: '/:bedId',
         access: 'grower',
         handler: async (req, res) => {
-          await deleteBed(req.membership!.gardenId, recordId(req.params, 'bedId'));
+          await deleteBed(req.membership!.gardenId, recordId(req.params, 'bedId'), actorOf(requireSignedIn(req)));
           res.status(204).end();
         },
       },

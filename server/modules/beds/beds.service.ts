@@ -8,6 +8,10 @@ import { likeText, limitOffset } from '../records/paging';
 import { unreferencedOr409, uniqueOr409 } from '../records/unique';
 import { inTransaction } from '../../lib/transaction';
 import { countOf } from '#shared/format/count-words';
+import { changedFields, fieldsOf, recordAudit } from '../audit/audit';
+import type { AuditActor } from '../audit/audit';
+import { changedSummary } from '../audit/audit-words';
+import { BED_FIELDS, bedView } from '../audit/audit-views';
 
 type BedListQuery = z.output<typeof bedListQuerySchema>;
 
@@ -44,28 +48,49 @@ export async function getBed(gardenId: number, bedId: number) {
   return bed;
 }
 
-export async function createBed(gardenId: number, input: BedCreateInput) {
+export async function createBed(gardenId: number, actor: AuditActor, input: BedCreateInput) {
   return uniqueOr409(
     // Each write in a transaction, so the garden's revision moves with the row (progress-invalidation.ts).
     () =>
+      // `.then` rather than an async callback, so a failed insert's logged stack still reaches the route within Node's 10 frames.
       inTransaction(Bed.sequelize!, (transaction) =>
-        Bed.create({ gardenId, name: input.name, kind: input.kind, lengthM: input.lengthM ?? null, widthM: input.widthM ?? null, notes: input.notes ?? '' }, { transaction }),
+        Bed.create({ gardenId, name: input.name, kind: input.kind, lengthM: input.lengthM ?? null, widthM: input.widthM ?? null, notes: input.notes ?? '' }, { transaction }).then(async (bed) => {
+          await recordAudit(transaction, { gardenId, actor, entity: 'bed', entityId: bed.id, action: 'created', summary: `Added the bed ${bed.name}`, changes: fieldsOf(bedView(bed), 'to') });
+          return bed;
+        }),
       ),
     duplicate,
     'name',
   );
 }
 
-export async function updateBed(gardenId: number, bedId: number, input: BedUpdateInput) {
+export async function updateBed(gardenId: number, bedId: number, actor: AuditActor, input: BedUpdateInput) {
   const bed = await getBed(gardenId, bedId);
-  return uniqueOr409(() => inTransaction(Bed.sequelize!, (transaction) => bed.update(input, { transaction })), duplicate, 'name');
+  const before = bedView(bed);
+  return uniqueOr409(
+    () =>
+      inTransaction(Bed.sequelize!, async (transaction) => {
+        await bed.update(input, { transaction });
+        const changes = changedFields(before, bedView(bed), BED_FIELDS);
+        if (Object.keys(changes).length) await recordAudit(transaction, { gardenId, actor, entity: 'bed', entityId: bedId, action: 'changed', summary: changedSummary(changes, `the bed ${bed.name}`), changes });
+        return bed;
+      }),
+    duplicate,
+    'name',
+  );
 }
 
-export async function deleteBed(gardenId: number, bedId: number) {
+export async function deleteBed(gardenId: number, bedId: number, actor: AuditActor) {
   const bed = await getBed(gardenId, bedId);
   const used = await Planting.count({ where: { gardenId, bedId } });
   if (used) {
     throw new AppError(409, 'in_use', `This bed has ${countOf(used, 'planting')} on record; move or delete them first.`);
   }
-  await unreferencedOr409(() => inTransaction(Bed.sequelize!, (transaction) => bed.destroy({ transaction })), 'A planting was just added to this bed; move or delete it first.');
+  await unreferencedOr409(
+    () =>
+      inTransaction(Bed.sequelize!, async (transaction) => {
+        await bed.destroy({ transaction });
+        await recordAudit(transaction, { gardenId, actor, entity: 'bed', entityId: bedId, action: 'deleted', summary: `Deleted the bed ${bed.name}`, changes: fieldsOf(bedView(bed), 'from') });
+      }),
+    'A planting was just added to this bed; move or delete it first.');
 }

@@ -2,6 +2,7 @@ import { Router } from 'express';
 import type { Sequelize } from 'sequelize';
 import { climateOverrideSchema } from '#shared/schemas/climate';
 import { mountRoutes, requireSignedIn } from '../../lib/routes';
+import { actorOf } from '../audit/audit';
 import type { RouteTableEntry } from '../../lib/routes';
 import type { ReadCache } from '../../lib/read-cache';
 import { parseChange } from '../../lib/validate';
@@ -34,7 +35,7 @@ export function climateRouter(deps: { sequelize: Sequelize; weather: WeatherServ
           const m = req.membership!;
           const user = requireSignedIn(req);
           const input = parseChange(climateOverrideSchema, req.body);
-          const override = await service.setOverride(m.gardenId, user.id, input);
+          const override = await service.setOverride(m.gardenId, actorOf(user), input);
           res.json({ override });
         },
       },

@@ -16,6 +16,9 @@ import { tempIn } from '#shared/thermal/units';
 import type { DailyTemp } from '#shared/thermal/types';
 import { moveGardenRevisions } from '../../lib/garden-revision';
 import { inTransaction } from '../../lib/transaction';
+import { changedFields, recordAudit } from '../audit/audit';
+import type { AuditActor } from '../audit/audit';
+import { changedSummary } from '../audit/audit-words';
 import type { GardenFacts } from '../../lib/routes';
 import type { WeatherService } from '../weather/weather.service';
 
@@ -81,7 +84,7 @@ export class ClimateService {
   }
 
   /** Sets the named figures (null clears one); the row goes when none is left. Moves the garden's revision with it. */
-  async setOverride(gardenId: number, userId: number, input: ClimateOverrideInput): Promise<ClimateOverrideDto | null> {
+  async setOverride(gardenId: number, actor: AuditActor, input: ClimateOverrideInput): Promise<ClimateOverrideDto | null> {
     await inTransaction(this.db, async (transaction) => {
       const [current] = await this.db.query<ClimateOverrideRow>('SELECT last_spring_frost, first_fall_frost, zone, updated_at FROM garden_climate_overrides WHERE garden_id = ? FOR UPDATE', {
         replacements: [gardenId],
@@ -101,8 +104,16 @@ export class ClimateService {
            VALUES (?, ?, ?, ?, ?, UTC_TIMESTAMP(3))
            ON DUPLICATE KEY UPDATE last_spring_frost = VALUES(last_spring_frost), first_fall_frost = VALUES(first_fall_frost), zone = VALUES(zone),
              updated_by = VALUES(updated_by), updated_at = VALUES(updated_at)`,
-          { replacements: [gardenId, next.spring, next.fall, next.zone, userId], transaction },
+          { replacements: [gardenId, next.spring, next.fall, next.zone, actor.id], transaction },
         );
+      }
+      const changes = changedFields(
+        { lastSpringFrost50: current?.last_spring_frost ?? null, firstFallFrost50: current?.first_fall_frost ?? null, zone: current?.zone ?? null },
+        { lastSpringFrost50: next.spring, firstFallFrost50: next.fall, zone: next.zone },
+        ['lastSpringFrost50', 'firstFallFrost50', 'zone'],
+      );
+      if (Object.keys(changes).length) {
+        await recordAudit(transaction, { gardenId, actor, entity: 'climate', entityId: gardenId, action: 'changed', summary: changedSummary(changes, "the garden's climate"), changes });
       }
       await moveGardenRevisions(this.db, [gardenId], transaction);
     });

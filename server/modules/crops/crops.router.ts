@@ -3,6 +3,7 @@ import { z } from 'zod';
 import { cropKeySchema, cropListQuerySchema, cropOverridesUpdateSchema } from '#shared/schemas/crops';
 import { nothingToChange, parseBody, parseQuery } from '../../lib/validate';
 import { mountRoutes, requireSignedIn } from '../../lib/routes';
+import { actorOf } from '../audit/audit';
 import type { RouteTableEntry } from '../../lib/routes';
 import { validationError } from '../../errors';
 import { getCrop, listCrops, updateCropOverrides } from './crops.service';
@@ -47,7 +48,7 @@ export function cropsRouter(table: RouteTableEntry[]) {
           const cropKey = cropKeyOf(req.params);
           const input = parseBody(cropOverridesUpdateSchema, req.body);
           if (Object.keys(input.params).length === 0) throw nothingToChange();
-          res.json({ crop: presentCrop(await updateCropOverrides(req.membership!.gardenId, user.id, cropKey, input)) });
+          res.json({ crop: presentCrop(await updateCropOverrides(req.membership!.gardenId, actorOf(user), cropKey, input)) });
         },
       },
     ],

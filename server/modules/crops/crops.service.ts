@@ -10,6 +10,9 @@ import { CropOverride } from '../../db/models';
 import { AppError } from '../../errors';
 import { inTransaction } from '../../lib/transaction';
 import { getGarden } from '../gardens/gardens.service';
+import { recordAudit } from '../audit/audit';
+import type { AuditActor, AuditChanges } from '../audit/audit';
+import { changedSummary } from '../audit/audit-words';
 
 type CropListQuery = z.output<typeof cropListQuerySchema>;
 
@@ -92,7 +95,7 @@ export async function getCrop(gardenId: number, cropKey: string, transaction?: T
  * checked together with everything it leaves in place, and a degree-day figure keeps the
  * method it is counted with after this change (the grower's figure is read in that method).
  */
-export async function updateCropOverrides(gardenId: number, userId: number, cropKey: string, input: CropOverridesUpdateInput) {
+export async function updateCropOverrides(gardenId: number, actor: AuditActor, cropKey: string, input: CropOverridesUpdateInput) {
   const crop = cropOrNotFound(cropKey);
   const garden = await getGarden(gardenId);
   return inTransaction(CropOverride.sequelize!, async (transaction) => {
@@ -101,11 +104,15 @@ export async function updateCropOverrides(gardenId: number, userId: number, crop
     const problems = paramProblems(after, garden.units);
     if (Object.keys(problems).length) throw inconsistent(problems);
     const basis = basisOfValues(after);
+    const changes: AuditChanges = {};
     for (const key of CROP_PARAM_KEYS) {
       const change = input.params[key];
       if (change === undefined) continue;
       const where = { gardenId, cropKey: crop.key, paramKey: key };
       const existing = await CropOverride.findOne({ where, transaction, lock: transaction.LOCK.UPDATE });
+      // null on either side: the library's value.
+      const was = existing ? (JSON.parse(existing.valueJson) as unknown) : null;
+      if (JSON.stringify(was) !== JSON.stringify(change?.value ?? null)) changes[key] = { from: was, to: change?.value ?? null };
       if (change === null) {
         await existing?.destroy({ transaction });
         continue;
@@ -114,7 +121,7 @@ export async function updateCropOverrides(gardenId: number, userId: number, crop
       const fields = {
         valueJson: JSON.stringify(change.value),
         note: change.note ?? '',
-        updatedBy: userId,
+        updatedBy: actor.id,
         ddBaseC: measured ? basis.baseC : null,
         ddUpperC: measured ? basis.upperC : null,
         ddMethod: measured ? basis.method : null,
@@ -122,6 +129,9 @@ export async function updateCropOverrides(gardenId: number, userId: number, crop
       };
       if (existing) await existing.update(fields, { transaction });
       else await CropOverride.create({ ...where, ...fields }, { transaction });
+    }
+    if (Object.keys(changes).length) {
+      await recordAudit(transaction, { gardenId, actor, entity: 'crop-settings', entityId: crop.key, action: 'changed', summary: changedSummary(changes, `${crop.name} in this garden`, 'crop-settings'), changes });
     }
     return getCrop(gardenId, crop.key, transaction);
   });

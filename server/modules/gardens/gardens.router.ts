@@ -2,6 +2,7 @@ import { Router } from 'express';
 import { gardenUpdateSchema } from '#shared/schemas/gardens';
 import { parseChange } from '../../lib/validate';
 import { mountRoutes, requireSignedIn } from '../../lib/routes';
+import { actorOf } from '../audit/audit';
 import type { RouteTableEntry } from '../../lib/routes';
 import { getGarden, listGardensFor, updateGarden } from './gardens.service';
 import { presentGarden } from './gardens.presenter';
@@ -40,7 +41,7 @@ export function gardensRouter(deps: { table: RouteTableEntry[]; weather: Weather
         handler: async (req, res) => {
           const m = req.membership!;
           const input = parseChange(gardenUpdateSchema, req.body);
-          const garden = await updateGarden(m.gardenId, input);
+          const garden = await updateGarden(m.gardenId, actorOf(requireSignedIn(req)), input);
           const newCell = await weather.locateGarden(garden);
           if (newCell) void weather.prepareCell(newCell, garden.id);
           res.json({ garden: presentGarden(garden, m.role) });

@@ -6,6 +6,10 @@ import type { GardenRow } from './gardens.presenter';
 import { AppError } from '../../errors';
 import { inTransaction } from '../../lib/transaction';
 import { refreshGardenSeasons } from '../../db/planting-season';
+import { changedFields, recordAudit } from '../audit/audit';
+import type { AuditActor } from '../audit/audit';
+import { changedSummary } from '../audit/audit-words';
+import { GARDEN_FIELDS, gardenView } from '../audit/audit-views';
 
 /** The user's gardens with their role, by name: one indexed read, plain rows (sent on every page load). */
 export async function listGardensFor(userId: number) {
@@ -25,14 +29,17 @@ export async function getGarden(gardenId: number) {
   return garden;
 }
 
-export async function updateGarden(gardenId: number, input: GardenUpdateInput) {
+export async function updateGarden(gardenId: number, actor: AuditActor, input: GardenUpdateInput) {
   const garden = await getGarden(gardenId);
+  const before = gardenView(garden);
   // In a transaction, so the garden's counters move with its settings (progress-invalidation.ts).
   // Its plantings' stored seasons follow its hemisphere, in the same transaction.
   await inTransaction(Garden.sequelize!, async (transaction) => {
     const moved = input.latitude !== undefined && input.latitude !== garden.latitude;
     await garden.update(input, { transaction });
     if (moved) await refreshGardenSeasons(Garden.sequelize!, gardenId, transaction);
+    const changes = changedFields(before, gardenView(garden), GARDEN_FIELDS);
+    if (Object.keys(changes).length) await recordAudit(transaction, { gardenId, actor, entity: 'garden-settings', entityId: gardenId, action: 'changed', summary: changedSummary(changes, 'the garden'), changes });
   });
   return garden;
 }

@@ -1,11 +1,17 @@
 import type { Transaction } from 'sequelize';
 import { plantingCreateSchema } from '#shared/schemas/plantings';
+import { LOG_KIND_WORDS } from '#shared/schemas/plantings';
 import type { LogEntryCreateInput } from '#shared/schemas/plantings';
 import { plantingFields } from './plantings.presenter';
 import { Planting, PlantingLog, User } from '../../db/models';
 import { AppError } from '../../errors';
 import { limitOffset } from '../records/paging';
 import { inTransaction } from '../../lib/transaction';
+import { changedFields, recordAudit } from '../audit/audit';
+import type { AuditActor } from '../audit/audit';
+import { changedSummary } from '../audit/audit-words';
+import { PLANTING_FIELDS, plantingSubject, plantingView } from '../audit/audit-views';
+import { getPlanting } from './plantings.service';
 
 async function plantingOf(gardenId: number, plantingId: number, transaction?: Transaction) {
   const planting = await Planting.findOne({
@@ -51,7 +57,7 @@ function stageChanges(p: Planting, e: LogEntryCreateInput): Partial<Planting> {
   }
 }
 
-export async function addLogEntry(gardenId: number, plantingId: number, userId: number, input: LogEntryCreateInput, transaction?: Transaction) {
+export async function addLogEntry(gardenId: number, plantingId: number, actor: AuditActor, input: LogEntryCreateInput, transaction?: Transaction) {
   const work = async (t: Transaction) => {
     const planting = await plantingOf(gardenId, plantingId, t);
     const start = planting.sownOn ?? planting.transplantedOn;
@@ -70,7 +76,14 @@ export async function addLogEntry(gardenId: number, plantingId: number, userId: 
           entryOn: `This ${input.kind} entry does not fit the planting: ${why}`,
         });
       }
+      const before = await getPlanting(gardenId, plantingId, t);
       await planting.update(changes, { transaction: t });
+      const after = await getPlanting(gardenId, plantingId, t);
+      const changed = changedFields(plantingView(before), plantingView(after), PLANTING_FIELDS);
+      if (Object.keys(changed).length) {
+        const summary = `${changedSummary(changed, plantingSubject(after))} (log entry: ${LOG_KIND_WORDS[input.kind]})`;
+        await recordAudit(t, { gardenId, actor, entity: 'planting', entityId: plantingId, action: 'changed', summary, changes: changed });
+      }
     }
     return PlantingLog.create(
       {
@@ -82,7 +95,7 @@ export async function addLogEntry(gardenId: number, plantingId: number, userId: 
         amountUnit: input.amountUnit ?? null,
         note: input.note ?? '',
         photoId: null,
-        createdBy: userId,
+        createdBy: actor.id,
       },
       { transaction: t },
     );

@@ -6,6 +6,7 @@ import { parseBody, parseChange, parseQuery } from '../../lib/validate';
 import { mountRoutes, requireSignedIn } from '../../lib/routes';
 import type { RouteTableEntry } from '../../lib/routes';
 import { AppError } from '../../errors';
+import { actorOf } from '../audit/audit';
 import { recordId } from '../records/params';
 import { pageOf } from '../records/paging';
 import { receiveOneFile } from '../../lib/upload';
@@ -77,7 +78,7 @@ export function plantingsRouter(config: AppConfig, table: RouteTableEntry[], pro
         handler: async (req, res) => {
           const user = requireSignedIn(req);
           const gardenId = req.membership!.gardenId;
-          const planting = await createPlanting(gardenId, user.id, parseBody(plantingCreateSchema, req.body));
+          const planting = await createPlanting(gardenId, actorOf(user), parseBody(plantingCreateSchema, req.body));
           res.status(201).json({ planting: await present(gardenId, planting) });
         },
       },
@@ -123,7 +124,7 @@ export function plantingsRouter(config: AppConfig, table: RouteTableEntry[], pro
         handler: async (req, res) => {
           const gardenId = req.membership!.gardenId;
           const plantingId = recordId(req.params, 'plantingId');
-          const planting = await updatePlanting(gardenId, plantingId, parseChange(plantingUpdateSchema, req.body));
+          const planting = await updatePlanting(gardenId, plantingId, actorOf(requireSignedIn(req)), parseChange(plantingUpdateSchema, req.body));
           res.json({ planting: await present(gardenId, planting) });
         },
       },
@@ -132,7 +133,7 @@ export function plantingsRouter(config: AppConfig, table: RouteTableEntry[], pro
         path: '/:plantingId',
         access: 'grower',
         handler: async (req, res) => {
-          const files = await deletePlanting(req.membership!.gardenId, recordId(req.params, 'plantingId'));
+          const files = await deletePlanting(req.membership!.gardenId, recordId(req.params, 'plantingId'), actorOf(requireSignedIn(req)));
           await removePhotoFiles(config.uploads, files);
           res.status(204).end();
         },
@@ -156,7 +157,7 @@ export function plantingsRouter(config: AppConfig, table: RouteTableEntry[], pro
           const user = requireSignedIn(req);
           const gardenId = req.membership!.gardenId;
           const plantingId = recordId(req.params, 'plantingId');
-          const entry = await addLogEntry(gardenId, plantingId, user.id, parseBody(logEntryCreateSchema, req.body));
+          const entry = await addLogEntry(gardenId, plantingId, actorOf(user), parseBody(logEntryCreateSchema, req.body));
           const planting = await getPlanting(gardenId, plantingId);
           res.status(201).json({
             entry: presentLogEntry(await getLogEntry(gardenId, plantingId, entry.id)),

@@ -10,6 +10,10 @@ import { bedInGarden, seedLotInGarden, varietyInGarden } from '../records/scope'
 import { plantingFields } from './plantings.presenter';
 import { inTransaction } from '../../lib/transaction';
 import { uniqueOr409 } from '../records/unique';
+import { changedFields, fieldsOf, recordAudit } from '../audit/audit';
+import type { AuditActor } from '../audit/audit';
+import { changedSummary } from '../audit/audit-words';
+import { PLANTING_FIELDS, plantingSubject, plantingView } from '../audit/audit-views';
 
 type PlantingListQuery = z.output<typeof plantingListQuerySchema>;
 
@@ -111,17 +115,19 @@ async function checkReferences(gardenId: number, p: Pick<PlantingCreateInput, 'b
   }
 }
 
-export async function createPlanting(gardenId: number, userId: number, input: PlantingCreateInput) {
+export async function createPlanting(gardenId: number, actor: AuditActor, input: PlantingCreateInput) {
   const id = await inTransaction(Planting.sequelize!, async (transaction) => {
     await checkReferences(gardenId, input, transaction);
-    const planting = await uniqueOr409(() => Planting.create({ gardenId, createdBy: userId, ...input }, { transaction }), duplicatePlanting);
+    const planting = await uniqueOr409(() => Planting.create({ gardenId, createdBy: actor.id, ...input }, { transaction }), duplicatePlanting);
+    const made = await getPlanting(gardenId, planting.id, transaction);
+    await recordAudit(transaction, { gardenId, actor, entity: 'planting', entityId: made.id, action: 'created', summary: `Added a planting of ${plantingSubject(made)}`, changes: fieldsOf(plantingView(made), 'to') });
     return planting.id;
   });
   return getPlanting(gardenId, id);
 }
 
 
-export async function updatePlanting(gardenId: number, plantingId: number, input: PlantingUpdateInput) {
+export async function updatePlanting(gardenId: number, plantingId: number, actor: AuditActor, input: PlantingUpdateInput) {
   await inTransaction(Planting.sequelize!, async (transaction) => {
     const planting = await Planting.findOne({ where: { id: plantingId, gardenId }, transaction, lock: transaction.LOCK.UPDATE });
     if (!planting) throw AppError.notFound('That planting');
@@ -129,18 +135,26 @@ export async function updatePlanting(gardenId: number, plantingId: number, input
     const merged = plantingCreateSchema.safeParse({ ...plantingFields(planting), ...input });
     if (!merged.success) throw validationError(merged.error);
     await checkReferences(gardenId, merged.data, transaction);
+    const before = await getPlanting(gardenId, plantingId, transaction);
     await uniqueOr409(() => planting.update(input, { transaction }), duplicatePlanting);
+    const after = await getPlanting(gardenId, plantingId, transaction);
+    const changes = changedFields(plantingView(before), plantingView(after), PLANTING_FIELDS);
+    if (Object.keys(changes).length) {
+      await recordAudit(transaction, { gardenId, actor, entity: 'planting', entityId: plantingId, action: 'changed', summary: changedSummary(changes, plantingSubject(after)), changes });
+    }
   });
   return getPlanting(gardenId, plantingId);
 }
 
 /** Returns the photo files to remove once the rows are gone. */
-export async function deletePlanting(gardenId: number, plantingId: number): Promise<string[]> {
+export async function deletePlanting(gardenId: number, plantingId: number, actor: AuditActor): Promise<string[]> {
   return inTransaction(Planting.sequelize!, async (transaction) => {
     const planting = await Planting.findOne({ where: { id: plantingId, gardenId }, transaction, lock: transaction.LOCK.UPDATE });
     if (!planting) throw AppError.notFound('That planting');
     const photos = await PlantingPhoto.findAll({ where: { plantingId }, attributes: ['storageName'], transaction });
+    const gone = await getPlanting(gardenId, plantingId, transaction);
     await planting.destroy({ transaction });
+    await recordAudit(transaction, { gardenId, actor, entity: 'planting', entityId: plantingId, action: 'deleted', summary: `Deleted the planting of ${plantingSubject(gone)}`, changes: fieldsOf(plantingView(gone), 'from') });
     return photos.map((p) => p.storageName);
   });
 }

@@ -7,7 +7,8 @@ import {
   seedsToSowQuerySchema,
 } from '#shared/schemas/seed-lots';
 import { parseBody, parseChange, parseQuery } from '../../lib/validate';
-import { mountRoutes } from '../../lib/routes';
+import { mountRoutes, requireSignedIn } from '../../lib/routes';
+import { actorOf } from '../audit/audit';
 import type { RouteTableEntry } from '../../lib/routes';
 import type { GerminationTest, SeedLot } from '../../db/models';
 import { recordId } from '../records/params';
@@ -63,7 +64,7 @@ export function seedLotsRouter(table: RouteTableEntry[], cache: ReadCache) {
         access: 'grower',
         handler: async (req, res) => {
           const gardenId = req.membership!.gardenId;
-          const lot = await createSeedLot(gardenId, parseBody(seedLotCreateSchema, req.body));
+          const lot = await createSeedLot(gardenId, actorOf(requireSignedIn(req)), parseBody(seedLotCreateSchema, req.body));
           res.status(201).json({ seedLot: await one(gardenId, lot) });
         },
       },
@@ -82,7 +83,7 @@ export function seedLotsRouter(table: RouteTableEntry[], cache: ReadCache) {
         access: 'grower',
         handler: async (req, res) => {
           const gardenId = req.membership!.gardenId;
-          const lot = await updateSeedLot(gardenId, recordId(req.params, 'seedLotId'), parseChange(seedLotUpdateSchema, req.body));
+          const lot = await updateSeedLot(gardenId, recordId(req.params, 'seedLotId'), actorOf(requireSignedIn(req)), parseChange(seedLotUpdateSchema, req.body));
           res.json({ seedLot: await one(gardenId, lot) });
         },
       },
@@ -91,7 +92,7 @@ export function seedLotsRouter(table: RouteTableEntry[], cache: ReadCache) {
         path: '/:seedLotId',
         access: 'grower',
         handler: async (req, res) => {
-          await deleteSeedLot(req.membership!.gardenId, recordId(req.params, 'seedLotId'));
+          await deleteSeedLot(req.membership!.gardenId, recordId(req.params, 'seedLotId'), actorOf(requireSignedIn(req)));
           res.status(204).end();
         },
       },
@@ -102,7 +103,7 @@ export function seedLotsRouter(table: RouteTableEntry[], cache: ReadCache) {
         handler: async (req, res) => {
           const gardenId = req.membership!.gardenId;
           const seedLotId = recordId(req.params, 'seedLotId');
-          const test = await addGerminationTest(gardenId, seedLotId, parseBody(germinationTestCreateSchema, req.body));
+          const test = await addGerminationTest(gardenId, seedLotId, actorOf(requireSignedIn(req)), parseBody(germinationTestCreateSchema, req.body));
           res.status(201).json({ test: presentTest(test), seedLot: await one(gardenId, await getSeedLot(gardenId, seedLotId)) });
         },
       },
@@ -111,7 +112,7 @@ export function seedLotsRouter(table: RouteTableEntry[], cache: ReadCache) {
         path: '/:seedLotId/germination-tests/:testId',
         access: 'grower',
         handler: async (req, res) => {
-          await deleteGerminationTest(req.membership!.gardenId, recordId(req.params, 'seedLotId'), recordId(req.params, 'testId'));
+          await deleteGerminationTest(req.membership!.gardenId, recordId(req.params, 'seedLotId'), recordId(req.params, 'testId'), actorOf(requireSignedIn(req)));
           res.status(204).end();
         },
       },

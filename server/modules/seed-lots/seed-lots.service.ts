@@ -10,6 +10,11 @@ import { likeText, limitOffset } from '../records/paging';
 import { varietyInGarden } from '../records/scope';
 import { inTransaction } from '../../lib/transaction';
 import { countOf } from '#shared/format/count-words';
+import { dayToken } from '#shared/format/dates';
+import { changedFields, fieldsOf, recordAudit } from '../audit/audit';
+import type { AuditActor } from '../audit/audit';
+import { changedSummary } from '../audit/audit-words';
+import { SEED_LOT_FIELDS, germinationTestView, seedLotSubject, seedLotView } from '../audit/audit-views';
 
 type SeedLotListQuery = z.output<typeof seedLotListQuerySchema>;
 type SeedsToSowQuery = z.output<typeof seedsToSowQuerySchema>;
@@ -54,28 +59,36 @@ export async function getSeedLot(gardenId: number, seedLotId: number) {
   return lot;
 }
 
-export async function createSeedLot(gardenId: number, input: SeedLotCreateInput) {
-  await varietyInGarden(gardenId, input.varietyId);
+export async function createSeedLot(gardenId: number, actor: AuditActor, input: SeedLotCreateInput) {
+  const variety = await varietyInGarden(gardenId, input.varietyId);
   // In a transaction, so the garden's revision moves with the row (progress-invalidation.ts).
-  const lot = await inTransaction(SeedLot.sequelize!, (transaction) => SeedLot.create({ gardenId, ...input }, { transaction }));
+  const lot = await inTransaction(SeedLot.sequelize!, async (transaction) => {
+    const made = await SeedLot.create({ gardenId, ...input }, { transaction });
+    made.variety = variety;
+    await recordAudit(transaction, { gardenId, actor, entity: 'seed-lot', entityId: made.id, action: 'created', summary: `Added ${seedLotSubject(made)}`, changes: fieldsOf(seedLotView(made), 'to') });
+    return made;
+  });
   return getSeedLot(gardenId, lot.id);
 }
 
-export async function updateSeedLot(gardenId: number, seedLotId: number, input: SeedLotUpdateInput) {
+export async function updateSeedLot(gardenId: number, seedLotId: number, actor: AuditActor, input: SeedLotUpdateInput) {
   const lot = await getSeedLot(gardenId, seedLotId);
+  const before = seedLotView(lot);
   return inTransaction(SeedLot.sequelize!, async (transaction) => {
     if (input.varietyId !== undefined && input.varietyId !== lot.varietyId) {
-      await varietyInGarden(gardenId, input.varietyId, transaction);
+      lot.variety = await varietyInGarden(gardenId, input.varietyId, transaction);
       // A lot is seed of one variety; plantings sown from it must not silently change crop.
       const used = await Planting.count({ where: { seedLotId }, transaction });
       if (used) throw new AppError(409, 'in_use', 'Plantings were sown from this lot, so its variety cannot change.');
     }
     await lot.update(input, { transaction });
+    const changes = changedFields(before, seedLotView(lot), SEED_LOT_FIELDS);
+    if (Object.keys(changes).length) await recordAudit(transaction, { gardenId, actor, entity: 'seed-lot', entityId: seedLotId, action: 'changed', summary: changedSummary(changes, seedLotSubject(lot)), changes });
     return lot;
   }).then(() => getSeedLot(gardenId, seedLotId));
 }
 
-export async function deleteSeedLot(gardenId: number, seedLotId: number) {
+export async function deleteSeedLot(gardenId: number, seedLotId: number, actor: AuditActor) {
   const lot = await getSeedLot(gardenId, seedLotId);
   const used = await Planting.count({ where: { seedLotId } });
   if (used) throw new AppError(409, 'in_use', `${countOf(used, 'planting was', 'plantings were')} sown from this lot; they keep it on record.`);
@@ -87,24 +100,34 @@ export async function deleteSeedLot(gardenId: number, seedLotId: number) {
         if (!locked) throw AppError.notFound('That seed lot');
         await GerminationTest.destroy({ where: { seedLotId: lot.id }, transaction });
         await locked.destroy({ transaction });
+        await recordAudit(transaction, { gardenId, actor, entity: 'seed-lot', entityId: seedLotId, action: 'deleted', summary: `Deleted ${seedLotSubject(lot)}`, changes: fieldsOf(seedLotView(lot), 'from') });
       }),
     'A planting sown from this lot was just recorded; it keeps the lot on record.',
   );
 }
 
-export async function addGerminationTest(gardenId: number, seedLotId: number, input: GerminationTestCreateInput) {
+export async function addGerminationTest(gardenId: number, seedLotId: number, actor: AuditActor, input: GerminationTestCreateInput) {
   return inTransaction(SeedLot.sequelize!, async (transaction) => {
     // Locked for share: a delete of the lot waits for this test, or this test waits and answers 404.
     const lot = await SeedLot.findOne({ where: { id: seedLotId, gardenId }, attributes: ['id'], transaction, lock: transaction.LOCK.SHARE });
     if (!lot) throw AppError.notFound('That seed lot');
-    return GerminationTest.create({ gardenId, seedLotId: lot.id, notes: '', ...input }, { transaction });
+    const test = await GerminationTest.create({ gardenId, seedLotId: lot.id, notes: '', ...input }, { transaction });
+    const full = await SeedLot.findOne({ where: { id: lot.id }, include: [{ model: Variety, as: 'variety', required: true }], transaction });
+    const summary = `Recorded a germination test of ${full ? seedLotSubject(full) : 'a seed lot'}: ${test.germinated} of ${test.seedsTested} seeds came up`;
+    await recordAudit(transaction, { gardenId, actor, entity: 'germination-test', entityId: test.id, action: 'created', summary, changes: fieldsOf(germinationTestView(test), 'to') });
+    return test;
   });
 }
 
-export async function deleteGerminationTest(gardenId: number, seedLotId: number, testId: number) {
+export async function deleteGerminationTest(gardenId: number, seedLotId: number, testId: number, actor: AuditActor) {
   const test = await GerminationTest.findOne({ where: { id: testId, seedLotId, gardenId } });
   if (!test) throw AppError.notFound('That germination test');
-  await inTransaction(SeedLot.sequelize!, (transaction) => test.destroy({ transaction }));
+  const lot = await getSeedLot(gardenId, seedLotId);
+  await inTransaction(SeedLot.sequelize!, async (transaction) => {
+    await test.destroy({ transaction });
+    const summary = `Deleted the germination test of ${seedLotSubject(lot)} from ${dayToken(test.testedOn)}`;
+    await recordAudit(transaction, { gardenId, actor, entity: 'germination-test', entityId: testId, action: 'deleted', summary, changes: fieldsOf(germinationTestView(test), 'from') });
+  });
 }
 
 /** Tests come newest first from testsOf. */

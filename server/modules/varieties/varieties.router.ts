@@ -1,7 +1,8 @@
 import { Router } from 'express';
 import { varietyCreateSchema, varietyListQuerySchema, varietyUpdateSchema } from '#shared/schemas/varieties';
 import { parseBody, parseChange, parseQuery } from '../../lib/validate';
-import { mountRoutes } from '../../lib/routes';
+import { mountRoutes, requireSignedIn } from '../../lib/routes';
+import { actorOf } from '../audit/audit';
 import type { RouteTableEntry } from '../../lib/routes';
 import { recordId } from '../records/params';
 import { pageOf } from '../records/paging';
@@ -48,7 +49,7 @@ export function varietiesRouter(table: RouteTableEntry[], weather: WeatherServic
         access: 'grower',
         handler: async (req, res) => {
           const gardenId = req.membership!.gardenId;
-          const variety = await createVariety(gardenId, parseBody(varietyCreateSchema, req.body));
+          const variety = await createVariety(gardenId, actorOf(requireSignedIn(req)), parseBody(varietyCreateSchema, req.body));
           res.status(201).json({ variety: await detail(gardenId, variety.id) });
         },
       },
@@ -77,7 +78,7 @@ export function varietiesRouter(table: RouteTableEntry[], weather: WeatherServic
         handler: async (req, res) => {
           const gardenId = req.membership!.gardenId;
           const varietyId = recordId(req.params, 'varietyId');
-          await updateVariety(gardenId, varietyId, parseChange(varietyUpdateSchema, req.body));
+          await updateVariety(gardenId, varietyId, actorOf(requireSignedIn(req)), parseChange(varietyUpdateSchema, req.body));
           res.json({ variety: await detail(gardenId, varietyId) });
         },
       },
@@ -86,7 +87,7 @@ export function varietiesRouter(table: RouteTableEntry[], weather: WeatherServic
         path: '/:varietyId',
         access: 'grower',
         handler: async (req, res) => {
-          await deleteVariety(req.membership!.gardenId, recordId(req.params, 'varietyId'));
+          await deleteVariety(req.membership!.gardenId, recordId(req.params, 'varietyId'), actorOf(requireSignedIn(req)));
           res.status(204).end();
         },
       },

@@ -12,6 +12,10 @@ import { varietyFields } from './varieties.presenter';
 import { effectiveValues, getCrop } from '../crops/crops.service';
 import { inTransaction } from '../../lib/transaction';
 import { countOf } from '#shared/format/count-words';
+import { changedFields, fieldsOf, recordAudit } from '../audit/audit';
+import type { AuditActor } from '../audit/audit';
+import { changedSummary } from '../audit/audit-words';
+import { VARIETY_FIELDS, varietyView } from '../audit/audit-views';
 
 type VarietyListQuery = z.output<typeof varietyListQuerySchema>;
 
@@ -40,13 +44,22 @@ async function targetBasisColumns(gardenId: number, cropKey: string, override: n
   return { gddTargetBaseC: b.baseC, gddTargetUpperC: b.upperC, gddTargetMethod: b.method, gddTargetCutoff: b.cutoff };
 }
 
-export async function createVariety(gardenId: number, input: VarietyCreateInput) {
+export async function createVariety(gardenId: number, actor: AuditActor, input: VarietyCreateInput) {
   const basis = await targetBasisColumns(gardenId, input.cropKey, input.gddTargetOverrideC);
   // Each write in a transaction, so the garden's counters move with the row (progress-invalidation.ts).
-  return uniqueOr409(() => inTransaction(Variety.sequelize!, (transaction) => Variety.create({ gardenId, ...input, ...basis }, { transaction })), duplicate, 'name');
+  return uniqueOr409(
+    () =>
+      inTransaction(Variety.sequelize!, async (transaction) => {
+        const variety = await Variety.create({ gardenId, ...input, ...basis }, { transaction });
+        await recordAudit(transaction, { gardenId, actor, entity: 'variety', entityId: variety.id, action: 'created', summary: `Added the variety ${variety.name}`, changes: fieldsOf(varietyView(variety), 'to') });
+        return variety;
+      }),
+    duplicate,
+    'name',
+  );
 }
 
-export async function updateVariety(gardenId: number, varietyId: number, input: VarietyUpdateInput) {
+export async function updateVariety(gardenId: number, varietyId: number, actor: AuditActor, input: VarietyUpdateInput) {
   const variety = await getVariety(gardenId, varietyId);
   // A partial change must still leave a consistent variety (e.g. traits, emergence range).
   const merged = { ...varietyFields(variety), ...input };
@@ -61,14 +74,33 @@ export async function updateVariety(gardenId: number, varietyId: number, input: 
   }
   // Sending the target again, even unchanged, re-reads it in the crop's current method.
   const basis = input.gddTargetOverrideC !== undefined ? await targetBasisColumns(gardenId, merged.cropKey, input.gddTargetOverrideC) : {};
-  return uniqueOr409(() => inTransaction(Variety.sequelize!, (transaction) => variety.update({ ...input, ...basis }, { transaction })), duplicate, 'name');
+  const before = varietyView(variety);
+  return uniqueOr409(
+    () =>
+      inTransaction(Variety.sequelize!, async (transaction) => {
+        await variety.update({ ...input, ...basis }, { transaction });
+        const changes = changedFields(before, varietyView(variety), VARIETY_FIELDS);
+        if (Object.keys(changes).length) {
+          await recordAudit(transaction, { gardenId, actor, entity: 'variety', entityId: varietyId, action: 'changed', summary: changedSummary(changes, variety.name), changes });
+        }
+        return variety;
+      }),
+    duplicate,
+    'name',
+  );
 }
 
-export async function deleteVariety(gardenId: number, varietyId: number) {
+export async function deleteVariety(gardenId: number, varietyId: number, actor: AuditActor) {
   const variety = await getVariety(gardenId, varietyId);
   const [lots, plantings] = await Promise.all([SeedLot.count({ where: { varietyId } }), Planting.count({ where: { varietyId } })]);
   if (lots || plantings) {
     throw new AppError(409, 'in_use', `This variety has ${countOf(plantings, 'planting')} and ${countOf(lots, 'seed lot')} on record; delete those first.`);
   }
-  await unreferencedOr409(() => inTransaction(Variety.sequelize!, (transaction) => variety.destroy({ transaction })), 'A planting or seed lot was just added for this variety; delete it first.');
+  await unreferencedOr409(
+    () =>
+      inTransaction(Variety.sequelize!, async (transaction) => {
+        await variety.destroy({ transaction });
+        await recordAudit(transaction, { gardenId, actor, entity: 'variety', entityId: varietyId, action: 'deleted', summary: `Deleted the variety ${variety.name}`, changes: fieldsOf(varietyView(variety), 'from') });
+      }),
+    'A planting or seed lot was just added for this variety; delete it first.');
 }

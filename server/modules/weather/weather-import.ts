@@ -16,6 +16,9 @@ import { AppError } from '../../errors';
 import { recordWeatherChanged } from './weather-events';
 import { sameTemp } from './weather.repository';
 import { countOf } from '#shared/format/count-words';
+import { rangeToken } from '#shared/format/dates';
+import { recordAudit } from '../audit/audit';
+import type { AuditActor } from '../audit/audit';
 
 const ALIASES: Record<'date' | 'high' | 'low', string[]> = {
   date: ['date', 'day'],
@@ -118,7 +121,7 @@ export function parseStationCsv(buffer: Buffer, unit: 'F' | 'C', today: string):
 
 export async function importStationCsv(
   sequelize: Sequelize,
-  p: { gardenId: number; userId: number; fileName: string; buffer: Buffer; unit: 'F' | 'C'; today: string },
+  p: { gardenId: number; actor: AuditActor; fileName: string; buffer: Buffer; unit: 'F' | 'C'; today: string },
   afterCommit: () => void = () => undefined,
 ): Promise<WeatherImportResult> {
   const rows = parseStationCsv(p.buffer, p.unit, p.today);
@@ -149,8 +152,17 @@ export async function importStationCsv(
     const [importId] = (await sequelize.query(
       `INSERT INTO weather_imports (garden_id, user_id, file_name, sha256, unit, rows_in_file, rows_added, rows_changed, created_at)
        VALUES (?, ?, ?, ?, ?, ?, ?, ?, UTC_TIMESTAMP(3))`,
-      { replacements: [p.gardenId, p.userId, p.fileName.slice(0, 255), sha256, p.unit, rows.length, added.length, changed.length], transaction },
+      { replacements: [p.gardenId, p.actor.id, p.fileName.slice(0, 255), sha256, p.unit, rows.length, added.length, changed.length], transaction },
     )) as unknown as [number, number];
+    await recordAudit(transaction, {
+      gardenId: p.gardenId,
+      actor: p.actor,
+      entity: 'weather-import',
+      entityId: importId,
+      action: 'imported',
+      summary: `Imported ${countOf(rows.length, 'day')} of station weather, ${rangeToken(span.from, span.to)}`,
+      changes: { file: { to: p.fileName.slice(0, 255) }, firstDay: { to: span.from }, lastDay: { to: span.to }, daysAdded: { to: added.length }, daysChanged: { to: changed.length } },
+    });
     const writes = [...added, ...changed];
     for (let i = 0; i < writes.length; i += 1000) {
       const chunk = writes.slice(i, i + 1000);

@@ -9,6 +9,7 @@ import { AppError } from '../../errors';
 import { localDate } from '../../lib/local-date';
 import { receiveOneFile } from '../../lib/upload';
 import { mountRoutes, requireSignedIn } from '../../lib/routes';
+import { actorOf } from '../audit/audit';
 import type { RouteTableEntry } from '../../lib/routes';
 import { parseBody, parseQuery } from '../../lib/validate';
 import { getGarden } from '../gardens/gardens.service';
@@ -108,7 +109,7 @@ export function weatherRouter(deps: { sequelize: Sequelize; weather: WeatherServ
           const garden = await getGarden(req.membership!.gardenId);
           const result = await importStationCsv(sequelize, {
             gardenId: garden.id,
-            userId: user.id,
+            actor: actorOf(user),
             fileName: req.file.originalname,
             buffer: req.file.buffer,
             unit: fields.unit,
