@@ -19,6 +19,7 @@ import type { RouteTableEntry } from './lib/routes';
 import { absoluteTimeout, createSessionStore, sessionMiddleware } from './modules/auth/session';
 import { configurePassport } from './modules/auth/passport';
 import { authRouter } from './modules/auth/auth.router';
+import { accountRouter } from './modules/account/account.router';
 import { gardensRouter } from './modules/gardens/gardens.router';
 import { healthRouter } from './modules/health/health.router';
 import { bedsRouter } from './modules/beds/beds.router';
@@ -48,9 +49,12 @@ import { configureMail } from './modules/notifications/mail-settings';
 import { createMailSender, mailQueued } from './modules/notifications/mail-sender';
 import { enqueueAlertMail } from './modules/notifications/alert-mail';
 import { notificationsRouter } from './modules/notifications/notifications.router';
+import { auditRouter } from './modules/audit/audit.router';
 import { unsubscribeRouter } from './modules/notifications/unsubscribe.router';
 import { CalendarService } from './modules/calendar/calendar.service';
 import { calendarRouter } from './modules/calendar/calendar.router';
+import { membersRouter } from './modules/members/members.router';
+import { invitationsRouter } from './modules/invitations/invitations.router';
 import { degreeDaysCsvRouter } from './modules/progress/degree-days-csv';
 
 const IMMUTABLE = 'public, max-age=31536000, immutable';
@@ -167,6 +171,7 @@ export function createApp({ config, sequelize, logger = createLogger(config.logL
   api.use(passport.initialize());
   api.use(passport.session());
   api.use(authRouter({ sequelize, config, passport, table: routes }));
+  api.use(accountRouter({ sequelize, config, sessions, table: routes }));
   api.use(gardensRouter({ table: routes, weather: weatherService }));
   api.use(climateRouter({ sequelize, weather: weatherService, table: routes, cache: readCache }));
   api.use(weatherRouter({ sequelize, weather: weatherService, table: routes, cache: readCache, evaluate: (gardenId) => alerts.evaluate(gardenId) }));
@@ -181,8 +186,11 @@ export function createApp({ config, sequelize, logger = createLogger(config.logL
   api.use(plantingsRouter(config, routes, progress, readCache));
   api.use(photosRouter(config, routes));
   api.use(calendarRouter(new CalendarService({ sequelize, progress, alerts, appUrl: config.mail.appUrl, secret: config.sessionSecret }), routes));
+  api.use(membersRouter({ sequelize, table: routes }));
+  api.use(invitationsRouter({ sequelize, table: routes, mailIsLocalFake: config.mail.mode === 'fake' }));
   api.use(degreeDaysCsvRouter(progress, routes));
   api.use(notificationsRouter({ sequelize, table: routes, mailIsLocalFake: config.mail.mode === 'fake' }));
+  api.use(auditRouter(sequelize, routes));
   api.use('/api', () => {
     throw new AppError(404, 'not_found', 'No such API route.');
   });

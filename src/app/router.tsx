@@ -21,6 +21,11 @@ export const routes: RouteObject[] = [
   { path: '/register', ...page(() => import('@/app/routes/auth/register').then((m) => m.RegisterPage)) },
   // Opened from the sign-up e-mail; needs no sign-in.
   { path: '/register/confirm/:token', ...page(() => import('@/app/routes/auth/register-confirm').then((m) => m.RegisterConfirmPage)) },
+  // Opened from an invitation e-mail; shows the garden before anyone signs in.
+  { path: '/invitations/:token', ...page(() => import('@/app/routes/invitations/invitation').then((m) => m.InvitationPage)) },
+  { path: '/forgot-password', ...page(() => import('@/app/routes/auth/forgot-password').then((m) => m.ForgotPasswordPage)) },
+  // Opened from the reset e-mail; needs no sign-in.
+  { path: '/reset-password/:token', ...page(() => import('@/app/routes/auth/reset-password').then((m) => m.ResetPasswordPage)) },
   // Opened from an e-mail, often on a device that is not signed in.
   { path: '/unsubscribe/:token', ...page(() => import('@/app/routes/unsubscribe/unsubscribe').then((m) => m.UnsubscribePage)) },
   {
@@ -28,6 +33,8 @@ export const routes: RouteObject[] = [
     children: [
       { path: '/', ...page(() => import('@/app/routes/gardens/first-garden').then((m) => m.FirstGardenPage)) },
       { path: '/mailbox', ...page(() => import('@/app/routes/mailbox/mailbox').then((m) => m.MailboxPage)) },
+      { path: '/account', ...page(() => import('@/app/routes/account/account').then((m) => m.AccountPage)) },
+      { path: '/account/confirm-email/:token', ...page(() => import('@/app/routes/account/confirm-email').then((m) => m.ConfirmEmailPage)) },
       {
         path: '/g/:gardenId',
         ...page(() => import('@/app/routes/gardens/garden-layout').then((m) => m.GardenLayout)),
@@ -47,6 +54,8 @@ export const routes: RouteObject[] = [
           { path: 'weather', ...page(() => import('@/app/routes/weather/weather').then((m) => m.WeatherPage)) },
           { path: 'alerts', ...page(() => import('@/app/routes/alerts/alerts').then((m) => m.AlertsPage)) },
           { path: 'settings', ...page(() => import('@/app/routes/gardens/garden-settings').then((m) => m.GardenSettingsPage)) },
+          { path: 'members', ...page(() => import('@/app/routes/members/members').then((m) => m.MembersPage)) },
+          { path: 'audit', ...page(() => import('@/app/routes/audit/audit').then((m) => m.AuditPage)) },
           // Inside a garden, an unknown page keeps the header so the grower can find their way.
           { path: '*', element: <NotFoundMessage /> },
         ],

@@ -14,7 +14,7 @@ const app = testApp({}, testWeather({}, () => new Date(`${TODAY}T17:00:00Z`)));
 const { sequelize } = testDb();
 
 /** Every table of a garden's records, row by row, so "unchanged" means every column of every row. */
-const TABLES = ['beds', 'varieties', 'seed_lots', 'germination_tests', 'plantings', 'planting_logs', 'planting_photos', 'alerts'];
+const TABLES = ['beds', 'varieties', 'seed_lots', 'germination_tests', 'plantings', 'planting_logs', 'planting_photos', 'alerts', 'memberships', 'garden_invitations'];
 async function snapshot(gardenId: number) {
   const out: Record<string, unknown[]> = {};
   for (const t of TABLES) out[t] = await sequelize.query(`SELECT * FROM ${t} WHERE garden_id = ? ORDER BY id`, { replacements: [gardenId], type: QueryTypes.SELECT });
@@ -65,8 +65,11 @@ describe('another garden’s record ids', () => {
     await addMember(a.owner.id, b.garden.id, 'grower');
     const own = { planting: await makePlanting(a.garden.id), lot: await makeLot(a.garden.id, (await makeVariety(a.garden.id)).id) };
     const B = b.ids;
+    const invitation = (await b.clients.owner.post(`${b.base}/invitations`).send({ email: 'invited-b@test.example', role: 'viewer' }).expect(201)).body.invitation as { id: number };
     const A = a.base;
     const g = '/api/gardens/:gardenId';
+    // Another user's session, as its owner sees it in the account page's list.
+    const theirSession = ((await b.clients.owner.get('/api/me/sessions').expect(200)).body.items as { id: string }[])[0].id;
     const calls: Call[] = [
       { route: `get ${g}/beds/:bedId`, url: `${A}/beds/${B.bedId}` },
       { route: `patch ${g}/beds/:bedId`, url: `${A}/beds/${B.bedId}`, send: { notes: 'moved' } },
@@ -98,6 +101,11 @@ describe('another garden’s record ids', () => {
       { route: `get ${g}/plantings/:plantingId/photos/:photoId`, url: `${A}/plantings/${own.planting.id}/photos/${B.photoId}` },
       { route: `delete ${g}/plantings/:plantingId/photos/:photoId`, url: `${A}/plantings/${B.plantingId}/photos/${B.photoId}` },
       { route: `delete ${g}/plantings/:plantingId/photos/:photoId`, url: `${A}/plantings/${own.planting.id}/photos/${B.photoId}` },
+      { route: `patch ${g}/members/:userId`, url: `${A}/members/${b.owner.id}`, send: { role: 'viewer' } },
+      { route: `delete ${g}/members/:userId`, url: `${A}/members/${b.owner.id}` },
+      { route: `get ${g}/invitations/:invitationId/test-mail`, url: `${A}/invitations/${invitation.id}/test-mail` },
+      { route: `delete ${g}/invitations/:invitationId`, url: `${A}/invitations/${invitation.id}` },
+      { route: 'delete /api/me/sessions/:id', url: `/api/me/sessions/${theirSession}` },
     ];
 
     // Every mounted route that takes a record id is tried; a new one without a line here fails.
@@ -116,7 +124,8 @@ describe('another garden’s record ids', () => {
       expect(res.body.error?.code, c.url).toBe('not_found');
     }
     expect(await snapshot(b.garden.id)).toEqual(before);
-    // B's own members still see their records, photo file included.
+    // B's owner is still signed in there; B's own members still see their records, photo file included.
+    expect((await b.clients.owner.get('/api/auth/me')).status).toBe(200);
     expect((await b.clients.viewer.get(`${b.base}/plantings/${B.plantingId}/photos/${B.photoId}`)).status).toBe(200);
   });
 

@@ -16,6 +16,16 @@ const EXPECTED: Record<string, RouteTableEntry['access']> = {
   'post /api/auth/login': 'public',
   'post /api/auth/logout': 'public',
   'get /api/auth/me': 'signed-in',
+  'post /api/auth/password-reset': 'public',
+  'get /api/auth/password-reset/:token': 'public',
+  'post /api/auth/password-reset/:token': 'public',
+  'patch /api/me': 'signed-in',
+  'post /api/me/email-change': 'signed-in',
+  'post /api/me/email-change/:token': 'signed-in',
+  'post /api/me/password': 'signed-in',
+  'get /api/me/sessions': 'signed-in',
+  'post /api/me/sessions/sign-out-others': 'signed-in',
+  'delete /api/me/sessions/:id': 'signed-in',
   'get /api/gardens': 'signed-in',
   'get /api/gardens/:gardenId': 'viewer',
   'patch /api/gardens/:gardenId': 'owner',
@@ -75,6 +85,7 @@ const EXPECTED: Record<string, RouteTableEntry['access']> = {
   'get /api/me/notification-preferences': 'signed-in',
   'put /api/me/notification-preferences': 'signed-in',
   'get /api/gardens/:gardenId/mail/failed': 'owner',
+  'get /api/gardens/:gardenId/audit': 'owner',
   'get /api/dev/mail': 'signed-in',
   'get /api/dev/mail/sign-up': 'public',
   'get /api/me/calendar-feed': 'signed-in',
@@ -82,6 +93,16 @@ const EXPECTED: Record<string, RouteTableEntry['access']> = {
   'delete /api/me/calendar-feed': 'signed-in',
   'get /api/calendar/:token.ics': 'public',
   'get /api/gardens/:gardenId/plantings/:plantingId/degree-days.csv': 'viewer',
+  'get /api/gardens/:gardenId/members': 'viewer',
+  'delete /api/gardens/:gardenId/members/me': 'viewer',
+  'patch /api/gardens/:gardenId/members/:userId': 'owner',
+  'delete /api/gardens/:gardenId/members/:userId': 'owner',
+  'get /api/gardens/:gardenId/invitations': 'owner',
+  'post /api/gardens/:gardenId/invitations': 'owner',
+  'delete /api/gardens/:gardenId/invitations/:invitationId': 'owner',
+  'get /api/gardens/:gardenId/invitations/:invitationId/test-mail': 'owner',
+  'get /api/invitations/:token': 'public',
+  'post /api/invitations/:token/accept': 'public',
 };
 
 const app = testApp();
@@ -106,7 +127,9 @@ describe('role × route matrix', () => {
       await signIn(c, user.email);
       clients.set(role, c);
     }
-    for (const route of table.filter((r) => r.path.includes(':gardenId'))) {
+    // Leaving ends the caller's membership, so it is tried after every other route.
+    const leaving = (r: RouteTableEntry) => Number(r.path.endsWith('/members/me'));
+    for (const route of table.filter((r) => r.path.includes(':gardenId')).sort((x, y) => leaving(x) - leaving(y))) {
       for (const role of Object.keys(people) as (keyof typeof rank)[]) {
         const c = clients.get(role)!;
         const url = route.path.replace(':gardenId', String(ctx.garden.id));

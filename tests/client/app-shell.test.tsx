@@ -178,6 +178,10 @@ describe('app shell', () => {
       'Plan',
       'Compare',
       'Garden settings',
+      'Members',
+      // The garden in this test is the grower's own (aGarden is an owner's by default): owners see the trail.
+      'Audit',
+      'Account',
       'Test mailbox',
     ]);
     expect(panel.getByRole('button', { name: 'Sign out' })).toBeTruthy();

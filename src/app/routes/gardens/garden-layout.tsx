@@ -11,6 +11,7 @@ import { Wordmark } from '@/components/ui/wordmark';
 import { useMe } from '@/features/auth/api/get-me';
 import { SignOutButton } from '@/features/auth/components/sign-out-button';
 import { MailboxLink } from '@/features/notifications/components/mailbox-link';
+import { AccountLink } from '@/features/account/components/account-link';
 import { useGarden } from '@/features/gardens/api/get-garden';
 import { GardenSwitcher } from '@/features/gardens/components/garden-switcher';
 import { GardenNav } from '@/app/routes/gardens/garden-nav';
@@ -66,6 +67,7 @@ export function GardenLayout() {
               <span className="sr-only">Signed in as </span>
               {me.data?.name}
             </span>
+            <AccountLink />
             <MailboxLink />
             <SignOutButton />
           </div>

@@ -1,10 +1,12 @@
 import { useEffect, useId, useRef, useState } from 'react';
 import { NavLink, useLocation } from 'react-router-dom';
 import type { LucideIcon } from 'lucide-react';
-import { BellRing, CalendarDays, CalendarRange, Carrot, ChartScatter, CloudSun, Ellipsis, LayoutGrid, Library, Mail, Package, Settings, Sprout } from 'lucide-react';
+import { BellRing, CalendarDays, CalendarRange, Carrot, ChartScatter, CloudSun, Ellipsis, History, LayoutGrid, Library, Mail, Package, Settings, Sprout, UserRound, Users } from 'lucide-react';
 import { SignOutButton } from '@/features/auth/components/sign-out-button';
 import { MailboxLink } from '@/features/notifications/components/mailbox-link';
+import { AccountLink } from '@/features/account/components/account-link';
 import { AlertsNavLink } from '@/features/alerts/components/alerts-nav-link';
+import { useGarden } from '@/features/gardens/api/get-garden';
 
 /**
  * Below 768 px a tab with its icon over a short word in the bar pinned to the bottom; from 768 px
@@ -19,7 +21,7 @@ const MENU_LINK =
 const MENU_ICON = 'size-5 shrink-0';
 
 /** The pages a phone reaches through "More"; from 768 px they sit in the header row with the rest. */
-const MORE_PAGES: ReadonlyArray<{ path: string; label: string; icon: LucideIcon }> = [
+const MORE_PAGES: ReadonlyArray<{ path: string; label: string; icon: LucideIcon; ownersOnly?: boolean; header?: false }> = [
   { path: 'varieties', label: 'Varieties', icon: Library },
   { path: 'seed-lots', label: 'Seed lots', icon: Package },
   { path: 'beds', label: 'Beds', icon: LayoutGrid },
@@ -28,10 +30,20 @@ const MORE_PAGES: ReadonlyArray<{ path: string; label: string; icon: LucideIcon 
   { path: 'plan', label: 'Plan', icon: CalendarRange },
   { path: 'compare', label: 'Compare', icon: ChartScatter },
   { path: 'settings', label: 'Garden settings', icon: Settings },
+  { path: 'members', label: 'Members', icon: Users },
+  // The header row is full from 768 px: the trail is reached from Members and Garden settings there.
+  { path: 'audit', label: 'Audit', icon: History, ownersOnly: true, header: false },
 ];
+
+/** The garden's role comes from the layout's own garden query (same key, no second request). */
+function usePagesFor(gardenId: number) {
+  const role = useGarden(gardenId).data?.role;
+  return MORE_PAGES.filter((page) => !page.ownersOnly || role === 'owner');
+}
 
 export function GardenNav({ gardenId, userName }: { gardenId: number; userName: string | undefined }) {
   const base = `/g/${gardenId}`;
+  const pages = usePagesFor(gardenId);
   return (
     <nav
       aria-label="Garden"
@@ -53,15 +65,17 @@ export function GardenNav({ gardenId, userName }: { gardenId: number; userName: 
         <li>
           <AlertsNavLink gardenId={gardenId} className={TAB} icon={<BellRing className={TAB_ICON} aria-hidden />} />
         </li>
-        {MORE_PAGES.map((page) => (
-          <li key={page.path} className="hidden md:block">
-            <NavLink to={`${base}/${page.path}`} className={TAB}>
-              {page.label}
-            </NavLink>
-          </li>
-        ))}
+        {pages
+          .filter((page) => page.header !== false)
+          .map((page) => (
+            <li key={page.path} className="hidden md:block">
+              <NavLink to={`${base}/${page.path}`} className={TAB}>
+                {page.label}
+              </NavLink>
+            </li>
+          ))}
         <li className="md:hidden">
-          <MoreMenu base={base} userName={userName} />
+          <MoreMenu base={base} userName={userName} pages={pages} />
         </li>
       </ul>
     </nav>
@@ -72,7 +86,7 @@ export function GardenNav({ gardenId, userName }: { gardenId: number; userName: 
  * A disclosure, not a modal: the button says whether the list is open, the list follows it in
  * reading order, and Escape, a tap elsewhere, leaving it by keyboard or opening a page closes it.
  */
-function MoreMenu({ base, userName }: { base: string; userName: string | undefined }) {
+function MoreMenu({ base, userName, pages }: { base: string; userName: string | undefined; pages: typeof MORE_PAGES }) {
   const panelId = useId();
   const { pathname } = useLocation();
   // Remembering where it was opened closes it by itself once another page shows.
@@ -81,7 +95,7 @@ function MoreMenu({ base, userName }: { base: string; userName: string | undefin
   const close = () => setOpenAt(null);
   const wrapper = useRef<HTMLDivElement>(null);
   const button = useRef<HTMLButtonElement>(null);
-  const onMorePage = MORE_PAGES.some((page) => pathname.startsWith(`${base}/${page.path}`));
+  const onMorePage = pages.some((page) => pathname.startsWith(`${base}/${page.path}`));
 
   useEffect(() => {
     if (!open) return;
@@ -127,7 +141,7 @@ function MoreMenu({ base, userName }: { base: string; userName: string | undefin
           className="absolute inset-x-0 bottom-full max-h-[calc(100dvh-9rem)] overflow-y-auto border-t border-line bg-paper-raised shadow-[0_-8px_24px_rgb(43_33_24/0.18)]"
         >
           <ul className="grid grid-cols-2 gap-1 p-2">
-            {MORE_PAGES.map((page) => (
+            {pages.map((page) => (
               <li key={page.path}>
                 <NavLink to={`${base}/${page.path}`} className={MENU_LINK} onClick={close}>
                   <page.icon className={MENU_ICON} aria-hidden />
@@ -142,6 +156,7 @@ function MoreMenu({ base, userName }: { base: string; userName: string | undefin
                 Signed in as <span className="font-semibold text-loam">{userName}</span>
               </p>
             )}
+            <AccountLink className={MENU_LINK} icon={<UserRound className={MENU_ICON} aria-hidden />} />
             <MailboxLink className={MENU_LINK} icon={<Mail className={MENU_ICON} aria-hidden />} />
             <SignOutButton className="ml-auto px-3 text-sm" />
           </div>

@@ -6,6 +6,7 @@ import { NotificationPreferencesSection } from '@/features/notifications/compone
 import { FailedMailSection } from '@/features/notifications/components/failed-mail-section';
 import { CalendarFeedSection } from '@/features/calendar/components/calendar-feed-section';
 import { ClimateFactsSection } from '@/features/climate/components/climate-facts-section';
+import { Link } from 'react-router-dom';
 
 export function GardenSettingsPage() {
   const garden = useCurrentGarden();
@@ -33,6 +34,25 @@ export function GardenSettingsPage() {
       <NotificationPreferencesSection gardenId={garden.id} />
       <CalendarFeedSection />
       {isOwner && <FailedMailSection gardenId={garden.id} />}
+      <section aria-labelledby="settings-team" className="rounded-lg border border-line bg-paper-raised p-4 sm:px-6">
+        <h2 id="settings-team" className="text-lg font-semibold">
+          People
+        </h2>
+        <ul className="mt-2 space-y-1">
+          <li>
+            <Link to={`/g/${garden.id}/members`} className="underline underline-offset-2">
+              {isOwner ? 'Members: invite people, change roles' : 'Members of this garden'}
+            </Link>
+          </li>
+          {isOwner && (
+            <li>
+              <Link to={`/g/${garden.id}/audit`} className="underline underline-offset-2">
+                Audit trail: who changed which record, and when
+              </Link>
+            </li>
+          )}
+        </ul>
+      </section>
     </div>
   );
 }
