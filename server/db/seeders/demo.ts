@@ -7,6 +7,7 @@ import { seedGardenRecords } from './demo-records';
 import type { PendingOutcome } from './demo-records';
 import { settleDemoOutcomes } from './demo-outcomes';
 import type { WeatherService } from '../../modules/weather/weather.service';
+import { retryOnConflict, withClusterLock } from '../migrate';
 
 /** Invented demo scenario: every name and place here is fictional. */
 export const DEMO_PASSWORD = 'heatclock-demo';
@@ -53,6 +54,12 @@ export async function demoAlreadySeeded(): Promise<boolean> {
  * harvests and bolting of the past seasons (demo-outcomes.ts); without one they follow fixed days.
  */
 export async function seedDemo(sequelize: Sequelize, opts: { weather?: WeatherService } = {}) {
+  // Instances starting at once (on one server or on several Galera nodes) seed one after another;
+  // a certification failure (1213) against another node's write runs the idempotent seed again.
+  return withClusterLock(sequelize, 'demo-seed', () => retryOnConflict(() => seedDemoOnce(sequelize, opts)));
+}
+
+async function seedDemoOnce(sequelize: Sequelize, opts: { weather?: WeatherService }) {
   const hash = await hashPassword(DEMO_PASSWORD);
   const pending = new Map<number, PendingOutcome[]>();
   const seeded = await sequelize.transaction(async (transaction) => {

@@ -1,0 +1,373 @@
+/**
+ * Scale-out on a three-node MariaDB Galera cluster (issue 15, first slice): three app instances
+ * start at once, each on its own node, each running migrate + demo seed (as
+ * `scripts/migrate.ts --seed-demo` does) and then the server. Proves that the schema and the demo
+ * are made once cluster-wide, and that a session made through one instance works through another.
+ */
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { execFileSync, spawn } from 'node:child_process';
+import type { ChildProcess } from 'node:child_process';
+import { createWriteStream, mkdirSync, readFileSync, readdirSync } from 'node:fs';
+import { randomBytes } from 'node:crypto';
+import net from 'node:net';
+import path from 'node:path';
+import { fileURLToPath } from 'node:url';
+import mariadb from 'mariadb';
+import type { Sequelize } from 'sequelize';
+import { createSequelize } from '../../server/db/sequelize';
+import { isConflict, retryOnConflict, withClusterLock } from '../../server/db/migrate';
+
+const root = fileURLToPath(new URL('../..', import.meta.url));
+const clusterDir = path.join(root, '.cluster');
+const logDir = path.join(clusterDir, 'logs');
+const clusterSh = path.join(root, 'scripts', 'cluster.sh');
+const INSTANCES = 3;
+const DEMO_DOMAIN = '%@hollowbrook.example';
+const LOGIN = { email: 'grower.rosa@hollowbrook.example', password: 'heatclock-demo' };
+
+interface Instance {
+  n: number;
+  dbPort: number;
+  httpPort: number;
+  /** Exit code of migrate + seed (null while it runs). */
+  migrateExit: number | null;
+  migrateMs: number;
+  server: ChildProcess | null;
+  serverExit: number | null;
+  log: string;
+}
+
+const children = new Set<ChildProcess>();
+/** Set once cleanup begins: nothing new is started after it (an instance still migrating would). */
+let stopping = false;
+const instances: Instance[] = [];
+let db: Record<string, string> = {};
+let clusterStartMs = 0;
+const runStarted = Date.now();
+
+function cluster(cmd: string) {
+  return execFileSync('bash', [clusterSh, cmd], { cwd: root, encoding: 'utf8', stdio: ['ignore', 'pipe', 'pipe'], timeout: 120_000 });
+}
+
+function readEnv(file: string): Record<string, string> {
+  const out: Record<string, string> = {};
+  for (const line of readFileSync(file, 'utf8').split('\n')) {
+    const m = /^([A-Z_]+)=(.*)$/.exec(line.trim());
+    if (m) out[m[1]] = m[2];
+  }
+  return out;
+}
+
+async function freePort(): Promise<number> {
+  const srv = net.createServer();
+  await new Promise<void>((r) => srv.listen(0, '127.0.0.1', r));
+  const { port } = srv.address() as net.AddressInfo;
+  await new Promise((r) => srv.close(r));
+  return port;
+}
+
+const sessionSecret = randomBytes(32).toString('hex');
+
+/** A clean environment: nothing of vitest's (NODE_ENV=test) or of the project's single MariaDB. */
+function instanceEnv(inst: Instance): NodeJS.ProcessEnv {
+  return {
+    PATH: process.env.PATH,
+    HOME: process.env.HOME,
+    TZ: 'UTC',
+    NODE_ENV: 'development',
+    HOST: '127.0.0.1',
+    PORT: String(inst.httpPort),
+    DB_HOST: db.DB_HOST,
+    DB_PORT: String(inst.dbPort),
+    DB_USER: db.DB_USER,
+    DB_PASSWORD: db.DB_PASSWORD,
+    DB_NAME: db.DB_NAME,
+    DB_TEST_NAME: db.DB_NAME,
+    // Every instance must read the others' session cookies.
+    SESSION_SECRET: sessionSecret,
+    UPLOADS_DIR: path.join(clusterDir, 'uploads'),
+    WEATHER_MODE: 'fake',
+    MAIL_MODE: 'fake',
+    MAIL_FAKE_PORT: '0',
+    SCHEDULER: 'off',
+    LOG_LEVEL: 'warn',
+  };
+}
+
+function run(inst: Instance, args: string[], label: string): ChildProcess {
+  if (stopping) throw new Error('cleanup has begun');
+  const out = createWriteStream(inst.log, { flags: 'a' });
+  out.write(`\n--- ${label} (${new Date().toISOString()})\n`);
+  // Its own process group, so cleanup stops it with whatever it started.
+  const child = spawn(process.execPath, ['--import', 'tsx', ...args], { cwd: root, env: instanceEnv(inst), detached: true, stdio: ['ignore', 'pipe', 'pipe'] });
+  child.stdout!.pipe(out, { end: false });
+  child.stderr!.pipe(out, { end: false });
+  children.add(child);
+  child.once('exit', () => children.delete(child));
+  return child;
+}
+
+const exited = (child: ChildProcess) => new Promise<number>((resolve) => child.once('exit', (code, signal) => resolve(code ?? (signal ? 128 : 1))));
+
+async function waitReady(inst: Instance, limitMs: number) {
+  const end = Date.now() + limitMs;
+  while (Date.now() < end) {
+    if (inst.serverExit !== null) throw new Error(`instance ${inst.n} exited with ${inst.serverExit}; see ${inst.log}`);
+    try {
+      const res = await fetch(`http://127.0.0.1:${inst.httpPort}/api/ready`, { signal: AbortSignal.timeout(2000) });
+      if (res.status === 200) return;
+    } catch {
+      // not listening yet
+    }
+    await new Promise((r) => setTimeout(r, 300));
+  }
+  throw new Error(`instance ${inst.n} not ready within ${limitMs} ms; see ${inst.log}`);
+}
+
+/** migrate + seed, then the server, as `npm start` does after the database is up. */
+async function startInstance(inst: Instance) {
+  const t0 = Date.now();
+  inst.migrateExit = await exited(run(inst, ['scripts/migrate.ts', '--seed-demo'], 'migrate --seed-demo'));
+  inst.migrateMs = Date.now() - t0;
+  if (inst.migrateExit !== 0 || stopping) return;
+  const server = run(inst, ['server/index.ts'], 'server');
+  inst.server = server;
+  void exited(server).then((code) => (inst.serverExit = code));
+  await waitReady(inst, 60_000);
+}
+
+async function stopAll() {
+  stopping = true;
+  const ending = [...children].map(async (child) => {
+    const done = exited(child);
+    try {
+      process.kill(-child.pid!, 'SIGTERM');
+    } catch {
+      return;
+    }
+    const timer = setTimeout(() => {
+      try {
+        process.kill(-child.pid!, 'SIGKILL');
+      } catch {
+        // gone
+      }
+    }, 8000);
+    await done;
+    clearTimeout(timer);
+  });
+  await Promise.all(ending);
+}
+
+function stopAllNow() {
+  stopping = true;
+  for (const child of children) {
+    try {
+      process.kill(-child.pid!, 'SIGKILL');
+    } catch {
+      // gone
+    }
+  }
+  try {
+    cluster('stop');
+  } catch {
+    // best effort on the way out
+  }
+}
+process.once('SIGINT', () => {
+  stopAllNow();
+  process.exit(130);
+});
+process.once('SIGTERM', () => {
+  stopAllNow();
+  process.exit(143);
+});
+
+async function query<T>(port: number, sql: string, values: unknown[] = []): Promise<T[]> {
+  const conn = await mariadb.createConnection({ host: '127.0.0.1', port, user: db.DB_USER, password: db.DB_PASSWORD, database: db.DB_NAME, connectTimeout: 3000, bigIntAsNumber: true });
+  try {
+    return (await conn.query(sql, values)) as T[];
+  } finally {
+    await conn.end();
+  }
+}
+
+describe('three app instances on a three-node Galera cluster', () => {
+  beforeAll(async () => {
+    const t0 = Date.now();
+    // A fresh cluster: the proof is that the first start of several instances makes the schema once.
+    cluster('reset');
+    process.stdout.write(cluster('start'));
+    clusterStartMs = Date.now() - t0;
+    mkdirSync(logDir, { recursive: true });
+    db = readEnv(path.join(clusterDir, 'cluster.env'));
+    const ports = db.CLUSTER_PORTS.split(',').map(Number);
+    for (let n = 1; n <= INSTANCES; n++) {
+      instances.push({
+        n,
+        dbPort: ports[n - 1],
+        httpPort: await freePort(),
+        migrateExit: null,
+        migrateMs: 0,
+        server: null,
+        serverExit: null,
+        log: path.join(logDir, `instance-${n}.log`),
+      });
+    }
+    // All at once, each on its own node; every start is waited for before a failure is told.
+    const started = await Promise.allSettled(instances.map((inst) => startInstance(inst)));
+    const failed = started.find((r) => r.status === 'rejected');
+    if (failed) throw failed.reason;
+  }, 180_000);
+
+  afterAll(async () => {
+    await stopAll();
+    cluster('stop');
+    const summary = instances.map((i) => `instance ${i.n} (node :${i.dbPort}) migrate+seed ${(i.migrateMs / 1000).toFixed(1)} s, exit ${i.migrateExit}`).join('\n  ');
+    process.stdout.write(
+      `\n[cluster test] cluster start ${(clusterStartMs / 1000).toFixed(1)} s; whole run ${((Date.now() - runStarted) / 1000).toFixed(1)} s\n  ${summary}\n  logs: ${logDir}\n`,
+    );
+  }, 60_000);
+
+  it('when three instances start at once, then none exits with an error', () => {
+    for (const inst of instances) {
+      expect(inst.migrateExit, `migrate + seed of instance ${inst.n} (${inst.log})`).toBe(0);
+      expect(inst.serverExit, `server of instance ${inst.n}`).toBeNull();
+    }
+  });
+
+  it('when they have started, then every migration is recorded once, on every node', async () => {
+    const files = readdirSync(path.join(root, 'server', 'db', 'migrations'))
+      .filter((f) => f.endsWith('.ts'))
+      .map((f) => f.replace(/\.ts$/, ''))
+      .sort();
+    for (const inst of instances) {
+      const rows = await query<{ name: string; times: number }>(inst.dbPort, 'SELECT name, COUNT(*) AS times FROM schema_migrations GROUP BY name ORDER BY name');
+      expect(rows.map((r) => r.name)).toEqual(files);
+      expect(rows.every((r) => Number(r.times) === 1)).toBe(true);
+    }
+  });
+
+  it('when they have started, then the demo is seeded once: 4 accounts, 2 gardens, one membership each', async () => {
+    for (const inst of instances) {
+      const [users] = await query<{ c: number }>(inst.dbPort, 'SELECT COUNT(*) AS c FROM users WHERE email LIKE ?', [DEMO_DOMAIN]);
+      expect(Number(users.c)).toBe(4);
+      const [gardens] = await query<{ c: number }>(
+        inst.dbPort,
+        `SELECT COUNT(DISTINCT g.id) AS c FROM gardens g JOIN memberships m ON m.garden_id = g.id JOIN users u ON u.id = m.user_id
+          WHERE u.email = 'coordinator@hollowbrook.example' AND m.role = 'owner'`,
+      );
+      expect(Number(gardens.c)).toBe(2);
+      const [memberships] = await query<{ c: number; pairs: number }>(
+        inst.dbPort,
+        `SELECT COUNT(*) AS c, COUNT(DISTINCT m.user_id, m.garden_id) AS pairs FROM memberships m JOIN users u ON u.id = m.user_id WHERE u.email LIKE ?`,
+        [DEMO_DOMAIN],
+      );
+      expect(Number(memberships.c)).toBe(8);
+      expect(Number(memberships.pairs)).toBe(8);
+    }
+  });
+
+  it('when the schema is made, then every table has a primary key (Galera needs one)', async () => {
+    const missing = await query<{ t: string }>(
+      instances[0].dbPort,
+      `SELECT t.table_name AS t FROM information_schema.tables t
+        WHERE t.table_schema = DATABASE() AND t.table_type = 'BASE TABLE'
+          AND NOT EXISTS (SELECT 1 FROM information_schema.table_constraints c
+                           WHERE c.table_schema = t.table_schema AND c.table_name = t.table_name AND c.constraint_type = 'PRIMARY KEY')`,
+    );
+    expect(missing.map((r) => r.t)).toEqual([]);
+  });
+
+  it('when a grower signs in through one instance, then the session works through the others', async () => {
+    const [first, ...others] = instances;
+    const login = await fetch(`http://127.0.0.1:${first.httpPort}/api/auth/login`, {
+      method: 'POST',
+      headers: { 'content-type': 'application/json', accept: 'application/json' },
+      body: JSON.stringify(LOGIN),
+    });
+    expect(login.status).toBe(200);
+    const cookie = login.headers
+      .getSetCookie()
+      .map((c) => c.split(';')[0])
+      .find((c) => c.startsWith('heatclock.sid='));
+    expect(cookie).toBeDefined();
+    for (const inst of others) {
+      const me = await fetch(`http://127.0.0.1:${inst.httpPort}/api/auth/me`, { headers: { cookie: cookie!, accept: 'application/json' } });
+      expect(me.status, `GET /api/auth/me through instance ${inst.n}`).toBe(200);
+      const body = (await me.json()) as { user: { email: string } };
+      expect(body.user.email).toBe(LOGIN.email);
+    }
+    // And without the cookie the same instance says no: the 200 above is the session's doing.
+    const anonymous = await fetch(`http://127.0.0.1:${others[0].httpPort}/api/auth/me`, { headers: { accept: 'application/json' } });
+    expect(anonymous.status).toBe(401);
+  });
+
+  describe('the cluster-wide lock and the conflict retry, straight on the nodes', () => {
+    const pools: Sequelize[] = [];
+    const on = (n: number) => {
+      const sequelize = createSequelize({ host: '127.0.0.1', port: instances[n - 1].dbPort, user: db.DB_USER, password: db.DB_PASSWORD, database: db.DB_NAME, poolMax: 4 });
+      pools.push(sequelize);
+      return sequelize;
+    };
+    afterAll(async () => {
+      await Promise.all(pools.map((p) => p.close()));
+    });
+
+    it('when instances on three nodes take the same lock at once, then they never hold it together', async () => {
+      let inside = 0;
+      let most = 0;
+      let runs = 0;
+      const work = async () => {
+        inside++;
+        most = Math.max(most, inside);
+        await new Promise((r) => setTimeout(r, 150));
+        inside--;
+        runs++;
+      };
+      const nodes = [on(1), on(2), on(3)];
+      await Promise.all(nodes.flatMap((sequelize) => [1, 2].map(() => withClusterLock(sequelize, 'probe', work, { pollMs: 50, log: () => undefined }))));
+      expect(runs).toBe(6);
+      expect(most).toBe(1);
+    });
+
+    it('when a holder dies without releasing, then another node takes the lock once its lease has run out', async () => {
+      const [a, b] = [on(1), on(2)];
+      await withClusterLock(a, 'lease', async () => undefined, { log: () => undefined });
+      // A holder that stopped renewing: its lease ends in 1.5 s.
+      await a.query("UPDATE schema_lock SET holder = 'gone:1:dead', expires_at = NOW(3) + INTERVAL 1500000 MICROSECOND WHERE name = 'lease'");
+      const started = Date.now();
+      await withClusterLock(b, 'lease', async () => undefined, { pollMs: 100, log: () => undefined });
+      expect(Date.now() - started).toBeGreaterThanOrEqual(1000);
+      expect(Date.now() - started).toBeLessThan(6000);
+    });
+
+    it('when two nodes commit conflicting writes, then the later fails with 1213 and the retry commits', async () => {
+      const [a, b] = [on(1), on(3)];
+      const bump = 'UPDATE schema_lock SET taken_at = NOW(3) WHERE name = ?';
+      const ta = await a.transaction();
+      const tb = await b.transaction();
+      await a.query(bump, { replacements: ['probe'], transaction: ta });
+      await b.query(bump, { replacements: ['probe'], transaction: tb });
+      await ta.commit();
+      const failure = await tb.commit().then(
+        () => null,
+        (err: unknown) => err,
+      );
+      expect(isConflict(failure), String(failure)).toBe(true);
+      // The same conflict inside retryOnConflict: the first attempt loses certification, the next commits.
+      let attempts = 0;
+      await retryOnConflict(
+        async () => {
+          attempts++;
+          await b.transaction(async (transaction) => {
+            await b.query(bump, { replacements: ['probe'], transaction });
+            if (attempts === 1) await a.query(bump, { replacements: ['probe'] });
+          });
+        },
+        { baseMs: 20 },
+      );
+      expect(attempts).toBe(2);
+    });
+  });
+});
+
