@@ -30,8 +30,8 @@ const MORE_PAGES: ReadonlyArray<{ path: string; label: string; icon: LucideIcon;
   { path: 'plan', label: 'Plan', icon: CalendarRange },
   { path: 'compare', label: 'Compare', icon: ChartScatter },
   { path: 'settings', label: 'Garden settings', icon: Settings },
-  { path: 'members', label: 'Members', icon: Users },
-  // The header row is full from 768 px: the trail is reached from Members and Garden settings there.
+  // The header row is full from 768 px: there, Members and the trail are reached from Garden settings.
+  { path: 'members', label: 'Members', icon: Users, header: false },
   { path: 'audit', label: 'Audit', icon: History, ownersOnly: true, header: false },
 ];
 
