@@ -90,6 +90,15 @@ function accountFingerprint(email: unknown): string {
   return createHash('sha256').update(typeof email === 'string' ? email.trim().toLowerCase() : '').digest('hex').slice(0, 16);
 }
 
+/**
+ * The path as logs may keep it: link tokens (reset, invitation, e-mail change, calendar feed,
+ * unsubscribe) travel in the path, and a log must never hold a working link. Any segment of 20 or
+ * more token characters is written as `:token`.
+ */
+export function loggablePath(path: string): string {
+  return path.replace(/(?<=\/)[A-Za-z0-9_~.%-]{20,}(?=\/|$)/g, ':token');
+}
+
 export function errorHandler(logger: Logger): ErrorRequestHandler {
   return (err, req, res, _next) => {
     const requestId = res.locals.requestId as string | undefined;
@@ -103,7 +112,7 @@ export function errorHandler(logger: Logger): ErrorRequestHandler {
       appErr = new AppError(415, 'unsupported_media_type', 'The request body encoding is not supported.');
     else if (unreadableBody(bp)) {
       appErr = new AppError(400, 'malformed_body', 'The request body could not be read: it does not match its Content-Encoding.');
-      logger.warn('unreadable request body', { requestId, method: req.method, path: req.path, encoding: req.headers['content-encoding'], cause: bp.code ?? bp.type });
+      logger.warn('unreadable request body', { requestId, method: req.method, path: loggablePath(req.path), encoding: req.headers['content-encoding'], cause: bp.code ?? bp.type });
     } else if (typeof bp.status === 'number' && bp.status >= 400 && bp.status < 500 && bp.type)
       appErr = new AppError(bp.status, 'bad_request', 'The request could not be read.');
     // The router could not decode a path parameter (a stray % in the address).
@@ -119,14 +128,14 @@ export function errorHandler(logger: Logger): ErrorRequestHandler {
       logger.error('request failed', {
         requestId,
         method: req.method,
-        path: req.path,
+        path: loggablePath(req.path),
         userId: (req.user as { id?: number } | undefined)?.id,
         error: err instanceof Error ? err.stack : String(err),
         cause: databaseCause(err),
       });
     } else if (appErr.code === 'invalid_credentials') {
       // Enough to follow repeated guesses at one account; the password and the address stay out.
-      logger.warn('sign-in refused', { requestId, method: req.method, path: req.path, account: accountFingerprint((req.body as { email?: unknown } | undefined)?.email) });
+      logger.warn('sign-in refused', { requestId, method: req.method, path: loggablePath(req.path), account: accountFingerprint((req.body as { email?: unknown } | undefined)?.email) });
     }
     if (appErr.headers) res.set(appErr.headers);
     res.status(appErr.status).json({

@@ -38,6 +38,19 @@ function secretsOf(res: { headers: Record<string, unknown> }) {
 }
 
 describe('what the logs hold', () => {
+  it('when a request carrying a link token in its path is logged, then the log holds :token, never the token', async () => {
+    const token = 'Zq3kT0kenThatWorks_9f8e7d6c5b4a3210xyzABC';
+    const from = lines.length;
+    // A body that does not match its Content-Encoding is logged as a warning with the path.
+    for (const path of [`/api/auth/password-reset/${token}`, `/api/invitations/${token}/accept`, `/api/me/email-change/${token}`]) {
+      const res = await request(app).post(path).set('X-Requested-With', 'heatclock-test').set('Content-Type', 'application/json').set('Content-Encoding', 'gzip').send('not gzip at all');
+      expect(res.status, path).toBe(400);
+    }
+    const text = lines.slice(from).join('\n');
+    expect(text).toContain(':token');
+    expect(text).not.toContain(token);
+  });
+
   it('when a request fails on our side, then one error line carries the request id, the stack and the user, and no password or session id', async () => {
     const { garden, grower } = await gardenWithMembers();
     const c = agent(app).set('X-Requested-With', 'heatclock-test');
