@@ -126,6 +126,16 @@ describe('account: e-mail change', () => {
     expect((await a.post(`/api/me/email-change/${'B'.repeat(43)}`).send({})).status).toBe(404);
   });
 
+  it('when e-mail changes are asked for again and again, then the fourth in an hour is refused with 429 and no more mail goes out', async () => {
+    const user = await createUser();
+    const a = await signedIn(user.email);
+    const targets = [uniqueEmail('flood'), uniqueEmail('flood'), uniqueEmail('flood'), uniqueEmail('flood')];
+    const statuses = [];
+    for (const email of targets) statuses.push((await a.post('/api/me/email-change').send({ email, password: PASSWORD })).status);
+    expect(statuses).toEqual([202, 202, 202, 429]);
+    expect(await accountMailFor(targets[3])).toEqual([]);
+  });
+
   it('when the new address already has an account, then the answer is the same and that address gets a note instead of a link', async () => {
     const user = await createUser();
     const taken = await createUser();

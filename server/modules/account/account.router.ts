@@ -30,6 +30,13 @@ export function accountRouter(deps: { sequelize: Sequelize; config: AppConfig; s
     what: 'wrong current passwords',
   });
 
+  // Every e-mail change request mails an address the user typed: at most 3 an hour per account and
+  // per new address, so the app's mail cannot be turned on someone's inbox.
+  const emailChangeLimiters = [
+    dbRateLimiter(db, { prefix: 'email-change:', windowMs: 60 * 60_000, limit: 3, key: (req) => String(req.user?.id ?? ''), failuresOnly: false, what: 'e-mail change requests from your account' }),
+    dbRateLimiter(db, { prefix: 'email-change-to:', windowMs: 60 * 60_000, limit: 3, key: emailOf, failuresOnly: false, what: 'e-mail change requests to this address' }),
+  ];
+
   mountRoutes(
     router,
     '/api/auth/password-reset',
@@ -86,7 +93,7 @@ export function accountRouter(deps: { sequelize: Sequelize; config: AppConfig; s
         method: 'post',
         path: '/email-change',
         access: 'signed-in',
-        before: [currentPasswordLimiter],
+        before: [currentPasswordLimiter, ...emailChangeLimiters],
         handler: async (req, res) => {
           const input = parseBody(emailChangeSchema, req.body);
           await requestEmailChange(db, requireSignedIn(req).id, input);
