@@ -30,16 +30,19 @@ export async function getGarden(gardenId: number) {
 }
 
 export async function updateGarden(gardenId: number, actor: AuditActor, input: GardenUpdateInput) {
-  const garden = await getGarden(gardenId);
-  const before = gardenView(garden);
   // In a transaction, so the garden's counters move with its settings (progress-invalidation.ts).
-  // Its plantings' stored seasons follow its hemisphere, in the same transaction.
-  await inTransaction(Garden.sequelize!, async (transaction) => {
+  // Its plantings' stored seasons follow its hemisphere, in the same transaction. The garden is
+  // read under a row lock inside it, so two edits at once are serialised and each audit entry's
+  // "from" is what the change really replaced (also on a retry after a deadlock).
+  return inTransaction(Garden.sequelize!, async (transaction) => {
+    const garden = await Garden.findByPk(gardenId, { transaction, lock: transaction.LOCK.UPDATE });
+    if (!garden) throw AppError.notFound('That garden');
+    const before = gardenView(garden);
     const moved = input.latitude !== undefined && input.latitude !== garden.latitude;
     await garden.update(input, { transaction });
     if (moved) await refreshGardenSeasons(Garden.sequelize!, gardenId, transaction);
     const changes = changedFields(before, gardenView(garden), GARDEN_FIELDS);
     if (Object.keys(changes).length) await recordAudit(transaction, { gardenId, actor, entity: 'garden-settings', entityId: gardenId, action: 'changed', summary: changedSummary(changes, 'the garden'), changes });
+    return garden;
   });
-  return garden;
 }
