@@ -180,6 +180,8 @@ describe('invitations by e-mail', () => {
     const { token } = await mailedInvitation(email);
 
     await g.clients.owner.delete(`${g.base}/invitations/${made.body.invitation.id}`).expect(204);
+    // Its mail was still waiting (no sender runs here): it is not sent with a dead link.
+    expect(await accountMailFor(email)).toEqual([]);
 
     const res = await anonymous().post(`/api/invitations/${token}/accept`).send({ name: 'Not In', password: STRONG });
     expect(res.status).toBe(410);

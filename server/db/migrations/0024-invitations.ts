@@ -15,7 +15,7 @@ export async function up({ queryInterface: qi }: MigrationContext) {
       garden_id: { type: DataTypes.INTEGER, allowNull: false, references: { model: 'gardens', key: 'id' }, onDelete: 'CASCADE' },
       email: { type: DataTypes.STRING(254), allowNull: false },
       role: { type: DataTypes.ENUM('owner', 'grower', 'viewer'), allowNull: false },
-      token_hash: { type: DataTypes.CHAR(64), allowNull: false },
+      token_hash: { type: DataTypes.CHAR(64).BINARY, allowNull: false },
       invited_by_user_id: { type: DataTypes.INTEGER, allowNull: true, references: { model: 'users', key: 'id' }, onDelete: 'SET NULL' },
       invited_by_name: { type: DataTypes.STRING(120), allowNull: false },
       created_at: { type: DataTypes.DATE(3), allowNull: false },

@@ -152,6 +152,8 @@ export async function revokeInvitation(db: Sequelize, gardenId: number, actor: A
       throw new AppError(409, 'invitation_not_pending', `This invitation ${state}, so there is nothing to withdraw.`);
     }
     await db.query('UPDATE garden_invitations SET revoked_at = UTC_TIMESTAMP(3) WHERE id = ?', { replacements: [id], transaction });
+    // Its mail, if not out yet, is not sent with a dead link.
+    await db.query("DELETE FROM mail_outbox WHERE dedupe_key = ? AND status = 'pending'", { replacements: [`invitation:${id}`], transaction });
     await recordAudit(transaction, {
       gardenId,
       actor,

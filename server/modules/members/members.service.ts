@@ -115,6 +115,8 @@ export async function removeMember(db: Sequelize, gardenId: number, actor: Actor
     const name = leaving ? actor.name : await nameOf(db, userId, transaction);
     await db.query('DELETE FROM memberships WHERE garden_id = ? AND user_id = ?', { replacements: [gardenId, userId], transaction });
     await db.query('DELETE FROM notification_preferences WHERE garden_id = ? AND user_id = ?', { replacements: [gardenId, userId], transaction });
+    // Mail about the garden not yet out to them is not sent to someone who is no longer in it.
+    await db.query("DELETE FROM mail_outbox WHERE garden_id = ? AND user_id = ? AND status = 'pending'", { replacements: [gardenId, userId], transaction });
     // A removed member is signed out everywhere (RELIABILITY.md); one who leaves stays signed in.
     if (!leaving) await endSessionsOf(db, userId, undefined, transaction);
     await membershipChanged(db, gardenId, transaction);
