@@ -71,6 +71,10 @@ describe('plantings CSV', () => {
     expect(await Planting.count({ where: { gardenId: garden.id } })).toBe(2);
     const p = await Planting.findOne({ where: { gardenId: garden.id, status: 'harvested' } });
     expect(p!.notes).toBe('=1+1');
+    // The owner's trail holds one entry for the file that changed something, none for the repeats.
+    const trail = (await clients.owner.get(`${base}/audit?entity=planting`).expect(200)).body.items as { action: string; summary: string; actor: { name: string } }[];
+    expect(trail.filter((e) => e.action === 'imported').map((e) => e.summary)).toEqual(['Imported a plantings file: 2 plantings added, 2 log entries added']);
+    expect(trail[0].actor.name).toBe('Grower');
   });
 
   it('when any row is wrong, then 422 reports line and column and nothing is imported', async () => {

@@ -14,6 +14,8 @@ import type { ImportProblem, ImportReport, LogEntryCreateInput, PlantingCreateIn
 import { Bed, Planting, PlantingLog, SeedLot, Variety } from '../../db/models';
 import { AppError } from '../../errors';
 import { inTransaction } from '../../lib/transaction';
+import { recordAudit } from '../audit/audit';
+import type { AuditActor } from '../audit/audit';
 import { isTextFile, NOT_TEXT_CSV } from '../../lib/upload';
 import { plantingIncludes } from './plantings.service';
 import { plantingFields } from './plantings.presenter';
@@ -178,7 +180,8 @@ function samePlanting(a: PlantingCreateInput, b: PlantingCreateInput) {
 
 const keyOf = (p: PlantingCreateInput) => [p.bedId, p.varietyId, p.method, p.sownOn ?? p.transplantedOn ?? ''].join('|');
 
-export async function importPlantingsCsv(gardenId: number, userId: number, buffer: Buffer): Promise<ImportReport> {
+export async function importPlantingsCsv(gardenId: number, actor: AuditActor, buffer: Buffer): Promise<ImportReport> {
+  const userId = actor.id;
   const { header, records } = parseRows(buffer);
   const problems: ImportProblem[] = [];
   const unknown = header.filter((h) => !(PLANTING_CSV_COLUMNS as readonly string[]).includes(h));
@@ -309,6 +312,27 @@ export async function importPlantingsCsv(gardenId: number, userId: number, buffe
       );
       have.push(entry);
       report.logEntriesCreated++;
+    }
+    // One entry for the file (an import of the same file again changes nothing and writes none).
+    if (report.plantingsCreated || report.plantingsUpdated || report.logEntriesCreated) {
+      const parts = [
+        report.plantingsCreated ? `${countOf(report.plantingsCreated, 'planting')} added` : '',
+        report.plantingsUpdated ? `${countOf(report.plantingsUpdated, 'planting')} changed` : '',
+        report.logEntriesCreated ? `${countOf(report.logEntriesCreated, 'log entry', 'log entries')} added` : '',
+      ].filter(Boolean);
+      await recordAudit(transaction, {
+        gardenId,
+        actor,
+        entity: 'planting',
+        entityId: null,
+        action: 'imported',
+        summary: `Imported a plantings file: ${parts.join(', ')}`,
+        changes: {
+          plantingsCreated: { to: report.plantingsCreated },
+          plantingsUpdated: { to: report.plantingsUpdated },
+          logEntriesCreated: { to: report.logEntriesCreated },
+        },
+      });
     }
     return report;
   });

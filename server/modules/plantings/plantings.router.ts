@@ -104,7 +104,7 @@ export function plantingsRouter(config: AppConfig, table: RouteTableEntry[], pro
           const user = requireSignedIn(req);
           const file = await receiveOneFile(req, res, 'file', { maxBytes: CSV_MAX_BYTES, fields: 0 });
           if (!file) throw new AppError(400, 'validation_failed', 'Please check the fields: file.', { file: 'Attach the plantings CSV file.' });
-          res.json({ report: await importPlantingsCsv(req.membership!.gardenId, user.id, file.buffer) });
+          res.json({ report: await importPlantingsCsv(req.membership!.gardenId, actorOf(user), file.buffer) });
         },
       },
       {
