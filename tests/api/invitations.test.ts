@@ -276,4 +276,15 @@ describe('invitations by e-mail', () => {
     expect(res.headers['retry-after']).toBeDefined();
     expect(res.body.error.message).toMatch(/Too many invitations/);
   });
+
+  it('when the accept body is not a JSON object, then 400 in words, and nothing is joined', async () => {
+    const g = await gardenWithClients(app);
+    const email = uniqueEmail('array-body');
+    await g.clients.owner.post(`${g.base}/invitations`).send({ email, role: 'viewer' }).expect(201);
+    const { token } = await mailedInvitation(email);
+    const res = await anonymous().post(`/api/invitations/${token}/accept`).set('Content-Type', 'application/json').send('[]');
+    expect(res.status).toBe(400);
+    expect(res.body.error.code).toBe('malformed_body');
+    expect((await anonymous().get(`/api/invitations/${token}`)).status).toBe(200);
+  });
 });

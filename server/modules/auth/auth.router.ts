@@ -17,8 +17,11 @@ import { CHECK_EMAIL, confirmRegistration, requestRegistration } from './registr
 import { presentUser } from './auth.presenter';
 import { assertStrongPassword } from './password-strength';
 
-/** Passport ≥ 0.6 regenerates the session at login (new id); save it before answering. */
-function signIn(req: Request, user: UserDto): Promise<void> {
+/**
+ * Passport ≥ 0.6 regenerates the session at login (new id); save it before answering. Every way
+ * in (sign-in, a confirmed sign-up, an accepted invitation) signs in through this one function.
+ */
+export function signIn(req: Request, user: UserDto): Promise<void> {
   return new Promise((resolve, reject) =>
     req.login(user, (err) => {
       if (err) return reject(err instanceof Error ? err : new Error('Signing in failed.'));

@@ -3,29 +3,18 @@ import type { Request } from 'express';
 import type { Sequelize } from 'sequelize';
 import { rateLimit } from 'express-rate-limit';
 import { invitationCreateSchema, newAccountAcceptSchema } from '#shared/schemas/invitations';
-import type { UserDto } from '#shared/schemas/auth';
 import { parseBody } from '../../lib/validate';
 import { mountRoutes, requireSignedIn } from '../../lib/routes';
 import type { RouteTableEntry } from '../../lib/routes';
 import { recordId } from '../records/params';
 import { MariaDbRateLimitStore } from '../auth/rate-limit-store';
+import { signIn } from '../auth/auth.router';
 import { presentGarden } from '../gardens/gardens.presenter';
 import { acceptInvitation, capturedInvitationMail, createInvitation, listInvitations, previewInvitation, revokeInvitation } from './invitations.service';
 import { AppError } from '../../errors';
 
 /** Invitations one owner may send per hour, counted in MariaDB so every instance sees the same. */
 export const INVITES_PER_HOUR = 30;
-
-/** As at sign-in: Passport ≥ 0.6 regenerates the session id; it is saved before answering. */
-function signIn(req: Request, user: UserDto): Promise<void> {
-  return new Promise((resolve, reject) =>
-    req.login(user, (err) => {
-      if (err) return reject(err instanceof Error ? err : new Error('Signing in failed.'));
-      req.session.signedInAt = Date.now();
-      req.session.save((e: unknown) => (e ? reject(e instanceof Error ? e : new Error('The session could not be saved.')) : resolve()));
-    }),
-  );
-}
 
 export function invitationsRouter(deps: { sequelize: Sequelize; table: RouteTableEntry[]; mailIsLocalFake: boolean; invitesPerHour?: number }) {
   const { sequelize, table } = deps;
@@ -112,6 +101,9 @@ export function invitationsRouter(deps: { sequelize: Sequelize; table: RouteTabl
         path: '/accept',
         access: 'public',
         handler: async (req, res) => {
+          if (req.body !== undefined && (typeof req.body !== 'object' || req.body === null || Array.isArray(req.body))) {
+            throw new AppError(400, 'malformed_body', 'Send a JSON object: { name, password } for a new account, or {} to join as yourself.');
+          }
           const body = (req.body ?? {}) as Record<string, unknown>;
           const account = Object.keys(body).length ? parseBody(newAccountAcceptSchema, body) : null;
           const done = await acceptInvitation(sequelize, String(req.params.token), req.user, account);
