@@ -35,17 +35,18 @@ function Refused({ error }: { error: ApiError }) {
 /** Opened from the reset e-mail, usually signed out; the link is checked before a password is typed. */
 export function ResetPasswordPage() {
   const { token = '' } = useParams();
-  const link = useResetLink(token);
-  const queryClient = useQueryClient();
   const [done, setDone] = useState(false);
+  const link = useResetLink(token, !done);
+  const queryClient = useQueryClient();
   const [refused, setRefused] = useState<ApiError | null>(null);
   const refusal = refused ?? (isApiError(link.error) && [404, 410].includes(link.error.status) ? link.error : null);
 
   const onDone = () => {
+    // First, so the link (now used) is not asked about again once the queries are cleared.
+    setDone(true);
     // Every session of the account ended with the change, this browser's too if it was signed in.
     queryClient.removeQueries();
     queryClient.setQueryData(authKeys.me(), null);
-    setDone(true);
   };
 
   return (

@@ -9,7 +9,11 @@ export function checkResetLink(token: string, signal?: AbortSignal): Promise<{ s
 export const resetLinkQueryOptions = (token: string) =>
   queryOptions({ queryKey: accountKeys.resetLink(token), queryFn: ({ signal }) => checkResetLink(token, signal), retry: false, staleTime: Infinity });
 
-/** Asked before the form shows, so a used or expired link says so before a new password is typed. */
-export function useResetLink(token: string) {
-  return useQuery(resetLinkQueryOptions(token));
+/**
+ * Asked before the form shows, so a used or expired link says so before a new password is typed.
+ * `enabled: false` once the password is changed: the page then clears every query, and asking
+ * again about the link just used would only fetch a 410.
+ */
+export function useResetLink(token: string, enabled = true) {
+  return useQuery({ ...resetLinkQueryOptions(token), enabled });
 }
