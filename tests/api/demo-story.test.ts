@@ -35,7 +35,7 @@ async function demoCopy(demo: (typeof DEMO_GARDENS)[number]) {
   const today = localDate(garden.timeZone);
   const users = [ctx.owner, ctx.grower, ctx.viewer];
   const pending = await sequelize.transaction((t) => seedGardenRecords(garden, users, today, t, { weatherDecides: true }));
-  const settled = await sequelize.transaction((t) => settleDemoOutcomes(weather, garden, pending, t));
+  const settled = await settleDemoOutcomes(sequelize, weather, garden, pending);
   return { ...ctx, pending, settled };
 }
 

@@ -5,7 +5,7 @@
  * invented number of heat days (DEMO_VARIETY_TRUTH), whichever comes first. So a variety that
  * stands more heat really did stand more in the weather Compare reads, and the ranking is true.
  */
-import type { Transaction } from 'sequelize';
+import type { Sequelize, Transaction } from 'sequelize';
 import { addDays } from '#shared/thermal/dates';
 import { degreeDaysIn, tempIn } from '#shared/thermal/units';
 import type { ProgressDto } from '#shared/schemas/progress';
@@ -61,8 +61,12 @@ export function outcomeOf(dto: ProgressDto, need: number, threshold: number | nu
   return { firstHarvestOn, lastHarvestOn, boltedOn: null, status: lastHarvestOn ? 'harvested' : 'growing' };
 }
 
-/** Settles the pending plantings of one garden from its stored weather, with their log entries. */
-export async function settleDemoOutcomes(weather: WeatherService, garden: Garden, pending: readonly PendingOutcome[], transaction: Transaction): Promise<number> {
+/**
+ * Settles the pending plantings of one garden from its stored weather, with their log entries:
+ * the progress is computed first, then the outcomes are written in one transaction (so the
+ * computation never waits for a connection the transaction holds).
+ */
+export async function settleDemoOutcomes(sequelize: Sequelize, weather: WeatherService, garden: Garden, pending: readonly PendingOutcome[]): Promise<number> {
   if (!pending.length) return 0;
   const { results } = await computeGardenProgress(
     weather,
@@ -70,6 +74,10 @@ export async function settleDemoOutcomes(weather: WeatherService, garden: Garden
     pending.map((p) => p.plantingId),
   );
   const byId = new Map(results.map((r) => [r.planting.id, JSON.parse(progressRow(r).body) as ProgressDto]));
+  return sequelize.transaction((transaction) => writeOutcomes(garden, pending, byId, transaction));
+}
+
+async function writeOutcomes(garden: Garden, pending: readonly PendingOutcome[], byId: ReadonlyMap<number, ProgressDto>, transaction: Transaction): Promise<number> {
   const thresholds = new Map<string, number | null>();
   let settled = 0;
   for (const p of pending) {

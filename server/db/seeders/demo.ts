@@ -111,7 +111,7 @@ async function seedDemoOnce(sequelize: Sequelize, opts: { weather?: WeatherServi
     await weather.backfillPending();
     for (const garden of seeded.gardens) {
       await garden.reload();
-      await sequelize.transaction((transaction) => settleDemoOutcomes(weather, garden, pending.get(garden.id) ?? [], transaction));
+      await settleDemoOutcomes(sequelize, weather, garden, pending.get(garden.id) ?? []);
     }
   }
   return seeded;
