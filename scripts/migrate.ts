@@ -15,7 +15,9 @@ import { enqueueAlertMail } from '../server/modules/notifications/alert-mail';
 import { enqueueDigests } from '../server/modules/notifications/digests';
 
 const config = loadConfig();
-const sequelize = createSequelize(config.db);
+// No statement bound here: a migration's ALTER or index build on a big table may run for minutes
+// (DB_QUERY_TIMEOUT_MS is for requests and jobs).
+const sequelize = createSequelize({ ...config.db, queryTimeoutMs: 0 });
 initModels(sequelize);
 try {
   const applied = await migrate(sequelize);

@@ -19,6 +19,9 @@ const envSchema = z.object({
   DB_NAME: z.string().default('heatclock'),
   DB_TEST_NAME: z.string().default('heatclock_test'),
   DB_POOL_MAX: z.coerce.number().int().min(1).max(200).default(24),
+  // Longest a statement may run (server-side max_statement_time), and, with 2 s more, how long a
+  // connection may go silent (a frozen or partitioned node) before it is dropped. 0 turns both off.
+  DB_QUERY_TIMEOUT_MS: z.coerce.number().int().min(0).max(600_000).default(8000),
   SESSION_SECRET: z.string().min(32).optional(),
   SESSION_IDLE_MINUTES: z.coerce.number().int().positive().default(8 * 60),
   SESSION_ABSOLUTE_HOURS: z.coerce.number().int().positive().default(7 * 24),
@@ -66,6 +69,8 @@ export interface DbConfig {
   password: string;
   database: string;
   poolMax: number;
+  /** Statement bound in ms (0: none); the socket gives up 2 s later. Default 8000 when absent. */
+  queryTimeoutMs?: number;
 }
 
 export interface AppConfig {
@@ -142,7 +147,7 @@ function localSessionSecret(): string {
   return secret;
 }
 
-function dbFromUrl(url: string, poolMax: number): DbConfig {
+function dbFromUrl(url: string, poolMax: number, queryTimeoutMs: number): DbConfig {
   const u = new URL(url);
   if (!/^(mariadb|mysql):$/.test(u.protocol)) {
     throw new Error(`DATABASE_URL must start with mariadb:// or mysql://, got ${u.protocol}`);
@@ -154,6 +159,7 @@ function dbFromUrl(url: string, poolMax: number): DbConfig {
     password: decodeURIComponent(u.password),
     database: u.pathname.replace(/^\//, ''),
     poolMax,
+    queryTimeoutMs,
   };
 }
 
@@ -183,7 +189,7 @@ export function loadConfig(source: NodeJS.ProcessEnv = process.env): AppConfig {
     throw new Error('Invalid configuration: SESSION_SECRET (32+ characters) is required with DATABASE_URL in production');
   }
   const db: DbConfig = e.DATABASE_URL
-    ? dbFromUrl(e.DATABASE_URL, e.DB_POOL_MAX)
+    ? dbFromUrl(e.DATABASE_URL, e.DB_POOL_MAX, e.DB_QUERY_TIMEOUT_MS)
     : {
         host: e.DB_HOST,
         port: e.DB_PORT,
@@ -191,6 +197,7 @@ export function loadConfig(source: NodeJS.ProcessEnv = process.env): AppConfig {
         password: e.DB_PASSWORD,
         database: e.NODE_ENV === 'test' ? e.DB_TEST_NAME : e.DB_NAME,
         poolMax: e.DB_POOL_MAX,
+        queryTimeoutMs: e.DB_QUERY_TIMEOUT_MS,
       };
   return {
     env: e.NODE_ENV,

@@ -58,8 +58,22 @@ const dbDownNames = new Set([
   'SequelizeAccessDeniedError',
 ]);
 
+/**
+ * Driver errnos that mean "this database node cannot serve us right now", not a bad request:
+ * 1047 a Galera node not yet prepared for use (joining, donor, or cut off from the primary
+ * component), 1969 a statement that ran past max_statement_time (DB_QUERY_TIMEOUT_MS), 1213 a
+ * deadlock or certification conflict still there after the retries, 1205 a lock wait that ran
+ * out, 2006/2013 and the connector's 45009/45012/45013/45026 a connection lost or gone silent.
+ */
+const dbUnavailableErrnos = new Set([1047, 1969, 1213, 1205, 2006, 2013, 45009, 45012, 45013, 45026]);
+
 export function isDatabaseDown(err: unknown): boolean {
-  return err instanceof Error && dbDownNames.has(err.name);
+  if (!(err instanceof Error)) return false;
+  if (dbDownNames.has(err.name)) return true;
+  const original = (err as { original?: { errno?: unknown; fatal?: unknown } }).original;
+  if (!original) return false;
+  // `fatal`: the connector closed the connection under the query (reset, socket timeout, server gone).
+  return (typeof original.errno === 'number' && dbUnavailableErrnos.has(original.errno)) || original.fatal === true;
 }
 
 interface BodyParserError extends Error {

@@ -1,6 +1,10 @@
 import { describe, expect, it } from 'vitest';
+import { mkdtempSync, readdirSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import path from 'node:path';
 import sharp from 'sharp';
-import { testApp, testDb } from '../helpers/test-app';
+import { agent, testApp, testDb } from '../helpers/test-app';
+import { signIn } from '../helpers/factories';
 import { gardenWithClients, makePlanting } from '../helpers/garden-records';
 import { PlantingLog, PlantingPhoto } from '../../server/db/models';
 
@@ -77,5 +81,38 @@ describe('planting photos', () => {
     expect((await clients.grower.post(`${base}/plantings/${p.id}/photos`).field('caption', 'x')).status).toBe(400);
     expect((await clients.viewer.post(`${base}/plantings/${p.id}/photos`).attach('photo', await phoneJpeg(), 'a.jpg')).status).toBe(403);
     expect((await clients.viewer.get(`${base}/plantings/${p.id}/photos`)).body.photos).toEqual([]);
+  });
+
+  it('when a photo is uploaded through one app instance, then another instance with its own disk serves the same bytes, and a delete there removes it for both', async () => {
+    // Two instances on the one database, each with an uploads folder of its own (as two machines would have).
+    const first = testApp({ uploads: { ...uploads, dir: mkdtempSync(path.join(tmpdir(), 'heatclock-a-')) } });
+    const secondDir = mkdtempSync(path.join(tmpdir(), 'heatclock-b-'));
+    const second = testApp({ uploads: { ...uploads, dir: secondDir } });
+    const { clients, base, garden, viewer, grower } = await gardenWithClients(first);
+    const p = await makePlanting(garden.id);
+    const res = await clients.grower.post(`${base}/plantings/${p.id}/photos`).field('caption', 'Across').field('takenOn', '2025-05-03').attach('photo', await phoneJpeg(800, 600), 'bed.jpg');
+    expect(res.status).toBe(201);
+    type Parser = Parameters<ReturnType<typeof clients.viewer.get>['parse']>[0];
+    const binary: Parser = (r, cb) => {
+      const chunks: Buffer[] = [];
+      r.on('data', (c: Buffer) => chunks.push(c));
+      r.on('end', () => cb(null, Buffer.concat(chunks)));
+    };
+    const onFirst = await clients.viewer.get(res.body.photo.url).buffer(true).parse(binary);
+    const viewerThere = agent(second).set('X-Requested-With', 'heatclock-test');
+    await signIn(viewerThere, viewer.email);
+    const onSecond = await viewerThere.get(res.body.photo.url).buffer(true).parse(binary);
+    expect(onSecond.status).toBe(200);
+    expect(onSecond.headers['content-type']).toBe('image/jpeg');
+    expect(Buffer.compare(onSecond.body as Buffer, onFirst.body as Buffer)).toBe(0);
+    expect(Number(onSecond.headers['content-length'])).toBe(res.body.photo.bytes);
+    expect(readdirSync(secondDir)).toEqual([]);
+
+    const growerThere = agent(second).set('X-Requested-With', 'heatclock-test');
+    await signIn(growerThere, grower.email);
+    expect((await growerThere.delete(res.body.photo.url)).status).toBe(204);
+    expect((await clients.viewer.get(res.body.photo.url)).status).toBe(404);
+    const [rows] = await testDb().sequelize.query('SELECT photo_id FROM planting_photo_contents WHERE photo_id = ?', { replacements: [res.body.photo.id] });
+    expect(rows).toEqual([]);
   });
 });

@@ -3,6 +3,10 @@
  * start at once, each on its own node, each running migrate + demo seed (as
  * `scripts/migrate.ts --seed-demo` does) and then the server. Proves that the schema and the demo
  * are made once cluster-wide, and that a session made through one instance works through another.
+ * Then (second slice): a nightly weather run started on every instance at once fetches each cell
+ * once and writes no duplicate day, every run is closed with its real figures; and a node killed
+ * under writes gives its instance fast 503s (never a hang, a 500 or a crash) while the others
+ * carry on, and after it rejoins every committed write is there once, on every node.
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { execFileSync, spawn } from 'node:child_process';
@@ -91,6 +95,8 @@ function instanceEnv(inst: Instance): NodeJS.ProcessEnv {
     MAIL_FAKE_PORT: '0',
     SCHEDULER: 'off',
     LOG_LEVEL: 'warn',
+    // A node that stops answering must not hold a request for long (the default is 8000).
+    DB_QUERY_TIMEOUT_MS: '4000',
   };
 }
 
@@ -189,6 +195,41 @@ async function query<T>(port: number, sql: string, values: unknown[] = []): Prom
   } finally {
     await conn.end();
   }
+}
+
+/** Runs tests/cluster/nightly-run.ts as one more process of instance `inst`; resolves with its JSON answer. */
+function instanceScript<T>(inst: Instance, args: string[], extraEnv: Record<string, string> = {}): Promise<T> {
+  if (stopping) throw new Error('cleanup has begun');
+  const out = createWriteStream(inst.log, { flags: 'a' });
+  out.write(`\n--- nightly-run.ts ${args.join(' ')} (${new Date().toISOString()})\n`);
+  const child = spawn(process.execPath, ['--import', 'tsx', 'tests/cluster/nightly-run.ts', ...args], {
+    cwd: root,
+    env: { ...instanceEnv(inst), ...extraEnv },
+    detached: true,
+    stdio: ['ignore', 'pipe', 'pipe'],
+  });
+  children.add(child);
+  child.once('exit', () => children.delete(child));
+  let stdout = '';
+  child.stdout!.on('data', (c: Buffer) => {
+    stdout += c.toString();
+    out.write(c);
+  });
+  child.stderr!.pipe(out, { end: false });
+  return exited(child).then((code) => {
+    if (code !== 0) throw new Error(`nightly-run.ts ${args.join(' ')} on instance ${inst.n} exited with ${code}; see ${inst.log}`);
+    return JSON.parse(stdout.trim().split('\n').at(-1)!) as T;
+  });
+}
+
+function nodePid(n: number): number {
+  return Number(readFileSync(path.join(clusterDir, `n${n}`, 'mariadbd.pid'), 'utf8').trim());
+}
+
+/** As root on node n's socket (what scripts/cluster.sh does): for settings the app's account may not change. */
+function asRoot(n: number, sql: string) {
+  const sock = path.join(clusterDir, `n${n}`, 's.sock');
+  return execFileSync('mariadb', ['--no-defaults', '--protocol=socket', `--socket=${sock}`, '-uroot', '--connect-timeout=2', '-N', '-B', '-e', sql], { encoding: 'utf8', timeout: 10_000 });
 }
 
 describe('three app instances on a three-node Galera cluster', () => {
@@ -368,6 +409,218 @@ describe('three app instances on a three-node Galera cluster', () => {
       );
       expect(attempts).toBe(2);
     });
+  });
+
+  describe('work on every instance at once', () => {
+    it('when the nightly run starts on every instance at once, then each cell is fetched once, no day is written twice, and every run is closed with its real figures', async () => {
+      const { cellIds } = await instanceScript<{ cellIds: number[] }>(instances[0], ['setup', '14']);
+      expect(cellIds).toHaveLength(14);
+      const due = await query<{ id: number; latitude: number; longitude: number }>(
+        instances[0].dbPort,
+        'SELECT id, latitude, longitude FROM weather_cells c WHERE EXISTS (SELECT 1 FROM gardens g WHERE g.weather_cell_id = c.id)',
+      );
+      const startAt = String(Date.now() + 9000);
+      const t0 = Date.now();
+      const results = await Promise.all(
+        instances.map((inst) =>
+          instanceScript<{ run: { cellsOk: number; cellsFailed: number; claimConflicts: number }; row: { status: string; cellsOk: number; claimConflicts: number }; fetched: Array<[number, number]> }>(
+            inst,
+            ['nightly'],
+            { START_AT: startAt },
+          ),
+        ),
+      );
+      process.stdout.write(
+        `[cluster test] nightly on 3 instances: ${((Date.now() - t0) / 1000).toFixed(1)} s; ok ${results.map((r) => r.run.cellsOk).join('/')}, claim conflicts ${results.map((r) => r.run.claimConflicts).join('/')}\n`,
+      );
+      const fetched = results.flatMap((r) => r.fetched.map(([lat, lon]) => `${lat},${lon}`));
+      for (const cell of due) {
+        expect(fetched.filter((f) => f === `${cell.latitude},${cell.longitude}`), `cell ${cell.id}`).toHaveLength(1);
+      }
+      expect(fetched).toHaveLength(due.length);
+      for (const r of results) {
+        expect(r.run.cellsFailed).toBe(0);
+        // What the run recorded is what it did: its cells, and its lost claims counted apart.
+        expect(r.row).toMatchObject({ status: 'ok', cellsOk: r.run.cellsOk, claimConflicts: r.run.claimConflicts });
+        expect(r.run.cellsOk).toBe(r.fetched.length);
+      }
+      expect(results.reduce((n, r) => n + r.run.cellsOk, 0)).toBe(due.length);
+      for (const inst of instances) {
+        const [dupes] = await query<{ total: number; distinctDays: number }>(inst.dbPort, 'SELECT COUNT(*) AS total, COUNT(DISTINCT cell_id, date) AS distinctDays FROM weather_days');
+        expect(Number(dupes.total)).toBe(Number(dupes.distinctDays));
+        const [open] = await query<{ c: number }>(inst.dbPort, "SELECT COUNT(*) AS c FROM job_runs WHERE status = 'running'");
+        expect(Number(open.c)).toBe(0);
+        const [leased] = await query<{ c: number }>(inst.dbPort, 'SELECT COUNT(*) AS c FROM weather_cells WHERE lease_owner IS NOT NULL');
+        expect(Number(leased.c)).toBe(0);
+      }
+    }, 120_000);
+
+    it('when alert evaluation runs on every instance at once, then each alert is made once and each message is sent once', async () => {
+      const { gardenIds } = await instanceScript<{ gardenIds: number[] }>(instances[0], ['alerts-setup']);
+      const startAt = String(Date.now() + 9000);
+      const results = await Promise.all(
+        instances.map((inst) => instanceScript<{ evaluated: number; opened: number; retried: number }>(inst, ['alerts', gardenIds.join(',')], { START_AT: startAt })),
+      );
+      process.stdout.write(`[cluster test] alerts on 3 instances: opened ${results.map((r) => r.opened).join('/')}, conflicts retried ${results.map((r) => r.retried).join('/')}\n`);
+      const ids = gardenIds.join(',');
+      // Every node is written by the time each process has committed: read the slowest, then all.
+      for (const inst of instances) {
+        const alerts = await query<{ id: number; k: string }>(inst.dbPort, `SELECT id, CONCAT(garden_id, ':', subject_key, ':', type, ':', first_on) AS k FROM alerts WHERE garden_id IN (${ids})`);
+        expect(alerts.length, 'the demo gardens have alerts to make').toBeGreaterThan(0);
+        expect(new Set(alerts.map((a) => a.k)).size).toBe(alerts.length);
+        // Each alert was opened by exactly one of the three evaluations.
+        expect(results.reduce((n, r) => n + r.opened, 0)).toBe(alerts.length);
+        const outbox = await query<{ id: number; status: string; dedupe: string }>(inst.dbPort, `SELECT id, status, dedupe_key AS dedupe FROM mail_outbox WHERE garden_id IN (${ids})`);
+        expect(outbox.length, 'alert mail was queued').toBeGreaterThan(0);
+        expect(outbox.filter((o) => o.status !== 'sent')).toEqual([]);
+        const captured = await query<{ h: string }>(inst.dbPort, "SELECT headers_json AS h FROM captured_mail WHERE headers_json LIKE '%outbox.%'");
+        for (const o of outbox) {
+          const copies = captured.filter((c) => c.h.includes(`<outbox.${o.id}.`));
+          expect(copies, `message ${o.id} (${o.dedupe})`).toHaveLength(1);
+        }
+      }
+    }, 120_000);
+
+    it('when a node is killed under writes, then its instance answers fast 503s, the others carry on, and after it rejoins every committed write is there once', async () => {
+      const login = await fetch(`http://127.0.0.1:${instances[0].httpPort}/api/auth/login`, {
+        method: 'POST',
+        headers: { 'content-type': 'application/json', accept: 'application/json' },
+        body: JSON.stringify(LOGIN),
+      });
+      const cookie = login.headers
+        .getSetCookie()
+        .map((c) => c.split(';')[0])
+        .find((c) => c.startsWith('heatclock.sid='))!;
+      const headers = { cookie, accept: 'application/json', 'content-type': 'application/json', 'x-requested-with': 'heatclock-cluster' };
+      const gardens = (await (await fetch(`http://127.0.0.1:${instances[0].httpPort}/api/gardens`, { headers })).json()) as { gardens: Array<{ id: number; role?: string }> };
+      const gardenId = gardens.gardens[0].id;
+      const tag = randomBytes(3).toString('hex');
+      interface Sent { name: string; status: number; ms: number; at: number }
+      const sent: Sent[][] = instances.map(() => []);
+      let writing = true;
+      const writer = async (inst: Instance, i: number) => {
+        for (let k = 0; writing; k++) {
+          const name = `Kill ${tag} ${inst.n}-${k}`;
+          const t = Date.now();
+          let status = 0;
+          try {
+            const res = await fetch(`http://127.0.0.1:${inst.httpPort}/api/gardens/${gardenId}/beds`, {
+              method: 'POST',
+              headers: { ...headers, 'idempotency-key': `${tag}-${inst.n}-${k}` },
+              body: JSON.stringify({ name, kind: 'bed', lengthM: 2, widthM: 1 }),
+              signal: AbortSignal.timeout(15_000),
+            });
+            status = res.status;
+            await res.arrayBuffer();
+          } catch {
+            status = -1; // no answer within 15 s, or the connection failed: a hang or a crash
+          }
+          sent[i].push({ name, status, ms: Date.now() - t, at: t });
+          await new Promise((r) => setTimeout(r, 60));
+        }
+      };
+      const writers = instances.map((inst, i) => writer(inst, i));
+      await new Promise((r) => setTimeout(r, 2500));
+      const killedAt = Date.now();
+      process.kill(nodePid(3), 'SIGKILL');
+      await new Promise((r) => setTimeout(r, 7000));
+      writing = false;
+      await Promise.all(writers);
+
+      const afterKill = (i: number) => sent[i].filter((s) => s.at > killedAt + 500);
+      // A request in flight at the kill may have committed (201) or not (503); none is a 500 or left hanging.
+      const caught = sent[2].filter((s) => s.at + s.ms >= killedAt);
+      expect(caught.filter((s) => s.status !== 201 && s.status !== 503), JSON.stringify(caught)).toEqual([]);
+      const victim = afterKill(2);
+      expect(victim.length, 'requests to the instance of the killed node').toBeGreaterThan(3);
+      expect(victim.filter((s) => s.status !== 503), JSON.stringify(victim)).toEqual([]);
+      expect(Math.max(...victim.map((s) => s.ms)), 'slowest 503').toBeLessThan(5000);
+      expect(instances[2].serverExit, 'the instance of the killed node keeps running').toBeNull();
+      for (const i of [0, 1]) {
+        const theirs = afterKill(i);
+        expect(theirs.filter((s) => s.status !== 201 && s.status !== 503), `instance ${i + 1}: ${JSON.stringify(theirs)}`).toEqual([]);
+        // Carrying on: the last writes after the kill all landed.
+        expect(theirs.slice(-5).map((s) => s.status)).toEqual([201, 201, 201, 201, 201]);
+      }
+      const ready = await fetch(`http://127.0.0.1:${instances[2].httpPort}/api/ready`);
+      expect(ready.status).toBe(503);
+
+      // The node rejoins (state transfer from a survivor) and its instance is ready again.
+      const t0 = Date.now();
+      cluster('start');
+      await waitReady(instances[2], 60_000);
+      process.stdout.write(`[cluster test] killed node back and its instance ready in ${((Date.now() - t0) / 1000).toFixed(1)} s\n`);
+      const committed = sent.flat().filter((s) => s.status === 201).map((s) => s.name);
+      expect(committed.length).toBeGreaterThan(10);
+      for (const inst of instances) {
+        const rows = await query<{ name: string; times: number }>(inst.dbPort, 'SELECT name, COUNT(*) AS times FROM beds WHERE garden_id = ? AND name LIKE ? GROUP BY name', [gardenId, `Kill ${tag} %`]);
+        const times = new Map(rows.map((r) => [r.name, Number(r.times)]));
+        expect(committed.filter((n) => times.get(n) !== 1), `node :${inst.dbPort}`).toEqual([]);
+        expect(rows.filter((r) => Number(r.times) !== 1)).toEqual([]);
+      }
+      const back = await fetch(`http://127.0.0.1:${instances[2].httpPort}/api/gardens/${gardenId}/beds`, { headers });
+      expect(back.status).toBe(200);
+    }, 150_000);
+
+    it('when a node is desynced (as while it donates a state transfer), then its instance is not ready, and ready again once it is Synced', async () => {
+      const inst = instances[1];
+      asRoot(2, 'SET GLOBAL wsrep_desync = ON');
+      try {
+        const res = await fetch(`http://127.0.0.1:${inst.httpPort}/api/ready`);
+        expect(res.status).toBe(503);
+        expect(res.headers.get('retry-after')).toBe('5');
+        expect(((await res.json()) as { node: string }).node).toMatch(/Desynced|Donor/);
+      } finally {
+        asRoot(2, 'SET GLOBAL wsrep_desync = OFF');
+      }
+      await waitReady(inst, 20_000);
+      const ok = (await (await fetch(`http://127.0.0.1:${inst.httpPort}/api/ready`)).json()) as { status: string; node: string };
+      expect(ok).toMatchObject({ status: 'ready', node: 'Synced' });
+    });
+
+    it('when a node freezes (SIGSTOP, like a partition), then its instance answers 503 within the statement bound instead of hanging, and serves again after it thaws', async () => {
+      const inst = instances[1];
+      const login = await fetch(`http://127.0.0.1:${inst.httpPort}/api/auth/login`, {
+        method: 'POST',
+        headers: { 'content-type': 'application/json', accept: 'application/json' },
+        body: JSON.stringify(LOGIN),
+      });
+      expect(login.status).toBe(200);
+      const cookie = login.headers
+        .getSetCookie()
+        .map((c) => c.split(';')[0])
+        .find((c) => c.startsWith('heatclock.sid='))!;
+      const pid = nodePid(2);
+      const answers: Array<{ status: number; ms: number }> = [];
+      process.kill(pid, 'SIGSTOP');
+      try {
+        const end = Date.now() + 12_000;
+        while (Date.now() < end) {
+          const t = Date.now();
+          let status = -1;
+          try {
+            const res = await fetch(`http://127.0.0.1:${inst.httpPort}/api/gardens`, { headers: { cookie, accept: 'application/json' }, signal: AbortSignal.timeout(15_000) });
+            status = res.status;
+            await res.arrayBuffer();
+          } catch {
+            // no answer within 15 s: a hang
+          }
+          answers.push({ status, ms: Date.now() - t });
+        }
+        const ready = await fetch(`http://127.0.0.1:${inst.httpPort}/api/ready`, { signal: AbortSignal.timeout(5000) });
+        expect(ready.status).toBe(503);
+      } finally {
+        process.kill(pid, 'SIGCONT');
+      }
+      process.stdout.write(`[cluster test] frozen node: ${answers.map((a) => `${a.status} in ${(a.ms / 1000).toFixed(1)} s`).join(', ')}\n`);
+      expect(answers.filter((a) => a.status !== 503), JSON.stringify(answers)).toEqual([]);
+      // DB_QUERY_TIMEOUT_MS is 4000 here: the silent connection is dropped 2 s after it, plus slack for this busy machine.
+      expect(Math.max(...answers.map((a) => a.ms))).toBeLessThan(9000);
+      expect(inst.serverExit).toBeNull();
+      await waitReady(inst, 90_000);
+      const back = await fetch(`http://127.0.0.1:${inst.httpPort}/api/gardens`, { headers: { cookie, accept: 'application/json' } });
+      expect(back.status).toBe(200);
+    }, 150_000);
   });
 });
 

@@ -25,6 +25,7 @@ describe('nightly weather schedule (node-cron)', () => {
       },
       backfillPending: async () => undefined,
       repairOldGaps: async () => 0,
+      sweepStaleRuns: async () => 0,
     } as unknown as WeatherService;
     const task = scheduleWeatherJob(weather, { cron: '* * * * * *', timeZone: 'UTC', logger });
     await new Promise((r) => setTimeout(r, 3600));

@@ -1,6 +1,3 @@
-import { createReadStream } from 'node:fs';
-import { stat } from 'node:fs/promises';
-import { pipeline } from 'node:stream/promises';
 import { Router } from 'express';
 import { photoFieldsSchema } from '#shared/schemas/plantings';
 import type { AppConfig } from '../../config';
@@ -12,7 +9,7 @@ import { recordId } from '../records/params';
 import { receiveOneFile } from '../../lib/upload';
 import { localDate } from '../../lib/local-date';
 import { getGarden } from '../gardens/gardens.service';
-import { deletePhoto, getPhoto, listPhotos, photoPath, savePhoto } from './photos.service';
+import { deletePhoto, getPhoto, listPhotos, photoContent, savePhoto } from './photos.service';
 import { presentPhoto } from './photos.presenter';
 
 export function photosRouter(config: AppConfig, table: RouteTableEntry[]) {
@@ -62,22 +59,18 @@ export function photosRouter(config: AppConfig, table: RouteTableEntry[]) {
         access: 'viewer',
         handler: async (req, res) => {
           const photo = await getPhoto(req.membership!.gardenId, recordId(req.params, 'plantingId'), recordId(req.params, 'photoId'));
-          const file = photoPath(uploads, photo.storageName);
-          await stat(file).catch(() => {
-            throw AppError.notFound('That photo file');
-          });
+          // From the database, so any instance serves it (see savePhoto).
+          const data = await photoContent(uploads, photo);
+          if (!data) throw AppError.notFound('That photo file');
           res.set({
             'Content-Type': 'image/jpeg',
             'X-Content-Type-Options': 'nosniff',
             'Content-Disposition': 'inline; filename="photo.jpg"',
             'Content-Security-Policy': "default-src 'none'; sandbox",
             'Cache-Control': 'private, max-age=3600',
-            'Content-Length': String(photo.bytes),
+            'Content-Length': String(data.length),
           });
-          // pipeline() ends the file stream when the client goes away mid-download, so nothing leaks.
-          await pipeline(createReadStream(file), res).catch((err: Error) => {
-            if (!res.headersSent) throw err;
-          });
+          res.end(data);
         },
       },
       {

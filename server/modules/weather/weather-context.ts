@@ -10,7 +10,21 @@ export interface WeatherSettings {
   concurrency: number;
   /** A cell refreshed more recently than this is left alone by the nightly run. */
   minRefreshMinutes: number;
+  /** Backfill's lease on a cell (its yearly batches are long). */
   leaseMs: number;
+  /**
+   * A nightly or manual refresh's lease on one cell, renewed every third of it while the cell's
+   * work goes on: an instance that dies lets its cells go within this time, not the next night.
+   */
+  runLeaseMs: number;
+  /** How long a run waits, at most, for due cells other instances hold under a refresh lease. */
+  awaitOthersMs: number;
+  /** A run's heartbeat (job_runs.heartbeat_at) moves this often while it works. */
+  heartbeatMs: number;
+  /** A `running` run whose heartbeat is older than this is closed as failed (start of each run, boot). */
+  staleRunMs: number;
+  /** A worker's claim attempts in a row that may lose to another claimer (1213) before it stops. */
+  claimAttempts: number;
   /** The archive lags the present by a few days; backfill stops this many days before today. */
   archiveLagDays: number;
 }
@@ -21,6 +35,11 @@ export const DEFAULT_WEATHER_SETTINGS: WeatherSettings = {
   concurrency: 8,
   minRefreshMinutes: 60,
   leaseMs: 5 * 60_000,
+  runLeaseMs: 30_000,
+  awaitOthersMs: 45_000,
+  heartbeatMs: 15_000,
+  staleRunMs: 3 * 60_000,
+  claimAttempts: 8,
   archiveLagDays: 7,
 };
 

@@ -2,7 +2,6 @@
 import { QueryTypes } from 'sequelize';
 import type { Sequelize, Transaction } from 'sequelize';
 import type { TempSource } from '#shared/thermal/types';
-import { inTransaction } from '../../lib/transaction';
 
 export interface CellRow {
   id: number;
@@ -87,10 +86,13 @@ export class WeatherRepository {
 
   /**
    * Claims one cell that gardens use and that nobody refreshed since `cutoff`, by a lease taken
-   * under FOR UPDATE SKIP LOCKED: concurrent instances never claim the same cell.
+   * under FOR UPDATE SKIP LOCKED in one short transaction. On one server SKIP LOCKED keeps two
+   * claimers apart; on a Galera cluster it sees only its own node's locks, and two nodes claiming
+   * the same cell both get here: the later commit fails certification (1213). That error is
+   * thrown, not retried here: the caller counts it as a claim conflict and backs off.
    */
   async claimCell(owner: string, cutoff: Date, leaseMs: number, onlyCellId?: number, skip: readonly number[] = []): Promise<CellRow | null> {
-    return inTransaction(this.db, async (transaction) => {
+    return this.db.transaction(async (transaction) => {
       const [row] = await this.db.query<{ id: number }>(
         `SELECT c.id FROM weather_cells c
           WHERE EXISTS (SELECT 1 FROM gardens g WHERE g.weather_cell_id = c.id)
@@ -117,6 +119,33 @@ export class WeatherRepository {
       });
       return cell;
     });
+  }
+
+  /**
+   * Due cells (as claimCell picks them) that another claimer holds under a short lease, one that
+   * runs out within `horizonMs`: a refresh in progress elsewhere, or one whose instance died and
+   * whose lease will lapse soon. Backfill leases are longer and not counted.
+   */
+  async cellsLeasedElsewhere(cutoff: Date, horizonMs: number, skip: readonly number[] = []): Promise<number> {
+    const [row] = await this.db.query<{ n: number }>(
+      `SELECT COUNT(*) AS n FROM weather_cells c
+        WHERE EXISTS (SELECT 1 FROM gardens g WHERE g.weather_cell_id = c.id)
+          AND (c.refreshed_at IS NULL OR c.refreshed_at < ?)
+          AND c.lease_until >= UTC_TIMESTAMP(3)
+          AND c.lease_until <= UTC_TIMESTAMP(3) + INTERVAL ? MICROSECOND
+          ${skip.length ? 'AND c.id NOT IN (?)' : ''}`,
+      { replacements: [cutoff, horizonMs * 1000, ...(skip.length ? [skip] : [])], type: QueryTypes.SELECT },
+    );
+    return Number(row?.n ?? 0);
+  }
+
+  /** Moves the lease of a cell this owner still holds; false when it was lost (ran out and taken). */
+  async renewCell(id: number, owner: string, leaseMs: number): Promise<boolean> {
+    const [, affected] = await this.db.query(
+      'UPDATE weather_cells SET lease_until = UTC_TIMESTAMP(3) + INTERVAL ? MICROSECOND WHERE id = ? AND lease_owner = ?',
+      { replacements: [leaseMs * 1000, id, owner], type: QueryTypes.UPDATE },
+    );
+    return affected === 1;
   }
 
   /** Takes the lease of one cell regardless of its refresh time (backfill), if nobody holds it. */
@@ -272,19 +301,44 @@ export class WeatherRepository {
 
   async startRun(kind: string, instance: string, gardenId: number | null): Promise<number> {
     const [id] = (await this.db.query(
-      `INSERT INTO job_runs (kind, instance, garden_id, started_at, status) VALUES (?, ?, ?, UTC_TIMESTAMP(3), 'running')`,
+      `INSERT INTO job_runs (kind, instance, garden_id, started_at, heartbeat_at, status) VALUES (?, ?, ?, UTC_TIMESTAMP(3), UTC_TIMESTAMP(3), 'running')`,
       { replacements: [kind, instance, gardenId] },
     )) as unknown as [number, number];
     return id;
   }
 
+  /** Shows the run is alive; a run whose heartbeat stops is closed by sweepStaleRuns. */
+  async heartbeatRun(id: number) {
+    await this.db.query("UPDATE job_runs SET heartbeat_at = UTC_TIMESTAMP(3) WHERE id = ? AND status = 'running'", { replacements: [id] });
+  }
+
+  /**
+   * Closes as failed every run still `running` whose heartbeat (or start, for rows older than the
+   * heartbeat) is older than `staleMs`: its instance died or was cut off mid-run. Returns how many.
+   */
+  async sweepStaleRuns(staleMs: number): Promise<number> {
+    const [, affected] = await this.db.query(
+      `UPDATE job_runs SET status = 'failed', finished_at = UTC_TIMESTAMP(3),
+         message = LEFT(CONCAT('abandoned: no heartbeat since ', DATE_FORMAT(COALESCE(heartbeat_at, started_at), '%Y-%m-%d %H:%i:%s'),
+           ' UTC (the instance stopped mid-run)', IF(message IS NULL, '', CONCAT('; ', message))), 1000)
+       WHERE status = 'running' AND COALESCE(heartbeat_at, started_at) < UTC_TIMESTAMP(3) - INTERVAL ? MICROSECOND`,
+      { replacements: [staleMs * 1000], type: QueryTypes.UPDATE },
+    );
+    return affected;
+  }
+
+  /**
+   * Records the end of a run. Only cell failures (and errors that stopped a worker) make it
+   * partial or failed; claims lost to another instance are counted in `claim_conflicts` apart.
+   * A run that was swept meanwhile (status no longer `running`) is still given its real figures.
+   */
   async finishRun(id: number, r: RunTotals) {
     const status = r.cellsFailed === 0 ? 'ok' : r.cellsOk > 0 ? 'partial' : 'failed';
     await this.db.query(
-      `UPDATE job_runs SET finished_at = UTC_TIMESTAMP(3), status = ?, cells_ok = ?, cells_failed = ?, cells_skipped = ?,
-         days_written = ?, days_rejected = ?, requests = ?, message = ? WHERE id = ?`,
+      `UPDATE job_runs SET finished_at = UTC_TIMESTAMP(3), heartbeat_at = UTC_TIMESTAMP(3), status = ?, cells_ok = ?, cells_failed = ?, cells_skipped = ?,
+         days_written = ?, days_rejected = ?, requests = ?, claim_conflicts = ?, message = ? WHERE id = ?`,
       {
-        replacements: [status, r.cellsOk, r.cellsFailed, r.cellsSkipped, r.daysWritten, r.daysRejected, r.requests, r.message?.slice(0, 1000) ?? null, id],
+        replacements: [status, r.cellsOk, r.cellsFailed, r.cellsSkipped, r.daysWritten, r.daysRejected, r.requests, r.claimConflicts ?? 0, r.message?.slice(0, 1000) ?? null, id],
       },
     );
   }
@@ -309,6 +363,8 @@ export interface RunTotals {
   daysWritten: number;
   daysRejected: number;
   requests: number;
+  /** Claims that lost to another claimer (1213: deadlock, or certification against another node). */
+  claimConflicts?: number;
   message?: string;
 }
 

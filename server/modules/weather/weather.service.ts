@@ -19,7 +19,7 @@ import type { WeatherContext, WeatherSettings } from './weather-context';
 import { loadGardenWeather } from './garden-weather';
 import type { GardenDay, WeatherGarden } from './garden-weather';
 import { backfillStatus } from './backfill-status';
-import { refreshCells } from './commands/refresh-cells';
+import { refreshCells, sweepStaleRuns } from './commands/refresh-cells';
 import type { RefreshOptions } from './commands/refresh-cells';
 import { backfillCell } from './commands/backfill-cell';
 import { repairOldGaps } from './commands/repair-gaps';
@@ -97,6 +97,11 @@ export class WeatherService {
   /** The nightly job, and "refresh now" for one garden's cell. Records a job run either way. */
   runRefresh(opts: RefreshOptions = { kind: 'nightly' }) {
     return this.track(refreshCells(this.ctx, opts, (cellId) => this.notify(cellId)));
+  }
+
+  /** Closes job runs left `running` by an instance that stopped mid-run (boot, and each run's start). */
+  sweepStaleRuns(): Promise<number> {
+    return sweepStaleRuns(this.ctx);
   }
 
   /** Hands a refreshed cell to the listeners; their failures are theirs, not the refresh's. */
