@@ -60,3 +60,15 @@ export function mutationProblem(error: unknown, kept = 'your entry is kept'): st
       return error instanceof ApiError && error.message ? error.message : `Something went wrong — ${kept}, try again.`;
   }
 }
+
+/**
+ * A refusal for too many tries (429), or null for any other error: what was counted — the form's
+ * own words, else the server's ("Too many e-mail change requests from your account") — and the
+ * wait from Retry-After in words. Every form words it through here.
+ */
+export function tooManyProblem(error: unknown, counted?: string): string | null {
+  if (!(error instanceof ApiError) || error.status !== 429) return null;
+  const what = counted ?? /^Too many [^.]+/.exec(error.message)?.[0] ?? 'Too many tries';
+  const wait = error.retryAfterSeconds === undefined ? 'a few minutes' : formatWait(error.retryAfterSeconds);
+  return `${what}. Please wait ${wait}, then try again.`;
+}

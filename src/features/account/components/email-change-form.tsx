@@ -4,19 +4,16 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import type { z } from 'zod';
 import { emailChangeSchema } from '#shared/schemas/account';
 import type { EmailChangeInput } from '#shared/schemas/account';
-import { ApiError } from '@/lib/api-client';
 import { applyServerFieldErrors } from '@/lib/form-errors';
-import { formatWait } from '@/lib/format';
+import { tooManyProblem } from '@/lib/problems';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { TextField } from '@/components/ui/text-field';
 import { useRequestEmailChange } from '@/features/account/api/request-email-change';
 
 function problemOf(error: unknown): string {
-  if (error instanceof ApiError && error.status === 429 && error.retryAfterSeconds !== undefined) {
-    return `Too many wrong passwords. Please wait ${formatWait(error.retryAfterSeconds)}, then try again.`;
-  }
-  return error instanceof Error ? error.message : 'Not sent.';
+  // Two limits can refuse it (wrong passwords, too many changes): the server says which.
+  return tooManyProblem(error) ?? (error instanceof Error ? error.message : 'Not sent.');
 }
 
 /** The address changes only when the link mailed to the new address is opened. */

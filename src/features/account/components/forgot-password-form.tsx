@@ -6,7 +6,7 @@ import { passwordResetRequestSchema } from '#shared/schemas/account';
 import type { PasswordResetRequestInput } from '#shared/schemas/account';
 import { ApiError } from '@/lib/api-client';
 import { applyServerFieldErrors } from '@/lib/form-errors';
-import { formatWait } from '@/lib/format';
+import { tooManyProblem } from '@/lib/problems';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { TextField } from '@/components/ui/text-field';
@@ -14,10 +14,7 @@ import { useRequestPasswordReset } from '@/features/account/api/request-password
 
 function problemOf(error: unknown): string {
   if (!(error instanceof ApiError)) return 'Something went wrong while sending the link. Please try again.';
-  if (error.status === 429 && error.retryAfterSeconds !== undefined) {
-    return `Too many requests. Please wait ${formatWait(error.retryAfterSeconds)}, then try again.`;
-  }
-  return error.message;
+  return tooManyProblem(error, 'Too many reset requests') ?? error.message;
 }
 
 /** `onSent` gets the address; the page then says the same whether or not it has an account. */

@@ -4,10 +4,9 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import type { z } from 'zod';
 import { passwordChangeSchema } from '#shared/schemas/account';
 import type { PasswordChangeInput } from '#shared/schemas/account';
-import { ApiError } from '@/lib/api-client';
 import { applyServerFieldErrors } from '@/lib/form-errors';
+import { tooManyProblem } from '@/lib/problems';
 import { countOf } from '#shared/format/count-words';
-import { formatWait } from '@/lib/format';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { TextField } from '@/components/ui/text-field';
@@ -15,10 +14,7 @@ import { useChangePassword } from '@/features/account/api/change-password';
 import { PASSWORD_HINT } from '@/features/account/components/new-password-form';
 
 function problemOf(error: unknown): string {
-  if (error instanceof ApiError && error.status === 429 && error.retryAfterSeconds !== undefined) {
-    return `Too many wrong passwords. Please wait ${formatWait(error.retryAfterSeconds)}, then try again.`;
-  }
-  return error instanceof Error ? error.message : 'Not saved.';
+  return tooManyProblem(error, 'Too many wrong passwords') ?? (error instanceof Error ? error.message : 'Not saved.');
 }
 
 export function PasswordChangeForm() {

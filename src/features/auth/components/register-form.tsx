@@ -6,7 +6,7 @@ import { registerSchema } from '#shared/schemas/auth';
 import type { RegisterInput } from '#shared/schemas/auth';
 import { ApiError } from '@/lib/api-client';
 import { applyServerFieldErrors } from '@/lib/form-errors';
-import { formatWait } from '@/lib/format';
+import { tooManyProblem } from '@/lib/problems';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { TextField } from '@/components/ui/text-field';
@@ -16,10 +16,7 @@ const FIELDS = ['email', 'password', 'name', 'gardenName'] as const;
 
 function registerProblem(error: unknown): string {
   if (!(error instanceof ApiError)) return 'Something went wrong while creating your account. Please try again.';
-  if (error.status === 429 && error.retryAfterSeconds !== undefined) {
-    return `Too many attempts. Please wait ${formatWait(error.retryAfterSeconds)}, then try again.`;
-  }
-  return error.message;
+  return tooManyProblem(error, 'Too many sign-ups') ?? error.message;
 }
 
 /** `onRegistered` gets the address the link went to; no account exists until that link is used. */

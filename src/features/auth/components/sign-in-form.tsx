@@ -6,7 +6,7 @@ import { loginSchema } from '#shared/schemas/auth';
 import type { LoginInput } from '#shared/schemas/auth';
 import { ApiError } from '@/lib/api-client';
 import { applyServerFieldErrors } from '@/lib/form-errors';
-import { formatWait } from '@/lib/format';
+import { tooManyProblem } from '@/lib/problems';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { TextField } from '@/components/ui/text-field';
@@ -15,13 +15,7 @@ import { useLogin } from '@/features/auth/api/login';
 function signInProblem(error: unknown): string {
   if (!(error instanceof ApiError)) return 'Something went wrong while signing in. Please try again.';
   if (error.status === 401) return error.message || 'E-mail or password is incorrect.';
-  if (error.status === 429) {
-    const wait = error.retryAfterSeconds;
-    return wait === undefined
-      ? 'Too many sign-in attempts. Please wait a few minutes, then try again.'
-      : `Too many sign-in attempts. Please wait ${formatWait(wait)}, then try again.`;
-  }
-  return error.message;
+  return tooManyProblem(error, 'Too many sign-in attempts') ?? error.message;
 }
 
 export function SignInForm({ onSignedIn }: { onSignedIn: () => void }) {
