@@ -1,7 +1,10 @@
 import { describe, expect, it } from 'vitest';
 import { testDb } from '../helpers/test-app';
-import { seedDemo } from '../../server/db/seeders/demo';
-import { Bed, GerminationTest, Planting, PlantingLog, SeedLot, Variety } from '../../server/db/models';
+import { createGarden, createUser } from '../helpers/factories';
+import { DEMO_GARDENS, DEMO_USERS, seedDemo } from '../../server/db/seeders/demo';
+import { seedGardenRecords } from '../../server/db/seeders/demo-records';
+import { Bed, Garden, GerminationTest, Membership, Planting, PlantingLog, SeedLot, User, Variety } from '../../server/db/models';
+import { localDate } from '../../server/lib/local-date';
 
 async function counts(gardenIds: number[]) {
   const where = { gardenId: gardenIds };
@@ -16,12 +19,33 @@ async function counts(gardenIds: number[]) {
 }
 
 describe('demo garden records', () => {
-  it('when the demo is seeded twice, then nothing is duplicated and both hemispheres have a full history', async () => {
+  it('when the demo is seeded twice, then its accounts, gardens and memberships are not duplicated', async () => {
     const { sequelize } = testDb();
-    const { gardens } = await seedDemo(sequelize);
+    await seedDemo(sequelize);
+    await seedDemo(sequelize);
+    const users = await User.findAll({ where: { email: DEMO_USERS.map((u) => u.email) } });
+    expect(users).toHaveLength(DEMO_USERS.length);
+    const coordinator = users.find((u) => u.email === DEMO_USERS[0].email)!;
+    const owned = await Membership.findAll({ where: { userId: coordinator.id, role: 'owner' } });
+    const gardens = await Garden.findAll({ where: { id: owned.map((m) => m.gardenId), name: DEMO_GARDENS.map((g) => g.name) } });
+    expect(gardens.map((g) => g.name).sort()).toEqual(DEMO_GARDENS.map((g) => g.name).sort());
+    expect(await Membership.count({ where: { gardenId: gardens.map((g) => g.id), userId: users.map((u) => u.id) } })).toBe(DEMO_USERS.length * DEMO_GARDENS.length);
+  });
+
+  // The records are laid out into copies of the demo gardens (same places), because the browser
+  // tests add their own beds and plantings to the demo gardens while this file runs.
+  it('when a garden’s records are seeded twice, then nothing is duplicated and both hemispheres have a full history', async () => {
+    const { sequelize } = testDb();
+    const users = [await createUser(), await createUser(), await createUser()];
+    const gardens = [];
+    for (const demo of DEMO_GARDENS) gardens.push(await createGarden({ name: `Copy of ${demo.name} ${gardens.length}-${Date.now()}`, latitude: demo.latitude, longitude: demo.longitude, timeZone: demo.timeZone }));
+    const seed = () => sequelize.transaction(async (t) => {
+      for (const g of gardens) await seedGardenRecords(g, users, localDate(g.timeZone), t);
+    });
+    await seed();
     const ids = gardens.map((g) => g.id);
     const first = await counts(ids);
-    await seedDemo(sequelize);
+    await seed();
     expect(await counts(ids)).toEqual(first);
 
     for (const garden of gardens) {
