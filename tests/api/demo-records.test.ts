@@ -37,7 +37,7 @@ describe('demo garden records', () => {
   it('when a garden’s records are seeded twice, then nothing is duplicated and both hemispheres have a full history', async () => {
     const { sequelize } = testDb();
     const users = [await createUser(), await createUser(), await createUser()];
-    const gardens = [];
+    const gardens: Garden[] = [];
     for (const demo of DEMO_GARDENS) gardens.push(await createGarden({ name: `Copy of ${demo.name} ${gardens.length}-${Date.now()}`, latitude: demo.latitude, longitude: demo.longitude, timeZone: demo.timeZone }));
     const seed = () => sequelize.transaction(async (t) => {
       for (const g of gardens) await seedGardenRecords(g, users, localDate(g.timeZone), t);
