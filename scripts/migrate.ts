@@ -5,7 +5,7 @@
 import { loadConfig } from '../server/config';
 import { createSequelize } from '../server/db/sequelize';
 import { initModels } from '../server/db/models';
-import { migrate } from '../server/db/migrate';
+import { migrate, retryOnConflict } from '../server/db/migrate';
 import { databaseIsEmpty, demoAlreadySeeded, seedDemo } from '../server/db/seeders/demo';
 import { createLogger } from '../server/lib/logger';
 import { createWeatherService } from '../server/app';
@@ -36,8 +36,9 @@ try {
     // Alerts from that weather, and today's digest for each demo member: the server sends them on start.
     const alerts = new AlertService(sequelize, weather, new ProgressService(sequelize, weather));
     alerts.mail = { enqueue: enqueueAlertMail, afterCommit: () => undefined };
-    for (const garden of gardens) await alerts.evaluate(garden.id);
-    const digests = await enqueueDigests(sequelize, new Date(), { onlyGardens: gardens.map((g) => g.id), anyHour: true });
+    // Instances starting together (on several Galera nodes) may conflict here: each step is idempotent and retried.
+    for (const garden of gardens) await retryOnConflict(() => alerts.evaluate(garden.id));
+    const digests = await retryOnConflict(() => enqueueDigests(sequelize, new Date(), { onlyGardens: gardens.map((g) => g.id), anyHour: true }));
     console.log(`[db] demo alerts evaluated; ${digests} digest${digests === 1 ? '' : 's'} queued for the local mailbox`);
   }
 } finally {

@@ -1,13 +1,17 @@
-import { describe, expect, it } from 'vitest';
+import { afterAll, describe, expect, it } from 'vitest';
 import { QueryTypes } from 'sequelize';
 import type { Transaction } from 'sequelize';
 import { testDb } from '../helpers/test-app';
 import { createGarden } from '../helpers/factories';
 import { makeBed } from '../helpers/garden-records';
 import { inTransaction, isRetryable } from '../../server/lib/transaction';
+import { createSequelize } from '../../server/db/sequelize';
 import { Bed } from '../../server/db/models';
 
-const { sequelize } = testDb();
+// Two transactions at once need two connections, whatever DB_POOL_MAX the suite runs with.
+const { config } = testDb();
+const sequelize = createSequelize({ ...config.db, poolMax: Math.max(2, config.db.poolMax) });
+afterAll(() => sequelize.close());
 
 /** A promise with its resolve, to line two transactions up. */
 function signal() {
