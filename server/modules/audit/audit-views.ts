@@ -2,6 +2,7 @@
  * What the trail keeps of each audited record: its fields as a grower knows them (a planting's
  * bed and variety by name rather than by id), and the words that name it in a summary.
  */
+import { varietyFields } from '../varieties/varieties.presenter';
 import type { Bed, Garden, GerminationTest, Planting, SeedLot, Variety } from '../../db/models';
 
 /** A planting read with its bed, variety and seed lot (plantingIncludes). */
@@ -31,26 +32,9 @@ export function plantingSubject(p: Planting): string {
   return `${p.variety?.name ?? 'a planting'} in ${p.bed?.name ?? 'its bed'}`;
 }
 
+/** What the trail keeps of a variety: its stored packet facts, as the variety's presenter reads them. */
 export function varietyView(v: Variety): Record<string, unknown> {
-  return {
-    cropKey: v.cropKey,
-    name: v.name,
-    dtmDays: v.dtmDays,
-    dtmFrom: v.dtmFrom,
-    emergenceDaysMin: v.emergenceDaysMin,
-    emergenceDaysMax: v.emergenceDaysMax,
-    boltTolerance: v.boltTolerance,
-    heatTolerance: v.heatTolerance,
-    traits: v.traits,
-    containerFriendly: v.containerFriendly,
-    sunHours: v.sunHours,
-    waterCmPerWeek: v.waterCmPerWeek,
-    sowDepthCm: v.sowDepthCm,
-    spacingCm: v.spacingCm,
-    thinSpacingCm: v.thinSpacingCm,
-    gddTargetOverrideC: v.gddTargetOverrideC,
-    notes: v.notes,
-  };
+  return { ...varietyFields(v) };
 }
 export const VARIETY_FIELDS = Object.keys(varietyView({} as Variety));
 
