@@ -15,6 +15,7 @@ import { createApp, createWeatherService } from '../server/app';
 import { startFakeWeather } from '../fixtures/weather/server';
 import { addDays } from '#shared/thermal/dates';
 import type { Worker } from '../server/jobs/worker';
+import { figure } from './bench-figures';
 
 const GARDENS = 200;
 const PER_GARDEN = 25;
@@ -98,5 +99,8 @@ console.log(
     `(${((q1 - q0 - 1) / GARDENS).toFixed(1)} per garden, ${((q1 - q0 - 1) / plantings).toFixed(2)} per planting), ` +
     `peak RSS ${(peakRss / 1024 / 1024).toFixed(0)} MB, ${alerts} open alerts`,
 );
+figure('alerts', `evaluation of ${GARDENS * PER_GARDEN} growing plantings in ${GARDENS} gardens after a night (target < 10 s)`, ms / 1000, 's');
+figure('alerts', 'database statements per garden', (q1 - q0 - 1) / GARDENS, 'statements');
+figure('alerts', 'peak RSS of the evaluation', peakRss / 2 ** 20, 'MB');
 fake.close();
 await sequelize.close();

@@ -27,6 +27,7 @@ import { createApp, createWeatherService } from '../server/app';
 import { addDays } from '#shared/thermal/dates';
 import { seasonOf, seasonOfYear } from '#shared/thermal/season';
 import { seasonYearOf } from '../server/db/planting-season';
+import { figure } from './bench-figures';
 
 const SECONDS = Number(process.env.BENCH_SECONDS ?? 30);
 const RUNS = Number(process.env.BENCH_RUNS ?? 3);
@@ -275,12 +276,22 @@ try {
   const seqCompare: number[] = [];
   const samples = new Map<string, Sample[]>(endpoints.map((e) => [e.name, []]));
   for (let run = 0; run < RUNS; run++) {
+    let healthOfRun = 0;
     for (const e of endpoints) {
-      samples.get(e.name)!.push(await sample(e.url, cookie, e.vary));
+      const got = await sample(e.url, cookie, e.vary);
+      samples.get(e.name)!.push(got);
+      if (e.name === '/api/health') healthOfRun = got.rps;
+      figure('api', `${e.name}: req/s`, got.rps, 'req/s', 'higher');
+      figure('api', `${e.name}: p50`, got.p50, 'ms');
+      figure('api', `${e.name}: p99`, got.p99, 'ms');
+      figure('api', `${e.name}: errors`, got.errors, 'errors');
+      if (healthOfRun && e.name !== '/api/health') figure('api ratio', `${e.name} ÷ health, req/s`, got.rps / healthOfRun, '×', 'higher');
       process.stdout.write('.');
     }
     if (first.plan) seqPlan.push(median(await sequential(base, cookie, 30, planPath)));
     if (first.compare) seqCompare.push(median(await sequential(base, cookie, 10, comparePath)));
+    if (first.plan) figure('api', 'plan, sequential read-cache misses, p50 of 30', seqPlan.at(-1)!, 'ms');
+    if (first.compare) figure('api', 'compare, sequential read-cache misses over stored progress, p50 of 10', seqCompare.at(-1)!, 'ms');
   }
   console.log();
   const misses = [
@@ -310,6 +321,8 @@ try {
     const before = rssOf(server);
     const over = await load(`${g(ids.home)}/today`, cookie, 200, 20);
     const after = rssOf(server);
+    figure('api', '200 connections on Today (demo garden): req/s', Math.round(over.requests.average), 'req/s', 'higher');
+    figure('api', '200 connections on Today (demo garden): p99', over.latency.p99, 'ms');
     const codes = Object.entries(over.statusCodeStats ?? {}).map(([code, v]) => `${code}: ${(v as { count: number }).count}`).join(', ');
     const overload = `200 connections × 20 s on Today (demo garden): ${Math.round(over.requests.average)} req/s, p50 ${over.latency.p50} ms, p99 ${over.latency.p99} ms; status codes ${codes}; socket errors ${over.errors}, timeouts ${over.timeouts}; server RSS ${before} MB before, ${after} MB after.`;
 
@@ -318,7 +331,12 @@ try {
     if (existsSync(clientBench)) {
       const { benchClient, clientTable } = (await import(clientBench)) as { benchClient: (b: string) => Promise<unknown>; clientTable: (r: unknown) => string };
       try {
-        client = `\n### Client (headless Chromium, loopback)\n\n${clientTable(await benchClient(base))}\n`;
+        const figures = (await benchClient(base)) as { todayFirstContentRunsMs: number[]; todayFirstContentSlow4gRunsMs: number[]; today: { total: number; withoutCharts: number }; signIn: { total: number } };
+        for (const ms of figures.todayFirstContentRunsMs) figure('client', "Today's first content, cold load on loopback", ms, 'ms');
+        for (const ms of figures.todayFirstContentSlow4gRunsMs) figure('client', "Today's first content, cold load on slow 4G (150 ms, 1.6 Mbit/s)", ms, 'ms');
+        figure('client', 'JS transferred for Today, without chart chunks', figures.today.withoutCharts / 1000, 'kB');
+        figure('client', 'JS transferred for /sign-in', figures.signIn.total / 1000, 'kB');
+        client = `\n### Client (headless Chromium, loopback)\n\n${clientTable(figures)}\n`;
       } catch (err) {
         client = `\nClient figures could not be taken: ${(err as Error).message}\n`;
       }
@@ -327,8 +345,14 @@ try {
     const machine = `${os.cpus().length} × ${os.cpus()[0]?.model ?? 'CPU'}, ${Math.round(os.totalmem() / 2 ** 30)} GiB, Node ${process.version}`;
     const report = `\n## bench:api — ${new Date().toISOString().slice(0, 16).replace('T', ' ')} UTC\n\n${machine}. ${CONNECTIONS} connections, ${SECONDS} s per endpoint, median of ${RUNS} runs (min–max), production build, one Node process, signed in as the demo grower (health unauthenticated).\n\n${table}\n\nFirst (uncached) reads: Today of the demo garden ${cold!.todayDemo.ms} ms, Today of the ${BIG_COUNT}-planting garden ${cold!.todayBig.ms} ms, one planting's progress ${cold!.progress.ms} ms. ${misses} Evaluating the ${BIG_COUNT}-planting garden's alerts ${ids.evaluateBig} ms.\n\n${overload}\n${client}`;
     console.log(report);
-    mkdirSync(path.join(projectRoot, 'docs'), { recursive: true });
-    appendFileSync(path.join(projectRoot, 'docs', 'benchmarks.md'), report);
+    figure('api', 'first read of Today (demo garden)', cold!.todayDemo.ms, 'ms');
+    figure('api', `first read of Today (${BIG_COUNT} plantings)`, cold!.todayBig.ms, 'ms');
+    figure('api', `alert evaluation of the ${BIG_COUNT}-planting garden`, ids.evaluateBig, 'ms');
+    // Under npm run bench (BENCH_FIGURES) the report is written by scripts/bench.ts instead.
+    if (!process.env.BENCH_FIGURES) {
+      mkdirSync(path.join(projectRoot, 'docs'), { recursive: true });
+      appendFileSync(path.join(projectRoot, 'docs', 'benchmarks.md'), report);
+    }
   }
 } finally {
   const exited = new Promise((resolve) => server.once('exit', resolve));

@@ -10,6 +10,7 @@ import {
   sowingWindowSweep,
 } from '#shared/thermal/index';
 import type { DailyTemp, DegreeDayMethodName } from '#shared/thermal/index';
+import { figure } from './bench-figures';
 
 function seeded(seed: number): () => number {
   let a = seed;
@@ -63,12 +64,14 @@ for (const method of methods) {
     for (const [tx, tn, next] of pairs) sink += dailyDegreeDays(tx, tn, { base: 10, upper: 30, method, cutoff: 'intermediate', tminNext: next });
   }, 15, 5, 20);
   console.log(`  ${method.padEnd(16)} ${fmt((ms * 1e6) / pairs.length, 1)} ns`);
+  figure('engine', `daily degree days, ${method}`, (ms * 1e6) / pairs.length, 'ns');
 }
 
 const season = weather('2024-01-01', 365, 7);
 const method = { base: 4.4, upper: 30, method: 'double-sine' as const, cutoff: 'horizontal' as const };
 const accMs = time(() => (sink += accumulateDegreeDays(season, method, { start: '2024-01-01' }).total), 30, 5);
 console.log(`accumulate a 365-day season (double sine): ${fmt(accMs)} ms`);
+figure('engine', 'accumulate a 365-day season (double sine)', accMs, 'ms');
 
 const history = weather('1995-01-01', 365 * 30 + 8, 2024);
 const triggers = { heatThresholdC: 27, heatStreakDays: 3, criticalPhotoperiodH: 14 };
@@ -91,4 +94,8 @@ console.log(`  prepare (dense series, degree days, prefix sums, bolt flags, fros
 console.log(`  sweep (365 candidates): ${fmt(sweepMs)} ms`);
 console.log(`  prepare + sweep: ${fmt(prepMs + sweepMs)} ms`);
 console.log(`  ratio sweep / read: ${fmt(sweepMs / readMs, 1)}×; (prepare + sweep) / read: ${fmt((prepMs + sweepMs) / readMs, 1)}×`);
+figure('engine', 'read a 30-year history once', readMs, 'ms');
+figure('engine', 'sowing-window sweep, 365 dates × 30 years (target < 20 ms)', sweepMs, 'ms');
+figure('engine', 'sweep-preparation of 30 years', prepMs, 'ms');
+figure('engine', 'ratio sweep ÷ read (target ≤ 10×)', sweepMs / readMs, '×');
 if (Number.isNaN(sink)) console.log('unreachable');

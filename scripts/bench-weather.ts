@@ -11,6 +11,7 @@ import { createLogger } from '../server/lib/logger';
 import { createWeatherService } from '../server/app';
 import { startFakeWeather } from '../fixtures/weather/server';
 import { fakeWeather } from '../fixtures/weather/control';
+import { figure } from './bench-figures';
 
 const GARDENS = 1000;
 const CELLS = 200;
@@ -60,12 +61,16 @@ async function measured(label: string) {
     `${label}: ${(ms / 1000).toFixed(2)} s wall, ${fakeWeather.requests.length} requests for ${cells} cells / ${GARDENS} gardens, ` +
       `${run.cellsOk} cells ok, ${run.cellsFailed} failed, ${run.daysWritten} days written, peak RSS ${mb(peakRss)} MB, peak heap ${mb(peakHeap)} MB`,
   );
-  return { ms, requests: fakeWeather.requests.length };
+  return { ms, requests: fakeWeather.requests.length, peakRss };
 }
 
 console.log(`bench:weather — ${GARDENS} gardens in ${cells} cells, fake service latency ${LATENCY_MS} ms, concurrency ${config.weather.concurrency}`);
-await measured('first night (92 past days + 16-day forecast per cell)');
+const firstNight = await measured('first night (92 past days + 16-day forecast per cell)');
 const night = await measured('nightly run (yesterday + forecast)');
+figure('weather', `first night, ${GARDENS} gardens in ${cells} cells (50 ms fake latency)`, firstNight.ms / 1000, 's');
+figure('weather', `nightly run, ${GARDENS} gardens in ${cells} cells (target < 30 s)`, night.ms / 1000, 's');
+figure('weather', 'requests per cell in the nightly run (target 1.00)', night.requests / Number(cells), 'requests');
+figure('weather', 'peak RSS of the nightly run', night.peakRss / 2 ** 20, 'MB');
 console.log(`requests per cell: ${(night.requests / Number(cells)).toFixed(2)} (target 1.00); target wall time < 30 s: ${night.ms < 30_000 ? 'met' : 'NOT met'}`);
 fake.close();
 await sequelize.close();

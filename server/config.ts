@@ -124,9 +124,8 @@ export interface MailConfig {
   appUrl: string;
 }
 
-/** Values written by scripts/db.sh for the project's own MariaDB; real environment variables win. */
-function readLocalDbEnv(): Record<string, string> {
-  const file = path.join(projectRoot, '.data', 'db.env');
+/** KEY=value lines of a file our scripts write (.data/db.env, .cluster/cluster.env); {} when it is missing. */
+export function readEnvFile(file: string): Record<string, string> {
   if (!existsSync(file)) return {};
   const out: Record<string, string> = {};
   for (const line of readFileSync(file, 'utf8').split('\n')) {
@@ -134,6 +133,11 @@ function readLocalDbEnv(): Record<string, string> {
     if (m) out[m[1]] = m[2];
   }
   return out;
+}
+
+/** Values written by scripts/db.sh for the project's own MariaDB; real environment variables win. */
+function readLocalDbEnv(): Record<string, string> {
+  return readEnvFile(path.join(projectRoot, '.data', 'db.env'));
 }
 
 /** A stable secret for local runs, kept out of git; production must set SESSION_SECRET. */

@@ -114,8 +114,16 @@ export function loggablePath(path: string): string {
 }
 
 export function errorHandler(logger: Logger): ErrorRequestHandler {
-  return (err, req, res, _next) => {
+  return (err, req, res, next) => {
     const requestId = res.locals.requestId as string | undefined;
+    // An error after the answer went out: the session's rolling touch runs at res.end and fails when
+    // the database is down. The answer already said so; log it and keep the connection for the next
+    // request. Only an answer cut off part-way is handed to Express, which closes the connection.
+    if (res.headersSent) {
+      logger.warn('error after the response was sent', { requestId, method: req.method, path: loggablePath(req.path), error: err instanceof Error ? err.message : String(err) });
+      if (!res.writableEnded) next(err);
+      return;
+    }
     let appErr: AppError;
     const bp = err as BodyParserError;
     if (err instanceof AppError) appErr = err;

@@ -9,7 +9,7 @@
  *                  prints {"gardenIds":[…]}
  *   alerts <ids>   waits until START_AT, evaluates those gardens' alerts (mail queued in the same
  *                  transaction, as the app does), then drains the outbox through its own sender to
- *                  its own fake SMTP; prints {"evaluated":n,"opened":n,"retried":n}
+ *                  its own fake SMTP; prints {"evaluated":n,"opened":n,"retried":n,"ms":…,"endedAt":…}
  * The last line of stdout is the JSON answer.
  */
 import { randomBytes } from 'node:crypto';
@@ -55,8 +55,10 @@ async function nightly() {
   fakeWeather.latencyMs = 40;
   const startAt = Number(process.env.START_AT ?? 0);
   if (startAt > Date.now()) await new Promise((r) => setTimeout(r, startAt - Date.now()));
+  const begun = Date.now();
   const run = await weather.runRefresh({ kind: 'nightly' });
   await weather.idle();
+  const endedAt = Date.now();
   fake.close();
   const fetched = fakeWeather.requests
     .map((r) => new URL(r.url))
@@ -66,7 +68,7 @@ async function nightly() {
     replacements: [run.runId],
     type: QueryTypes.SELECT,
   });
-  return { run, row, fetched };
+  return { run, row, fetched, ms: endedAt - begun, begunAt: begun, endedAt };
 }
 
 async function alertsSetup() {
@@ -104,10 +106,12 @@ async function alerts(gardenIds: number[]) {
   let retried = 0;
   let opened = 0;
   // As the event worker would: an evaluation that lost a conflict is run again (it is idempotent).
+  const begun = Date.now();
   for (const id of gardenIds) opened += (await retryOnConflict(() => service.evaluate(id), { onRetry: () => retried++ })).opened;
   await sender.drain();
+  const endedAt = Date.now();
   await smtp.close();
-  return { evaluated: gardenIds.length, opened, retried };
+  return { evaluated: gardenIds.length, opened, retried, ms: endedAt - begun, begunAt: begun, endedAt };
 }
 
 const [mode, arg] = process.argv.slice(2);

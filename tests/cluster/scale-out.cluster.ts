@@ -19,6 +19,7 @@ import { fileURLToPath } from 'node:url';
 import mariadb from 'mariadb';
 import type { Sequelize } from 'sequelize';
 import { createSequelize } from '../../server/db/sequelize';
+import { readEnvFile } from '../../server/config';
 import { isConflict, retryOnConflict, withClusterLock } from '../../server/db/migrate';
 
 const root = fileURLToPath(new URL('../..', import.meta.url));
@@ -51,15 +52,6 @@ const runStarted = Date.now();
 
 function cluster(cmd: string) {
   return execFileSync('bash', [clusterSh, cmd], { cwd: root, encoding: 'utf8', stdio: ['ignore', 'pipe', 'pipe'], timeout: 120_000 });
-}
-
-function readEnv(file: string): Record<string, string> {
-  const out: Record<string, string> = {};
-  for (const line of readFileSync(file, 'utf8').split('\n')) {
-    const m = /^([A-Z_]+)=(.*)$/.exec(line.trim());
-    if (m) out[m[1]] = m[2];
-  }
-  return out;
 }
 
 async function freePort(): Promise<number> {
@@ -191,6 +183,9 @@ process.once('SIGTERM', () => {
 async function query<T>(port: number, sql: string, values: unknown[] = []): Promise<T[]> {
   const conn = await mariadb.createConnection({ host: '127.0.0.1', port, user: db.DB_USER, password: db.DB_PASSWORD, database: db.DB_NAME, connectTimeout: 3000, bigIntAsNumber: true });
   try {
+    // Galera certifies a commit on every node at once but applies it on the others a moment
+    // later: a read here waits until this node has applied everything committed before it.
+    await conn.query('SET SESSION wsrep_sync_wait = 1');
     return (await conn.query(sql, values)) as T[];
   } finally {
     await conn.end();
@@ -240,7 +235,7 @@ describe('three app instances on a three-node Galera cluster', () => {
     process.stdout.write(cluster('start'));
     clusterStartMs = Date.now() - t0;
     mkdirSync(logDir, { recursive: true });
-    db = readEnv(path.join(clusterDir, 'cluster.env'));
+    db = readEnvFile(path.join(clusterDir, 'cluster.env'));
     const ports = db.CLUSTER_PORTS.split(',').map(Number);
     for (let n = 1; n <= INSTANCES; n++) {
       instances.push({
@@ -463,7 +458,7 @@ describe('three app instances on a three-node Galera cluster', () => {
       );
       process.stdout.write(`[cluster test] alerts on 3 instances: opened ${results.map((r) => r.opened).join('/')}, conflicts retried ${results.map((r) => r.retried).join('/')}\n`);
       const ids = gardenIds.join(',');
-      // Every node is written by the time each process has committed: read the slowest, then all.
+      // Each node is read with causal reads (see query): what any process committed is there.
       for (const inst of instances) {
         const alerts = await query<{ id: number; k: string }>(inst.dbPort, `SELECT id, CONCAT(garden_id, ':', subject_key, ':', type, ':', first_on) AS k FROM alerts WHERE garden_id IN (${ids})`);
         expect(alerts.length, 'the demo gardens have alerts to make').toBeGreaterThan(0);

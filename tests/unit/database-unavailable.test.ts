@@ -1,3 +1,5 @@
+import http from 'node:http';
+import type { AddressInfo } from 'node:net';
 import { describe, expect, it } from 'vitest';
 import express from 'express';
 import request from 'supertest';
@@ -40,5 +42,38 @@ describe('a database node that cannot serve right now', () => {
     expect(loadConfig({ NODE_ENV: 'development' }).db.queryTimeoutMs).toBe(8000);
     expect(loadConfig({ NODE_ENV: 'development', DB_QUERY_TIMEOUT_MS: '0' }).db.queryTimeoutMs).toBe(0);
     expect(() => loadConfig({ DB_QUERY_TIMEOUT_MS: 'soon' })).toThrow(/DB_QUERY_TIMEOUT_MS/);
+  });
+
+  it('when an error comes after the answer was sent (the session touch at res.end failing), then it is logged and the kept-alive connection serves the next request', async () => {
+    const { logger, lines } = createCapturingLogger('warn');
+    const app = express();
+    app.get('/x', (_req, res, next) => {
+      res.status(503).json({ error: { code: 'database_unavailable' } });
+      setImmediate(() => next(driverError(1969)));
+    });
+    app.use(errorHandler(logger));
+    const server = http.createServer(app).listen(0, '127.0.0.1');
+    await new Promise((r) => server.once('listening', r));
+    const agent = new http.Agent({ keepAlive: true, maxSockets: 1 });
+    const sockets = new Set<unknown>();
+    const get = () =>
+      new Promise<number>((resolve, reject) => {
+        const req = http.get({ host: '127.0.0.1', port: (server.address() as AddressInfo).port, path: '/x', agent }, (res) => {
+          sockets.add(req.socket);
+          res.resume();
+          res.on('end', () => resolve(res.statusCode ?? 0));
+        });
+        req.on('error', reject);
+      });
+    try {
+      expect(await get()).toBe(503);
+      await new Promise((r) => setTimeout(r, 50));
+      expect(await get()).toBe(503);
+      expect(sockets.size).toBe(1);
+      expect(lines.some((l) => l.includes('error after the response was sent'))).toBe(true);
+    } finally {
+      agent.destroy();
+      server.close();
+    }
   });
 });
