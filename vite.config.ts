@@ -4,6 +4,7 @@ import type { Plugin } from 'vite';
 import react from '@vitejs/plugin-react';
 import tailwindcss from '@tailwindcss/vite';
 import { compression } from 'vite-plugin-compression2';
+import { VitePWA } from 'vite-plugin-pwa';
 
 const dir = (p: string) => fileURLToPath(new URL(p, import.meta.url));
 
@@ -59,6 +60,58 @@ export default defineConfig({
     react(),
     tailwindcss(),
     preloadLatinFont(),
+    VitePWA({
+      // A new build takes over at once: the shell is hashed files, and an old worker left waiting
+      // would serve a shell whose chunks the server no longer has. Nothing here holds unsaved
+      // work that a reload would lose (drafts and the queue live in storage).
+      registerType: 'autoUpdate',
+      injectRegister: false,
+      includeAssets: ['favicon.svg'],
+      manifest: {
+        name: 'Heatclock',
+        short_name: 'Heatclock',
+        description: 'Growing degree days, maturity windows and bolt warnings for your garden.',
+        theme_color: '#f6efe0',
+        background_color: '#f6efe0',
+        display: 'standalone',
+        start_url: '/',
+        scope: '/',
+        icons: [
+          { src: '/icon-192.png', sizes: '192x192', type: 'image/png', purpose: 'any' },
+          { src: '/icon-512.png', sizes: '512x512', type: 'image/png', purpose: 'any' },
+          { src: '/icon-maskable-192.png', sizes: '192x192', type: 'image/png', purpose: 'maskable' },
+          { src: '/icon-maskable-512.png', sizes: '512x512', type: 'image/png', purpose: 'maskable' },
+        ],
+      },
+      workbox: {
+        // The shell only: the pre-compressed copies are the server's business, not the cache's.
+        globPatterns: ['**/*.{js,css,html,woff2,svg,png}'],
+        globIgnores: ['**/*.br', '**/*.gz'],
+        navigateFallback: '/index.html',
+        navigateFallbackDenylist: [/^\/api\//],
+        cleanupOutdatedCaches: true,
+        runtimeCaching: [
+          {
+            // The GET answers Today, Plantings and a planting's page are drawn from, plus who is
+            // signed in and their gardens (the frame cannot open without them). No account,
+            // session, mail or export answer, and no write. Inline: workbox copies this function
+            // into sw.js as text. Sign-out deletes the cache (src/lib/offline-queue.ts).
+            urlPattern: ({ url, sameOrigin }) =>
+              sameOrigin &&
+              /^\/api\/(auth\/me|gardens|gardens\/\d+(\/(today|alerts\/counts|plantings(\/\d+(\/(log|photos|progress))?)?))?)$/.test(url.pathname),
+            method: 'GET',
+            handler: 'NetworkFirst',
+            options: {
+              cacheName: 'heatclock-api',
+              networkTimeoutSeconds: 4,
+              // Only real answers: a 401 or 500 must never stand in for the last good page.
+              cacheableResponse: { statuses: [200] },
+              expiration: { maxEntries: 200, maxAgeSeconds: 14 * 24 * 60 * 60 },
+            },
+          },
+        ],
+      },
+    }),
     // .br and .gz beside each text file for the server to send as they are; fonts and images are compressed already.
     compression({ algorithms: ['brotliCompress', 'gzip'], include: /\.(js|css|svg|html)$/ }),
   ],
@@ -100,7 +153,9 @@ export default defineConfig({
     include: ['tests/**/*.test.{ts,tsx}', 'shared/**/*.test.ts'],
     globalSetup: ['tests/helpers/global-setup.ts'],
     setupFiles: ['tests/helpers/setup.ts'],
-    testTimeout: 20_000,
+    // A browser journey on a loaded 2-core machine (CI beside other work) took 20–25 s; the cap is
+    // for a hang, not a speed check.
+    testTimeout: 45_000,
     hookTimeout: 60_000,
     fileParallelism: true,
     pool: 'forks',

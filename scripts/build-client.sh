@@ -8,4 +8,7 @@ if [ -f "$stamp" ] && [ -z "$(find src shared index.html vite.config.ts package-
   exit 0
 fi
 echo "[build] building the client"
-npx vite build --logLevel warn
+# Always the production build, whatever NODE_ENV the caller runs under: npm test exports
+# NODE_ENV=test, and a build under it has import.meta.env.PROD false (no service worker, React's
+# development build), so the browser journeys would not be testing what growers get.
+NODE_ENV=production npx vite build --logLevel warn

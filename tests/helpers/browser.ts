@@ -34,8 +34,9 @@ export async function startBrowserSession() {
   });
   const offsite: string[] = [];
   const pageErrors: string[] = [];
-  async function newPage(width = 1280, height = 900): Promise<Page> {
-    const page = await browser.newPage({ viewport: { width, height } });
+  // Service workers answer requests page.route never sees: blocked unless a test is about them.
+  async function newPage(width = 1280, height = 900, { serviceWorkers = 'block' }: { serviceWorkers?: 'allow' | 'block' } = {}): Promise<Page> {
+    const page = await browser.newPage({ viewport: { width, height }, serviceWorkers });
     await page.route('**/*', (route) => {
       const url = new URL(route.request().url());
       if (url.hostname === '127.0.0.1' || url.protocol === 'data:' || url.protocol === 'blob:') return route.continue();

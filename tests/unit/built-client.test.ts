@@ -28,6 +28,14 @@ describe('the built client', () => {
     }
   });
 
+  it('when the shell is built, then it is the production build: it registers the service worker', () => {
+    // A build under NODE_ENV=test has import.meta.env.PROD false, which drops the registration
+    // (src/app/main.tsx); npm test exports NODE_ENV=test, so scripts/build-client.sh sets production.
+    const scripts = readdirSync(path.join(dist, 'assets')).filter((f) => f.endsWith('.js'));
+    expect(scripts.filter((f) => readFileSync(path.join(dist, 'assets', f), 'utf8').includes('/sw.js'))).toHaveLength(1);
+    expect(existsSync(path.join(dist, 'sw.js'))).toBe(true);
+  });
+
   it('when assets are built, then every script and stylesheet of 1 kB or more has a brotli and a gzip copy beside it', () => {
     // Below 1 kB a compressed copy can come out larger than the file, and the plugin rightly skips it
     // (the server compresses nothing under 1 kB either: server/app.ts).

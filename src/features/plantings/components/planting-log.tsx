@@ -8,6 +8,7 @@ import { LoadProblem } from '@/components/ui/load-problem';
 import { useDeleteLogEntry } from '@/features/plantings/api/delete-log-entry';
 import { usePlantingLog } from '@/features/plantings/api/get-planting-log';
 import { formatFullDate } from '@/lib/format';
+import { useQueuedItems } from '@/lib/offline-queue';
 import { formatHarvest } from '@/features/plantings/components/format-harvest';
 
 const ICONS: Record<LogKind, typeof Leaf> = {
@@ -61,7 +62,41 @@ function Entry({ gardenId, plantingId, entry: e, canEdit, system }: EntryProps) 
 }
 
 /** The planting's log, newest first; `system` is the garden's (harvest masses are shown in it). */
-export function PlantingLog({ gardenId, plantingId, canEdit, system }: Omit<EntryProps, 'entry'>) {
+export function PlantingLog(props: Omit<EntryProps, 'entry'>) {
+  return (
+    <div className="flex flex-col gap-3">
+      <WaitingEntries gardenId={props.gardenId} plantingId={props.plantingId} />
+      <SentLog {...props} />
+    </div>
+  );
+}
+
+/** Entries made with no signal, kept on this device until Heatclock has them (src/lib/offline-queue.ts). */
+function WaitingEntries({ gardenId, plantingId }: { gardenId: number; plantingId: number }) {
+  const items = useQueuedItems().filter((i) => i.gardenId === gardenId && i.plantingId === plantingId && i.kind === 'log');
+  if (!items.length) return null;
+  return (
+    <ol aria-label="Waiting to send" className="flex flex-col divide-y divide-line rounded-lg border border-dashed border-loam-soft bg-paper">
+      {items.map((i) => (
+        <li key={i.id} className="flex flex-col gap-0.5 px-4 py-3">
+          <span className="font-semibold">
+            {i.kind === 'log' ? (LOG_KIND_WORDS[i.body.kind as LogKind] ?? i.body.kind) : 'Photo'} · {i.kind === 'log' ? formatFullDate(i.body.entryOn) : ''}
+          </span>
+          {i.kind === 'log' && i.body.note && <span>{i.body.note}</span>}
+          <span className="text-sm text-loam-soft">
+            {i.status === 'sending'
+              ? 'Sending now…'
+              : i.status === 'waiting'
+                ? `Waiting to send — saved on this device at ${new Date(i.createdAt).toLocaleTimeString([], { hour: '2-digit', minute: '2-digit' })}`
+                : `Not sent: ${i.problem}`}
+          </span>
+        </li>
+      ))}
+    </ol>
+  );
+}
+
+function SentLog({ gardenId, plantingId, canEdit, system }: Omit<EntryProps, 'entry'>) {
   const log = usePlantingLog(gardenId, plantingId);
   if (log.isPending) return <Loading label="Loading the log…" />;
   if (log.isError) return <LoadProblem error={log.error} what="the log" onRetry={() => log.refetch()} retrying={log.isFetching} />;

@@ -1,7 +1,8 @@
-import { useId } from 'react';
+import { useId, useState } from 'react';
 import { useForm } from 'react-hook-form';
 import type { PhotoDto } from '#shared/schemas/plantings';
-import { ApiError } from '@/lib/api-client';
+import { ApiError, isNetworkError } from '@/lib/api-client';
+import { PhotoTooLargeError, enqueue, useQueuedItems } from '@/lib/offline-queue';
 import { mutationProblem } from '@/lib/problems';
 import { useSubmissionKey } from '@/lib/use-submission-key';
 import { ConfirmDelete } from '@/components/ui/confirm-delete';
@@ -57,9 +58,12 @@ function checkPhoto(files: FileList | null): true | string {
 }
 
 /** The picker looks and behaves like the station upload: the same file field and button, cleared once a photo is saved. */
-function PhotoUploadForm({ gardenId, plantingId }: { gardenId: number; plantingId: number }) {
+function PhotoUploadForm({ gardenId, plantingId, plantingName, today }: { gardenId: number; plantingId: number; plantingName: string; today: string }) {
   const id = useId();
   const upload = useUploadPhoto(gardenId, plantingId);
+  // With no signal the photo waits on this device (src/lib/offline-queue.ts) under the same key.
+  // Kept on the device, or why it could not be (too large to keep).
+  const [queued, setQueued] = useState<{ waiting: true } | { waiting: false; why: string } | null>(null);
   const submission = useSubmissionKey();
   const {
     register,
@@ -75,16 +79,26 @@ function PhotoUploadForm({ gardenId, plantingId }: { gardenId: number; plantingI
     const form = event?.target instanceof HTMLFormElement ? event.target : null;
     const caption = values.caption.trim();
     const idempotencyKey = submission.keyFor({ name: file.name, size: file.size, lastModified: file.lastModified, type: file.type, caption });
-    return upload.mutateAsync({ file, caption, idempotencyKey }).then(
-      () => {
-        submission.renew();
-        // The native reset empties the file picker itself; the form's state follows.
-        form?.reset();
-        reset();
-      },
-      // Shown from the mutation's own error below.
-      () => undefined,
-    );
+    const cleared = () => {
+      submission.renew();
+      // The native reset empties the file picker itself; the form's state follows.
+      form?.reset();
+      reset();
+    };
+    setQueued(null);
+    return upload.mutateAsync({ file, caption, idempotencyKey, takenOn: today }).then(cleared, (e: unknown) => {
+      // Any other refusal is shown from the mutation's own error below.
+      if (!isNetworkError(e)) return;
+      return enqueue({ id: idempotencyKey, kind: 'photo', gardenId, plantingId, plantingName, idempotencyKey, photo: file, caption, takenOn: today }).then(
+        () => {
+          upload.reset();
+          setQueued({ waiting: true });
+          cleared();
+        },
+        // A device that cannot keep it (no storage) leaves the upload's own error showing.
+        (err: unknown) => setQueued(err instanceof PhotoTooLargeError ? { waiting: false, why: err.message } : null),
+      );
+    });
   });
 
   const serverFields = upload.error instanceof ApiError ? upload.error.fields : {};
@@ -133,16 +147,33 @@ function PhotoUploadForm({ gardenId, plantingId }: { gardenId: number; plantingI
           It is in the photos above and in the planting’s log.
         </Notice>
       )}
+      {queued?.waiting && (
+        <Notice tone="success" title="Photo waiting to send" live="status">
+          No signal: the photo is saved on this device and is sent when the connection returns.
+        </Notice>
+      )}
       {upload.isError && (
         <Notice tone="error" title="The photo was not added" live="alert">
           {mutationProblem(upload.error, 'the chosen photo is kept')}
+          {queued && !queued.waiting && ` ${queued.why}`}
         </Notice>
       )}
     </form>
   );
 }
 
-export function PlantingPhotos({ gardenId, plantingId, canEdit }: { gardenId: number; plantingId: number; canEdit: boolean }) {
+/** Photos taken with no signal, kept on this device until Heatclock has them. */
+function WaitingPhotos({ gardenId, plantingId }: { gardenId: number; plantingId: number }) {
+  const items = useQueuedItems().filter((i) => i.kind === 'photo' && i.gardenId === gardenId && i.plantingId === plantingId && (i.status === 'waiting' || i.status === 'sending'));
+  if (!items.length) return null;
+  return (
+    <p role="status" className="rounded-md border border-dashed border-loam-soft bg-paper px-3 py-2 text-sm">
+      {items.length === 1 ? '1 photo is' : `${items.length} photos are`} waiting to send from this device.
+    </p>
+  );
+}
+
+export function PlantingPhotos({ gardenId, plantingId, plantingName, canEdit, today }: { gardenId: number; plantingId: number; plantingName: string; canEdit: boolean; today: string }) {
   const photos = usePhotos(gardenId, plantingId);
   return (
     <div className="flex flex-col gap-3">
@@ -156,7 +187,8 @@ export function PlantingPhotos({ gardenId, plantingId, canEdit }: { gardenId: nu
           ))}
         </ul>
       )}
-      {canEdit && <PhotoUploadForm gardenId={gardenId} plantingId={plantingId} />}
+      <WaitingPhotos gardenId={gardenId} plantingId={plantingId} />
+      {canEdit && <PhotoUploadForm gardenId={gardenId} plantingId={plantingId} plantingName={plantingName} today={today} />}
     </div>
   );
 }

@@ -5,7 +5,8 @@ import { LOG_KIND_WORDS, STAGE_WORDS, plantingUpdateSchema } from '#shared/schem
 import type { HarvestUnit, LogKind, PlantingDto, PlantingUpdateInput } from '#shared/schemas/plantings';
 import { massInKg, unitSystemOf } from '#shared/units/measures';
 import type { UnitSystem } from '#shared/units/measures';
-import { ApiError } from '@/lib/api-client';
+import { ApiError, isNetworkError } from '@/lib/api-client';
+import { enqueue } from '@/lib/offline-queue';
 import { formatDayInContext } from '@/lib/format';
 import { mutationProblem, problemKind } from '@/lib/problems';
 import { Button } from '@/components/ui/button';
@@ -202,7 +203,17 @@ export function QuickLog({ gardenId, planting, today, units }: { gardenId: numbe
         note: draft.note,
         idempotencyKey: draft.key,
       })
-      .then(() => succeeded(draft.key, `${kindWords(kind)} logged for ${when}.`), (e: unknown) => failed(e, 'entryOn'));
+      .then(
+        () => succeeded(draft.key, `${kindWords(kind)} logged for ${when}.`),
+        // No signal: the entry waits on this device with its key and is sent once it returns.
+        (e: unknown) =>
+          isNetworkError(e)
+            ? enqueue({ id: draft.key, kind: 'log', gardenId, plantingId: planting.id, plantingName: `${planting.variety.name} in ${planting.bed.name}`, idempotencyKey: draft.key, body: { entryOn, kind, ...(typed === null ? { amount: null, amountUnit: null } : amountToSend(typed, draft.unit)), note: draft.note } }).then(
+                () => succeeded(draft.key, `${kindWords(kind)} for ${when} is waiting to send — saved on this device.`),
+                () => failed(e, 'entryOn'),
+              )
+            : failed(e, 'entryOn'),
+      );
   };
 
   const recordedStages = (['sown', 'emerged', 'transplanted'] as const).filter((k) => planting[STAGE_FIELD[k]]);
