@@ -139,4 +139,17 @@ describe('garden settings', () => {
 
     expect((await screen.findByRole('alert')).textContent).toContain('Only the garden’s owner can do that.');
   });
+
+  it('when the chill season is over (a southern garden in summer), then the panel says the totals are last winter’s', async () => {
+    server.use(
+      http.get('/api/gardens/:gardenId/chill', () =>
+        HttpResponse.json({ since: '2026-04-01', through: '2026-10-31', until: '2026-10-31', seasonEnded: true, hoursAtOrBelow7C: 2934, utahUnits: 1827, method: 'linvill-1990-from-daily', estimated: true, daysCounted: 214, daysMissing: 0, fruit: [] }),
+      ),
+      signedInAs(grower),
+      ...memberOf([aGarden({ role: 'viewer', latitude: -42.88, longitude: 147.33, hemisphere: 'S', units: 'C' })]),
+    );
+    renderApp('/g/1/settings');
+    expect(await screen.findByText('Last winter’s totals: the chill season ran until Oct 31; counting starts again on Apr 1.')).toBeTruthy();
+    expect(screen.getByText('2,934 h')).toBeTruthy();
+  });
 });

@@ -161,7 +161,7 @@ describe('finishing an account from the e-mail link', () => {
 
     expect(await screen.findByRole('heading', { name: 'Today', level: 1 })).toBeTruthy();
     expect(router.state.location.pathname).toBe('/g/12');
-    expect(screen.getByText(/Add the garden’s latitude and longitude/)).toBeTruthy();
+    expect(screen.getByText(/find the garden by town or US ZIP code/)).toBeTruthy();
     expect(seen.filter((r) => r.path === `/api/auth/register/confirm/${TOKEN}` && r.method === 'POST')).toHaveLength(1);
   });
 

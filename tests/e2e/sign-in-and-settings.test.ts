@@ -2,6 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import path from 'node:path';
 import { Garden } from '../../server/db/models';
 import { screenshotDir, signInAs, startBrowserSession } from '../helpers/browser';
+import { checkPage } from './helpers/journeys';
 
 let session: Awaited<ReturnType<typeof startBrowserSession>>;
 beforeAll(async () => {
@@ -30,6 +31,28 @@ describe('in the browser (Debian Chromium)', () => {
     });
     expect(fontLoaded).toBe(true);
     expect(session.offsite).toEqual([]);
+    expect(session.pageErrors).toEqual([]);
+  });
+
+  it('when the owner finds the garden by ZIP code at phone width, then the match fills the location fields to check before saving', async () => {
+    const page = await session.newPage(390, 900);
+    await signInAs(page, session.baseUrl, 'coordinator@hollowbrook.example');
+    const id = page.url().match(/\/g\/(\d+)/)![1];
+    await page.goto(`${session.baseUrl}/g/${id}/settings`);
+    const search = page.getByLabel('Find the garden by town or US ZIP code');
+    await search.fill('99501');
+    await search.press('Enter');
+    await page.getByText('1 match: choose yours.').waitFor({ timeout: 15_000 });
+    await page.getByText('Anchorage, Alaska, United States (ZIP 99501)').waitFor();
+    await page.getByText(/Places from GeoNames/).waitFor();
+    await checkPage(page, 'settings with a ZIP match, 390 px');
+    await page.getByRole('button', { name: 'Use Anchorage, Alaska, United States (ZIP 99501)' }).click();
+    await page.getByText('Filled in from Anchorage, Alaska, United States (ZIP 99501)').waitFor();
+    expect(Number(await page.getByLabel('Latitude (decimal degrees, °)').inputValue())).toBeCloseTo(61.2116, 3);
+    expect(await page.getByLabel('Time zone').inputValue()).toBe('America/Anchorage');
+    await page.getByText('You have unsaved changes.').waitFor();
+    await page.screenshot({ path: path.join(screenshotDir, 'settings-place-finder-phone.png'), fullPage: true });
+    // Not saved: the demo garden keeps its place for the other tests.
     expect(session.pageErrors).toEqual([]);
   });
 

@@ -15,6 +15,7 @@ import { AccountLink } from '@/features/account/components/account-link';
 import { useGarden } from '@/features/gardens/api/get-garden';
 import { GardenSwitcher } from '@/features/gardens/components/garden-switcher';
 import { GardenNav } from '@/app/routes/gardens/garden-nav';
+import { OfflineStatus } from '@/features/offline/components/offline-status';
 
 /** Pages below the layout read the garden from here instead of fetching it again. */
 export function useCurrentGarden(): GardenDto {
@@ -74,6 +75,7 @@ export function GardenLayout() {
         </div>
         {hasNav && <GardenNav gardenId={gardenId} userName={me.data?.name} />}
       </header>
+      <OfflineStatus userId={me.data?.id ?? null} />
       {/* Room at the bottom on a phone so the tab bar never covers the end of a page. */}
       <main
         id="main"

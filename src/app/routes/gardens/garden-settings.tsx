@@ -6,6 +6,7 @@ import { NotificationPreferencesSection } from '@/features/notifications/compone
 import { FailedMailSection } from '@/features/notifications/components/failed-mail-section';
 import { CalendarFeedSection } from '@/features/calendar/components/calendar-feed-section';
 import { ClimateFactsSection } from '@/features/climate/components/climate-facts-section';
+import { WinterChillSection } from '@/features/chill/components/winter-chill-section';
 import { Link } from 'react-router-dom';
 
 export function GardenSettingsPage() {
@@ -31,6 +32,7 @@ export function GardenSettingsPage() {
       )}
       {/* Keyed so another garden's override form starts from that garden's figures. */}
       <ClimateFactsSection key={`climate-${garden.id}`} gardenId={garden.id} isOwner={isOwner} />
+      {garden.latitude !== null && <WinterChillSection key={`chill-${garden.id}`} gardenId={garden.id} unit={garden.units} />}
       <NotificationPreferencesSection gardenId={garden.id} />
       <CalendarFeedSection />
       {isOwner && <FailedMailSection gardenId={garden.id} />}

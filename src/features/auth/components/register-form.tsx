@@ -71,7 +71,7 @@ export function RegisterForm({ onRegistered }: { onRegistered: (email: string) =
       <TextField
         label="Garden name"
         autoComplete="off"
-        hint="You can add the location, time zone and units in Garden settings afterwards."
+        hint="Afterwards, Garden settings finds the location and time zone from a town or US ZIP code."
         error={errors.gardenName?.message}
         {...register('gardenName')}
       />

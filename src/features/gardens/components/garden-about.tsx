@@ -13,7 +13,7 @@ export function NoLocationNotice({ garden }: { garden: GardenDto }) {
   return (
     <Notice tone="info" title="No location yet">
       {garden.role === 'owner'
-        ? 'Add the garden’s latitude and longitude in Garden settings so its temperatures can be matched to the place.'
+        ? 'In Garden settings, find the garden by town or US ZIP code (or type its latitude and longitude) so its temperatures can be matched to the place.'
         : 'The garden’s owner has not set its latitude and longitude yet.'}
     </Notice>
   );

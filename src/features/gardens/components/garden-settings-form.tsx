@@ -6,11 +6,14 @@ import type { z } from 'zod';
 import { gardenUpdateSchema } from '#shared/schemas/gardens';
 import type { GardenDto, GardenUpdateInput } from '#shared/schemas/gardens';
 import { applyServerFieldErrors } from '@/lib/form-errors';
+import { formatLatitude, formatLongitude } from '@/lib/format';
 import { mutationProblem } from '@/lib/problems';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { FieldError, TextField } from '@/components/ui/text-field';
 import { useUpdateGarden } from '@/features/gardens/api/update-garden';
+import { PlaceFinder, placeLabel } from '@/features/gardens/components/place-finder';
+import type { PlaceDto } from '#shared/schemas/places';
 
 const FIELDS = ['name', 'latitude', 'longitude', 'elevationM', 'timeZone', 'units'] as const;
 
@@ -60,6 +63,7 @@ export function GardenSettingsForm({ garden }: { garden: GardenDto }) {
   const update = useUpdateGarden(garden.id);
   const [saved, setSaved] = useState(false);
   const [problem, setProblem] = useState<string | null>(null);
+  const [chosen, setChosen] = useState<PlaceDto | null>(null);
   const zones = useMemo(timeZoneNames, []);
   const schema = useMemo(
     () => settingsSchema(garden.latitude !== null && garden.longitude !== null),
@@ -70,6 +74,7 @@ export function GardenSettingsForm({ garden }: { garden: GardenDto }) {
     register,
     handleSubmit,
     setError,
+    setValue,
     reset,
     formState: { errors, isSubmitting, isDirty },
   } = useForm<FormInput, unknown, GardenUpdateInput>({
@@ -77,8 +82,19 @@ export function GardenSettingsForm({ garden }: { garden: GardenDto }) {
     defaultValues: toFormValues(garden),
   });
 
+  // The match fills the fields; nothing is saved until the grower has looked and pressed Save.
+  const usePlace = (place: PlaceDto) => {
+    const touched = { shouldDirty: true, shouldValidate: true } as const;
+    setValue('latitude', place.latitude, touched);
+    setValue('longitude', place.longitude, touched);
+    setValue('timeZone', place.timeZone, touched);
+    setChosen(place);
+    setSaved(false);
+  };
+
   const onSubmit = handleSubmit(async (values) => {
     setSaved(false);
+    setChosen(null);
     setProblem(null);
     try {
       const updated = await update.mutateAsync(values);
@@ -104,6 +120,13 @@ export function GardenSettingsForm({ garden }: { garden: GardenDto }) {
 
       <fieldset className="flex flex-col gap-4">
         <legend className="mb-2 text-lg font-bold">Location</legend>
+        <PlaceFinder onChoose={usePlace} />
+        {chosen && (
+          <Notice tone="info" title={`Filled in from ${placeLabel(chosen)}`} live="status">
+            {formatLatitude(chosen.latitude)}, {formatLongitude(chosen.longitude)} and time zone {chosen.timeZone}. A town’s centre can be a few kilometres from
+            your plot: adjust the numbers if you know better, then Save settings.
+          </Notice>
+        )}
         <div className="grid gap-4 sm:grid-cols-2">
           <TextField
             label="Latitude (decimal degrees, °)"
