@@ -2,7 +2,7 @@
 import { z } from 'zod';
 import { idParamSchema, isoDateSchema, pageQueryShape } from './records';
 
-export const AUDIT_ENTITIES = ['planting', 'variety', 'seed-lot', 'germination-test', 'bed', 'weather-import', 'member', 'invitation', 'garden-settings', 'crop-settings', 'climate'] as const;
+export const AUDIT_ENTITIES = ['planting', 'variety', 'seed-lot', 'germination-test', 'bed', 'weather-import', 'member', 'invitation', 'garden-settings', 'crop-settings', 'climate', 'soil-reading'] as const;
 export type AuditEntityKind = (typeof AUDIT_ENTITIES)[number];
 
 /** What each kind of record is called on the page, in the filter and beside each entry. */
@@ -18,6 +18,7 @@ export const AUDIT_ENTITY_WORDS: Record<AuditEntityKind, string> = {
   'garden-settings': 'Garden settings',
   'crop-settings': 'Crop settings',
   climate: 'Climate',
+  'soil-reading': 'Soil reading',
 };
 
 export const auditListQuerySchema = z

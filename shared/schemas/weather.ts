@@ -21,6 +21,10 @@ export interface WeatherDayDto {
   source: TempSource;
   /** How a filled day was made, in words. */
   note?: string;
+  /** Daily mean soil temperature near sowing depth, in the display unit; absent where not known. */
+  soil?: number;
+  /** Where `soil` came from: the grower's thermometer, or the weather service (observed, forecast). */
+  soilSource?: 'reading' | 'observed' | 'forecast';
 }
 
 export interface WeatherGapDto {

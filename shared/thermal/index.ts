@@ -30,6 +30,8 @@
  *   seasonOf(date, latitude) → { label, start, end, startYear }
  * Seeds
  *   germinationPercent(germinated, tested), seedsToSow(plantsWanted, germinationPercent, emergenceFactor = 1)
+ *   emergenceDays(cropKey, soilC) → { days, betweenF, interpolated } | null (Harrington & Minges table)
+ *   soilSowing({ cropKey, germMinC, germOptC, germMaxC }, soilC) → { status, emergence }
  */
 export { dailyDegreeDays } from './degree-days';
 export type { Cutoff, DegreeDayMethodName, DegreeDayOptions } from './degree-days';
@@ -79,3 +81,7 @@ export { addDays, dayOfYear, daysBetween } from './dates';
 export { isSouthern } from './season';
 export { germinationPercent, seedsToSow } from './seeds';
 export { cToF, fToC, cDeltaToF, fDeltaToC, cDaysToFDays, fDaysToCDays } from './units';
+export { CHILL_HOUR_MAX_C, chillOfHours, chillSeasonOf, estimatedHours, isChillHour, linvillHours, utahWeight } from './chill';
+export type { ChillTotals } from './chill';
+export { EMERGENCE_DAYS, EMERGENCE_SOURCE, EMERGENCE_TEMPS_F, emergenceDays, soilSowing } from './emergence';
+export type { Emergence, SoilSowing, SoilSowingInput, SoilSowingStatus } from './emergence';

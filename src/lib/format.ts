@@ -63,6 +63,12 @@ export function formatTemp(value: number, unit: DisplayUnit): string {
   return `${tenth.format(value).replace('-', '−')} °${unit}`;
 }
 
+/** "35–85 °F", "1.7–29.4 °C": a range with its unit once, whole figures without a trailing .0. */
+export function formatTempRange(min: number, max: number, unit: DisplayUnit): string {
+  const figure = (v: number) => (Math.abs(v * 10 - Math.round(v) * 10) < 0.5 ? whole.format(v) : tenth.format(v)).replace('-', '−');
+  return `${figure(min)}–${figure(max)} °${unit}`;
+}
+
 /** "°F-days" or "°C-days": the one unit of a garden's degree days, never mixed. */
 export function degreeDayUnit(unit: DisplayUnit): string {
   return `°${unit}-days`;

@@ -7,6 +7,9 @@ import type { QueryClient } from '@tanstack/react-query';
  */
 export const progressRootKey = (gardenId: number) => ['progress', gardenId] as const;
 
+/** A garden's weather days (the weather feature's keys build on it); soil readings change their soil figures. */
+export const weatherRootKey = (gardenId: number) => ['weather', gardenId] as const;
+
 /** Alerts follow from progress on the server, so whatever moves one moves the other. */
 export const alertsRootKey = (gardenId: number) => ['alerts', gardenId] as const;
 

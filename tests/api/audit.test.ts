@@ -180,6 +180,26 @@ describe('audit trail', () => {
     expect(entries[9].changes).toEqual([{ field: 'name', label: 'name', from: 'Herb spiral', to: 'Spiral' }]);
   });
 
+  it('when a grower records and deletes a soil reading, then both are entries with the value stored in °C and worded in the garden’s °F', async () => {
+    const a = await gardenWithClients(app);
+    const today = localDate(a.garden.timeZone);
+    const reading = (await a.clients.grower.post(`${a.base}/soil/readings`).send({ readOn: today, temperature: 54.5, depthCm: 5, note: 'by the beans' }).expect(201)).body.reading;
+    await a.clients.grower.delete(`${a.base}/soil/readings/${reading.id}`).expect(204);
+    const [deleted, created] = await trail(a, '&entity=soil-reading');
+    for (const e of [deleted, created]) expect(e).toMatchObject({ entity: 'soil-reading', entityId: String(reading.id), actor: { id: a.grower.id, name: 'Grower' } });
+    expect(created.action).toBe('created');
+    expect(created.summary).toMatch(/^Recorded a soil reading of 54\.5 °F on /);
+    expect(created.changes).toEqual([
+      { field: 'readOn', label: 'reading date', to: today },
+      { field: 'soilC', label: 'soil temperature', to: 12.5 },
+      { field: 'depthCm', label: 'depth', to: 5 },
+      { field: 'note', label: 'note', to: 'by the beans' },
+    ]);
+    expect(deleted.action).toBe('deleted');
+    expect(deleted.summary).toMatch(/^Deleted a soil reading of 54\.5 °F on /);
+    expect(changeOf(deleted, 'soilC')).toEqual({ field: 'soilC', label: 'soil temperature', from: 12.5 });
+  });
+
   it('when an owner changes the garden, a crop and the climate facts, then each is an entry by the owner', async () => {
     const a = await gardenWithClients(app);
     await a.clients.owner.patch(a.base).send({ name: 'Hill plot', elevationM: 210 }).expect(200);

@@ -14,7 +14,7 @@ const app = testApp({}, testWeather({}, () => new Date(`${TODAY}T17:00:00Z`)));
 const { sequelize } = testDb();
 
 /** Every table of a garden's records, row by row, so "unchanged" means every column of every row. */
-const TABLES = ['beds', 'varieties', 'seed_lots', 'germination_tests', 'plantings', 'planting_logs', 'planting_photos', 'alerts', 'memberships', 'garden_invitations'];
+const TABLES = ['beds', 'varieties', 'seed_lots', 'germination_tests', 'plantings', 'planting_logs', 'planting_photos', 'alerts', 'memberships', 'garden_invitations', 'soil_readings'];
 async function snapshot(gardenId: number) {
   const out: Record<string, unknown[]> = {};
   for (const t of TABLES) out[t] = await sequelize.query(`SELECT * FROM ${t} WHERE garden_id = ? ORDER BY id`, { replacements: [gardenId], type: QueryTypes.SELECT });
@@ -37,6 +37,7 @@ async function gardenWithEverything() {
   const test = await b.clients.grower.post(`${b.base}/seed-lots/${lot.id}/germination-tests`).send({ testedOn: '2026-04-01', seedsTested: 20, germinated: 17 }).expect(201);
   const entry = await b.clients.grower.post(`${b.base}/plantings/${planting.id}/log`).send({ entryOn: '2026-05-10', kind: 'watered' }).expect(201);
   const photo = await b.clients.grower.post(`${b.base}/plantings/${planting.id}/photos`).attach('photo', await png(), 'leaf.png').expect(201);
+  const reading = await b.clients.grower.post(`${b.base}/soil/readings`).send({ readOn: addDays(TODAY, -1), temperature: 12 }).expect(201);
   const alerts = (await b.clients.viewer.get(`${b.base}/alerts?type=bolt-risk`).expect(200)).body.items as { id: number }[];
   expect(alerts.length).toBeGreaterThan(0);
   return {
@@ -50,6 +51,7 @@ async function gardenWithEverything() {
       entryId: entry.body.entry.id as number,
       photoId: photo.body.photo.id as number,
       alertId: alerts[0].id,
+      readingId: reading.body.reading.id as number,
     },
     names: { bed: bed.name, variety: variety.name, lot: lot.lotNumber },
   };
@@ -101,6 +103,7 @@ describe('another garden’s record ids', () => {
       { route: `get ${g}/plantings/:plantingId/photos/:photoId`, url: `${A}/plantings/${own.planting.id}/photos/${B.photoId}` },
       { route: `delete ${g}/plantings/:plantingId/photos/:photoId`, url: `${A}/plantings/${B.plantingId}/photos/${B.photoId}` },
       { route: `delete ${g}/plantings/:plantingId/photos/:photoId`, url: `${A}/plantings/${own.planting.id}/photos/${B.photoId}` },
+      { route: `delete ${g}/soil/readings/:readingId`, url: `${A}/soil/readings/${B.readingId}` },
       { route: `patch ${g}/members/:userId`, url: `${A}/members/${b.owner.id}`, send: { role: 'viewer' } },
       { route: `delete ${g}/members/:userId`, url: `${A}/members/${b.owner.id}` },
       { route: `get ${g}/invitations/:invitationId/test-mail`, url: `${A}/invitations/${invitation.id}/test-mail` },

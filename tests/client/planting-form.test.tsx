@@ -23,18 +23,30 @@ const choices: PlantingChoices = {
   seedLots: [{ id: 11, varietyId: 7, label: 'Lot HC-01001, packed for 2025' }],
 };
 
-function renderForm(onSaved = vi.fn()) {
+function renderForm(onSaved = vi.fn(), given: PlantingChoices = choices) {
   const queryClient = new QueryClient({ defaultOptions: { queries: { retry: false }, mutations: { retry: false } } });
   const user = userEvent.setup();
   render(
     <QueryClientProvider client={queryClient}>
-      <PlantingForm gardenId={1} choices={choices} today="2025-04-02" onSaved={onSaved} />
+      <PlantingForm gardenId={1} choices={given} today="2025-04-02" onSaved={onSaved} />
     </QueryClientProvider>,
   );
   return { user, onSaved };
 }
 
 describe('planting form', () => {
+  it('when a variety is chosen and the soil temperature is known, then what the soil means for its crop shows under it', async () => {
+    const withSoil: PlantingChoices = {
+      ...choices,
+      varieties: [{ id: 7, name: 'Copperleaf Butterhead', cropName: 'Lettuce', cropKey: 'lettuce' }],
+      soil: { now: 'Soil 48.2 °F today (your thermometer)', byCrop: { lettuce: 'Lettuce: Slow but sowable: comes up in about 6 days.' } },
+    };
+    const { user } = renderForm(vi.fn(), withSoil);
+    expect(screen.queryByText(/Soil 48\.2 °F/)).toBeNull();
+    await user.selectOptions(screen.getByRole('combobox', { name: 'Variety' }), '7');
+    expect(screen.getByText('Soil 48.2 °F today (your thermometer). Lettuce: Slow but sowable: comes up in about 6 days.')).toBeTruthy();
+  });
+
   it('when saved without a bed or variety, then each field says what is missing and nothing is sent', async () => {
     const { user } = renderForm();
     await user.type(screen.getByLabelText('Quantity'), 'lots');

@@ -74,6 +74,22 @@ function requested(path: string) {
 }
 
 describe('weather page', () => {
+  it('when days carry soil temperatures, then a Soil column shows them with their unit, marking the grower’s own readings', async () => {
+    const base = aWeather();
+    const days = base.days.map((d) =>
+      d.date === '2026-05-19' ? { ...d, soil: 55.4, soilSource: 'reading' as const } : d.date === '2026-05-20' ? { ...d, soil: 57.1, soilSource: 'forecast' as const } : d,
+    );
+    server.use(...gardenWithWeather('grower', { ...base, days }));
+    renderApp('/g/1/weather');
+    const table = await screen.findByRole('table', { name: 'Day by day, in °F' });
+    expect(within(table).getByRole('columnheader', { name: 'Soil' })).toBeTruthy();
+    const row = (day: string) => within(table).getByRole('row', { name: new RegExp(`^${day}`) });
+    expect(within(row('Tue, May 19')).getByText('55.4 °F')).toBeTruthy();
+    expect(within(row('Tue, May 19')).getByText('your reading')).toBeTruthy();
+    expect(within(row('Wed, May 20')).getByText('57.1 °F')).toBeTruthy();
+    expect(within(row('Sun, May 17')).getByText('—')).toBeTruthy();
+  });
+
   it('when a grower opens Weather, then every day shows its high, low and source in words, each with its unit', async () => {
     server.use(...gardenWithWeather('grower'));
     renderApp('/g/1/weather');

@@ -28,7 +28,18 @@ export interface FetchedDay {
   date: string;
   tmax: number;
   tmin: number;
+  /** Daily mean soil temperature near seed depth, °C, where the service gave enough hours of it. */
+  soil?: number | null;
 }
+
+/**
+ * The forecast endpoint's documented hourly soil variable at 6 cm (about sowing depth); the daily
+ * mean is ours, over the local day's hours. History backfill does not ask for soil: sowing advice
+ * needs the recent days and the forecast only.
+ */
+export const SOIL_VARIABLE = 'soil_temperature_6cm';
+/** Hours a day needs for its soil mean to stand (our choice: common practice, no source). */
+export const SOIL_MIN_HOURS = 20;
 
 export interface RejectedDay {
   date: string | null;
@@ -104,6 +115,36 @@ export function parseDaily(body: unknown): { days: FetchedDay[]; rejected: Rejec
   return { days, rejected };
 }
 
+const hourlySchema = z.object({
+  hourly_units: z.record(z.string(), z.string()),
+  hourly: z.object({ time: z.array(z.unknown()) }).catchall(z.array(z.unknown())),
+});
+// Plausible soil temperatures near the surface, °C; outside is a broken value.
+const soilSchema = z.number().finite().min(-60).max(80);
+
+/** Daily means of an hourly soil variable, by local date; days short of SOIL_MIN_HOURS are left out. */
+export function parseSoilDaily(body: unknown, variable = SOIL_VARIABLE): Map<string, number> {
+  const out = new Map<string, number>();
+  const parsed = hourlySchema.safeParse(body);
+  if (!parsed.success) return out;
+  const values = parsed.data.hourly[variable];
+  const convert = toCelsius(parsed.data.hourly_units[variable] ?? '');
+  if (!values || !convert) return out;
+  const sums = new Map<string, { sum: number; n: number }>();
+  parsed.data.hourly.time.forEach((t, i) => {
+    const raw = values[i];
+    const v = typeof raw === 'number' ? soilSchema.safeParse(convert(raw)) : null;
+    if (typeof t !== 'string' || !/^\d{4}-\d{2}-\d{2}T/.test(t) || !v?.success) return;
+    const date = t.slice(0, 10);
+    const acc = sums.get(date) ?? { sum: 0, n: 0 };
+    acc.sum += v.data;
+    acc.n++;
+    sums.set(date, acc);
+  });
+  for (const [date, { sum, n }] of sums) if (n >= SOIL_MIN_HOURS) out.set(date, Math.round((sum / n) * 10) / 10);
+  return out;
+}
+
 function retryAfterMs(err: AxiosError): number {
   const raw: unknown = err.response?.headers?.['retry-after'];
   if (typeof raw !== 'string' && typeof raw !== 'number') return 0;
@@ -143,7 +184,7 @@ export function createWeatherClient(opts: WeatherClientOptions): WeatherClient {
       opts.logger.warn('weather request retry', { attempt: count, status: err.response?.status, code: err.code, url: config.url }),
   });
 
-  async function get(url: string, params: Record<string, string | number>): Promise<FetchResult> {
+  async function get(url: string, params: Record<string, string | number>, withSoil = false): Promise<FetchResult> {
     const before = requests;
     try {
       const res = await http.get(url, { params, responseType: 'text', transformResponse: (x: string) => x });
@@ -154,6 +195,10 @@ export function createWeatherClient(opts: WeatherClientOptions): WeatherClient {
         throw new WeatherServiceError('The weather service sent a body that is not JSON');
       }
       const out = parseDaily(body);
+      if (withSoil) {
+        const soil = parseSoilDaily(body);
+        for (const d of out.days) d.soil = soil.get(d.date) ?? null;
+      }
       for (const r of out.rejected) opts.logger.warn('weather day rejected', { date: r.date, reason: r.reason, url });
       return { ...out, requests: requests - before };
     } catch (err) {
@@ -177,8 +222,9 @@ export function createWeatherClient(opts: WeatherClientOptions): WeatherClient {
         timezone: p.timeZone,
         past_days: p.pastDays,
         forecast_days: p.forecastDays,
+        hourly: SOIL_VARIABLE,
         temperature_unit: 'celsius',
-      }),
+      }, true),
     history: (p) =>
       get(opts.archiveUrl ?? OPEN_METEO_ARCHIVE_URL, {
         latitude: p.latitude,

@@ -63,6 +63,10 @@ const FIELD_WORDS: Record<string, string> = {
   testedOn: 'test date',
   seedsTested: 'seeds tested',
   germinated: 'seeds that came up',
+  readOn: 'reading date',
+  soilC: 'soil temperature',
+  depthCm: 'depth',
+  note: 'note',
 };
 
 const cropParamWord = (field: string): string | undefined =>

@@ -5,8 +5,10 @@
  */
 import { QueryTypes } from 'sequelize';
 import type { Transaction } from 'sequelize';
+import type { AuditEntityKind } from '#shared/schemas/audit';
 
-export type AuditEntity = 'planting' | 'variety' | 'seed-lot' | 'germination-test' | 'bed' | 'weather-import' | 'member' | 'invitation' | 'garden-settings' | 'crop-settings' | 'climate';
+/** The kinds of record in the trail: the one list in shared/schemas/audit.ts. */
+export type AuditEntity = AuditEntityKind;
 export type AuditAction = 'created' | 'changed' | 'deleted' | 'imported' | 'invited' | 'revoked' | 'joined' | 'left' | 'removed';
 
 /** The signed-in user who made a change, as the routes know them (`req.user`). */

@@ -3,6 +3,18 @@ import { QueryTypes } from 'sequelize';
 import type { Sequelize, Transaction } from 'sequelize';
 import type { TempSource } from '#shared/thermal/types';
 
+/** How many of the first due cells a claimer chooses among (in its own random order). */
+const CLAIM_SPREAD = 16;
+
+function shuffled<T>(xs: readonly T[]): T[] {
+  const out = [...xs];
+  for (let i = out.length - 1; i > 0; i--) {
+    const j = Math.floor(Math.random() * (i + 1));
+    [out[i], out[j]] = [out[j], out[i]];
+  }
+  return out;
+}
+
 export interface CellRow {
   id: number;
   latitude: number;
@@ -24,6 +36,13 @@ export interface StoredDay {
 }
 
 export type CellSource = 'observed' | 'forecast' | 'filled';
+
+/** A cell's daily mean soil temperature, °C. */
+export interface SoilDay {
+  date: string;
+  soil: number;
+  source: 'observed' | 'forecast';
+}
 
 export interface CellDayWrite {
   date: string;
@@ -85,40 +104,42 @@ export class WeatherRepository {
   }
 
   /**
-   * Claims one cell that gardens use and that nobody refreshed since `cutoff`, by a lease taken
-   * under FOR UPDATE SKIP LOCKED in one short transaction. On one server SKIP LOCKED keeps two
-   * claimers apart; on a Galera cluster it sees only its own node's locks, and two nodes claiming
-   * the same cell both get here: the later commit fails certification (1213). That error is
-   * thrown, not retried here: the caller counts it as a claim conflict and backs off.
+   * Claims one cell that gardens use and that nobody refreshed since `cutoff`: a conditional UPDATE
+   * of its lease, and the affected-row count decides who won (row locks and SKIP LOCKED are
+   * node-local on a Galera cluster). Each claimer tries the first CLAIM_SPREAD due cells in its own
+   * random order, so claimers on several nodes rarely reach for the same row at once; when they do,
+   * the later commit fails certification (1213), and that error is thrown, not retried here: the
+   * caller counts it as a claim conflict and backs off.
    */
   async claimCell(owner: string, cutoff: Date, leaseMs: number, onlyCellId?: number, skip: readonly number[] = []): Promise<CellRow | null> {
-    return this.db.transaction(async (transaction) => {
-      const [row] = await this.db.query<{ id: number }>(
+    for (let look = 0; look < 3; look++) {
+      const due = await this.db.query<{ id: number }>(
         `SELECT c.id FROM weather_cells c
           WHERE EXISTS (SELECT 1 FROM gardens g WHERE g.weather_cell_id = c.id)
             AND (c.refreshed_at IS NULL OR c.refreshed_at < ?)
             AND (c.lease_until IS NULL OR c.lease_until < UTC_TIMESTAMP(3))
             ${onlyCellId ? 'AND c.id = ?' : ''}
             ${skip.length ? 'AND c.id NOT IN (?)' : ''}
-          ORDER BY c.id LIMIT 1 FOR UPDATE SKIP LOCKED`,
-        {
-          replacements: [cutoff, ...(onlyCellId ? [onlyCellId] : []), ...(skip.length ? [skip] : [])],
+          ORDER BY c.id LIMIT ${CLAIM_SPREAD}`,
+        { replacements: [cutoff, ...(onlyCellId ? [onlyCellId] : []), ...(skip.length ? [skip] : [])], type: QueryTypes.SELECT },
+      );
+      if (due.length === 0) return null;
+      for (const { id } of shuffled(due)) {
+        const [, affected] = await this.db.query(
+          `UPDATE weather_cells SET lease_owner = ?, lease_until = UTC_TIMESTAMP(3) + INTERVAL ? MICROSECOND
+            WHERE id = ? AND (refreshed_at IS NULL OR refreshed_at < ?) AND (lease_until IS NULL OR lease_until < UTC_TIMESTAMP(3))`,
+          { replacements: [owner, leaseMs * 1000, id, cutoff], type: QueryTypes.UPDATE },
+        );
+        if (affected !== 1) continue;
+        const [cell] = await this.db.query<CellRow>(`SELECT ${cellColumns} FROM weather_cells WHERE id = ? AND lease_owner = ?`, {
+          replacements: [id, owner],
           type: QueryTypes.SELECT,
-          transaction,
-        },
-      );
-      if (!row) return null;
-      await this.db.query(
-        'UPDATE weather_cells SET lease_owner = ?, lease_until = UTC_TIMESTAMP(3) + INTERVAL ? MICROSECOND WHERE id = ?',
-        { replacements: [owner, leaseMs * 1000, row.id], transaction },
-      );
-      const [cell] = await this.db.query<CellRow>(`SELECT ${cellColumns} FROM weather_cells WHERE id = ?`, {
-        replacements: [row.id],
-        type: QueryTypes.SELECT,
-        transaction,
-      });
-      return cell;
-    });
+        });
+        if (cell) return cell;
+      }
+      // Every candidate was taken between the look and the claim: look again.
+    }
+    return null;
   }
 
   /**
@@ -257,10 +278,46 @@ export class WeatherRepository {
     return out;
   }
 
-  async gardensOfCell(cellId: number): Promise<number[]> {
+  /** A cell's daily soil means (°C) in a range, oldest first. */
+  async cellSoil(cellId: number, from: string, to: string, transaction?: Transaction): Promise<SoilDay[]> {
+    const rows = await this.db.query<SoilDay>(
+      'SELECT date, soil_c AS soil, source FROM soil_days WHERE cell_id = ? AND date BETWEEN ? AND ? ORDER BY date',
+      { replacements: [cellId, from, to], type: QueryTypes.SELECT, transaction },
+    );
+    // DECIMAL may come back as text.
+    return rows.map((r) => ({ ...r, soil: Number(r.soil) }));
+  }
+
+  /**
+   * Writes a cell's soil means: an observed day replaces a forecast one, never the reverse, and
+   * an unchanged day is not written. Returns how many were written.
+   */
+  async upsertCellSoil(cellId: number, days: SoilDay[], transaction: Transaction): Promise<number> {
+    if (!days.length) return 0;
+    const sorted = [...days].sort((a, b) => (a.date < b.date ? -1 : 1));
+    const existing = new Map((await this.cellSoil(cellId, sorted[0].date, sorted[sorted.length - 1].date, transaction)).map((d) => [d.date, d]));
+    const writes = sorted.filter((d) => {
+      const old = existing.get(d.date);
+      if (!old) return true;
+      if (old.source === 'observed' && d.source === 'forecast') return false;
+      return !sameTemp(old.soil, d.soil) || old.source !== d.source;
+    });
+    if (!writes.length) return 0;
+    const newer = "FIELD(VALUES(source), 'forecast', 'observed') >= FIELD(source, 'forecast', 'observed')";
+    await this.db.query(
+      `INSERT INTO soil_days (cell_id, date, soil_c, source, fetched_at)
+       VALUES ${writes.map(() => '(?, ?, ?, ?, UTC_TIMESTAMP(3))').join(', ')}
+       ON DUPLICATE KEY UPDATE ${['soil_c', 'fetched_at', 'source'].map((c) => `${c} = IF(${newer}, VALUES(${c}), ${c})`).join(', ')}`,
+      { replacements: writes.flatMap((d) => [cellId, d.date, d.soil, d.source]), transaction },
+    );
+    return writes.length;
+  }
+
+  async gardensOfCell(cellId: number, transaction?: Transaction): Promise<number[]> {
     const rows = await this.db.query<{ id: number }>('SELECT id FROM gardens WHERE weather_cell_id = ?', {
       replacements: [cellId],
       type: QueryTypes.SELECT,
+      transaction,
     });
     return rows.map((r) => r.id);
   }

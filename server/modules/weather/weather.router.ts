@@ -18,6 +18,7 @@ import type { WeatherService } from './weather.service';
 import { importStationCsv } from './weather-import';
 import { activeThresholds } from './weather-thresholds';
 import { presentDay, presentRun } from './weather.presenter';
+import { loadGardenSoil } from './garden-soil';
 
 const MAX_CSV_BYTES = 2 * 1024 * 1024;
 
@@ -59,7 +60,7 @@ export function weatherRouter(deps: { sequelize: Sequelize; weather: WeatherServ
                 const msg = `Ask for at most ${MAX_WEATHER_DAYS} days at a time.`;
                 throw new AppError(400, 'validation_failed', msg, { [q.from ? 'from' : 'to']: msg });
               }
-              const days = await weather.gardenSeries(garden, from, to);
+              const [days, soil] = await Promise.all([weather.gardenSeries(garden, from, to), loadGardenSoil(sequelize, garden, { from, to })]);
               const pastEnd = [to, addDays(today, -1)].sort()[0];
               const observedDates = new Set(days.filter((d) => d.source !== 'forecast').map((d) => d.date));
               const body: Omit<WeatherResponse, 'history'> = {
@@ -68,7 +69,7 @@ export function weatherRouter(deps: { sequelize: Sequelize; weather: WeatherServ
                 from,
                 to,
                 today,
-                days: days.map((d) => presentDay(d, garden.units)),
+                days: days.map((d) => presentDay(d, garden.units, soil.get(d.date))),
                 gaps: from <= pastEnd ? findGaps(observedDates, from, pastEnd) : [],
               };
               return body;

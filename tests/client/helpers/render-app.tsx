@@ -58,6 +58,12 @@ export function memberOf(gardens: GardenDto[]) {
     http.get('/api/gardens/:gardenId/mail/failed', () => HttpResponse.json({ items: [] })),
     // The settings page's "Climate here": a garden with no stored weather yet.
     http.get('/api/gardens/:gardenId/climate', () => HttpResponse.json({ climate: aClimate() })),
+    // Its "Winter chill for fruit": nothing counted yet.
+    http.get('/api/gardens/:gardenId/chill', () =>
+      HttpResponse.json({ since: '2026-10-01', through: null, until: '2027-04-30', seasonEnded: false, hoursAtOrBelow7C: 0, utahUnits: 0, method: 'linvill-1990-from-daily', estimated: true, daysCounted: 0, daysMissing: 0, fruit: [] }),
+    ),
+    // The Plan page's and the new-planting form's soil: no temperature known yet.
+    http.get('/api/gardens/:gardenId/soil', () => HttpResponse.json({ unit: 'F', current: null, forecast: [], readings: [], crops: [], emergenceSource: 'test' })),
   ];
 }
 

@@ -17,6 +17,7 @@ import type { CellRow, RunTotals } from '../weather.repository';
 import type { WeatherContext } from '../weather-context';
 import { fillShortGaps } from './fill-gaps';
 import { storeCellDays } from './store-cell-days';
+import { storeCellSoil } from './store-cell-soil';
 
 export interface RefreshOptions {
   kind: 'nightly' | 'manual';
@@ -146,6 +147,12 @@ async function refreshLeasedCell(ctx: WeatherContext, cell: CellRow, totals: Run
     const rows = res.days.map((d) => ({ ...d, source: d.date < today ? ('observed' as const) : ('forecast' as const) }));
     // Await first, then add: `total += await …` would read the total before other workers' updates.
     const written = await storeCellDays(ctx, cell.id, rows);
+    // Soil is a help for sowing, not the cell's weather: a failed soil write is logged and the refresh goes on.
+    await storeCellSoil(
+      ctx,
+      cell.id,
+      rows.flatMap((r) => (r.soil == null ? [] : [{ date: r.date, soil: r.soil, source: r.source }])),
+    ).catch((err: unknown) => ctx.logger.warn('soil days not stored', { cellId: cell.id, error: (err as Error).message }));
     const filled = await fillShortGaps(ctx, cell.id, addDays(today, -pastDays), addDays(today, -1));
     totals.daysWritten += written + filled;
     const observed = rows.filter((r) => r.source === 'observed').map((r) => r.date);

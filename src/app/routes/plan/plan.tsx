@@ -7,6 +7,8 @@ import { useCurrentGarden } from '@/app/routes/gardens/garden-layout';
 import { useVarieties } from '@/features/varieties/api/get-varieties';
 import { usePlan } from '@/features/plan/api/get-plan';
 import { PlanView } from '@/features/plan/components/plan-view';
+import { SoilPanel } from '@/features/soil/components/soil-panel';
+import { todayIn } from '@/lib/garden-day';
 
 const RISKS: ReadonlyArray<{ value: FrostRisk; words: string }> = [
   { value: '10', words: 'Careful: a frost later than the dates in about 1 year in 10' },
@@ -76,6 +78,17 @@ export function PlanPage() {
         <PlanPart plan={plan} shown={varietyId !== null} />
         {secondId !== null && <PlanPart plan={second} shown />}
       </div>
+      <section aria-labelledby="soil-heading" className="space-y-3 border-t border-line pt-4">
+        <h2 id="soil-heading" className="text-xl font-semibold">
+          Soil temperature and sowing now
+        </h2>
+        <SoilPanel
+          gardenId={garden.id}
+          today={todayIn(garden.timeZone)}
+          canEdit={garden.role !== 'viewer'}
+          highlight={items.filter((v) => v.id === varietyId || v.id === secondId).map((v) => v.crop.key)}
+        />
+      </section>
     </div>
   );
 }

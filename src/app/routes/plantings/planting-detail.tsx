@@ -117,7 +117,7 @@ function Detail({ plantingId }: { plantingId: number }) {
           </section>
           <section aria-labelledby="photos" className="flex flex-col gap-2">
             <h2 id="photos" className="text-lg font-bold">Photos</h2>
-            <PlantingPhotos gardenId={garden.id} plantingId={p.id} canEdit={canEdit} />
+            <PlantingPhotos gardenId={garden.id} plantingId={p.id} plantingName={`${p.variety.name} in ${p.bed.name}`} canEdit={canEdit} today={today} />
           </section>
         </div>
       </div>

@@ -3,6 +3,10 @@ import { useBeds } from '@/features/beds/api/get-beds';
 import { useVarieties } from '@/features/varieties/api/get-varieties';
 import { useSeedLots } from '@/features/seed-lots/api/get-seed-lots';
 import type { PlantingChoices } from '@/features/plantings/components/planting-form';
+import { useSoil } from '@/features/soil/api/get-soil';
+import { soilNowWords } from '@/features/soil/components/soil-panel';
+import { todayIn } from '@/lib/garden-day';
+import { useCurrentGarden } from '@/app/routes/gardens/garden-layout';
 
 const lotLabel = (l: SeedLotDto) =>
   [l.lotNumber && `Lot ${l.lotNumber}`, l.packedForYear && `packed for ${l.packedForYear}`].filter(Boolean).join(', ') || 'Unlabelled lot';
@@ -18,6 +22,9 @@ export function usePlantingChoices(gardenId: number): PlantingChoicesState {
   const beds = useBeds(gardenId);
   const varieties = useVarieties(gardenId);
   const lots = useSeedLots(gardenId);
+  // Soil advice is a help, not a need: the form opens without it when it cannot load.
+  const garden = useCurrentGarden();
+  const soil = useSoil(gardenId);
   const failed = [beds, varieties, lots].filter((q) => q.isError);
   if (failed.length) {
     return {
@@ -32,8 +39,14 @@ export function usePlantingChoices(gardenId: number): PlantingChoicesState {
     status: 'success',
     choices: {
       beds: beds.data.items,
-      varieties: varieties.data.items.map((v) => ({ id: v.id, name: v.name, cropName: v.crop.name })),
+      varieties: varieties.data.items.map((v) => ({ id: v.id, name: v.name, cropName: v.crop.name, cropKey: v.crop.key })),
       seedLots: lots.data.items.map((l) => ({ id: l.id, varietyId: l.variety.id, label: lotLabel(l) })),
+      soil: soil.data?.current
+        ? {
+            now: `Soil ${soilNowWords(soil.data.current, soil.data.unit, todayIn(garden.timeZone))}`,
+            byCrop: Object.fromEntries(soil.data.crops.map((c) => [c.key, `${c.name}: ${c.words}`])),
+          }
+        : null,
     },
   };
 }

@@ -28,8 +28,10 @@ import { HarvestPreview } from '@/features/plantings/components/harvest-preview'
 
 export interface PlantingChoices {
   beds: { id: number; name: string }[];
-  varieties: { id: number; name: string; cropName: string }[];
+  varieties: { id: number; name: string; cropName: string; cropKey?: string }[];
   seedLots: { id: number; varietyId: number; label: string }[];
+  /** What the soil means for sowing now, by crop key; null when no soil temperature is known. */
+  soil?: { now: string; byCrop: Record<string, string> } | null;
 }
 
 type FormInput = z.input<typeof plantingCreateSchema>;
@@ -163,6 +165,7 @@ export function PlantingForm({
             </option>
           ))}
         </Select>
+        {!planting && <SoilLine choices={choices} varietyId={varietyId ? Number(varietyId) : null} />}
         <Select label="Seed lot (optional)" error={errors.seedLotId?.message} {...register('seedLotId', { setValueAs: idOrNull })}>
           <option value="">{lots.length ? 'No lot recorded' : 'No lots of this variety'}</option>
           {lots.map((l) => (
@@ -239,5 +242,17 @@ export function PlantingForm({
         )}
       </div>
     </form>
+  );
+}
+
+/** Under the variety of a new planting: whether the soil suits sowing its crop now. */
+function SoilLine({ choices, varietyId }: { choices: PlantingChoices; varietyId: number | null }) {
+  const cropKey = choices.varieties.find((v) => v.id === varietyId)?.cropKey;
+  const words = cropKey ? choices.soil?.byCrop[cropKey] : undefined;
+  if (!words || !choices.soil) return null;
+  return (
+    <p role="status" className="rounded-md border border-line bg-paper-sunk px-3 py-2 text-sm sm:col-span-2">
+      {choices.soil.now}. {words}
+    </p>
   );
 }

@@ -8,6 +8,8 @@ const HEAD = `${CELL} sticky top-0 z-10 border-b border-line bg-paper-raised`;
 
 export function WeatherTable({ weather }: { weather: WeatherResponse }) {
   const { unit, today } = weather;
+  // Soil comes with the recent days and the forecast only; a column of dashes would say nothing.
+  const hasSoil = weather.days.some((d) => d.soil !== undefined);
   const box = useRef<HTMLDivElement>(null);
 
   // Forty-odd days do not fit on a screen; open the box with today a few rows from the top.
@@ -41,6 +43,7 @@ export function WeatherTable({ weather }: { weather: WeatherResponse }) {
               <th scope="col" className={HEAD}>Date</th>
               <th scope="col" className={`${HEAD} text-right`}>High</th>
               <th scope="col" className={`${HEAD} text-right`}>Low</th>
+              {hasSoil && <th scope="col" className={`${HEAD} text-right`}>Soil</th>}
               <th scope="col" className={HEAD}>Source</th>
               <th scope="col" className={`${HEAD} hidden sm:table-cell`}>Note</th>
             </tr>
@@ -64,6 +67,12 @@ export function WeatherTable({ weather }: { weather: WeatherResponse }) {
                   </th>
                   <td className={`${CELL} text-right whitespace-nowrap tabular-nums`}>{formatTemp(day.tmax, unit)}</td>
                   <td className={`${CELL} text-right whitespace-nowrap tabular-nums`}>{formatTemp(day.tmin, unit)}</td>
+                  {hasSoil && (
+                    <td className={`${CELL} text-right whitespace-nowrap tabular-nums`}>
+                      {day.soil === undefined ? '—' : formatTemp(day.soil, unit)}
+                      {day.soilSource === 'reading' && <span className="block text-xs font-normal text-loam-soft">your reading</span>}
+                    </td>
+                  )}
                   <td className={CELL}>
                     <SourceLabel source={day.source} />
                     {/* On a phone the note sits under its source instead of in a column off to the side. */}
