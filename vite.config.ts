@@ -160,7 +160,8 @@ export default defineConfig({
     fileParallelism: true,
     pool: 'forks',
     // Two files at a time: on this 2-core machine the suite takes 413 s instead of 711 s with one
-    // (the default of CPUs − 1); the tests share the test database by design (own rows, leases).
+    // (the default of CPUs − 1). Each worker has a database of its own (tests/helpers/worker-db.ts):
+    // a drain claims every due garden event, and files fix different "todays".
     maxWorkers: 2,
   },
 });

@@ -78,6 +78,8 @@ CREATE USER IF NOT EXISTS 'heatclock'@'127.0.0.1' IDENTIFIED BY '$pw';
 ALTER USER 'heatclock'@'127.0.0.1' IDENTIFIED BY '$pw';
 GRANT ALL PRIVILEGES ON heatclock.* TO 'heatclock'@'127.0.0.1';
 GRANT ALL PRIVILEGES ON heatclock_test.* TO 'heatclock'@'127.0.0.1';
+-- Each test worker makes and uses a database of its own, heatclock_test_w1, _w2, … (tests/helpers/worker-db.ts).
+GRANT ALL PRIVILEGES ON \`heatclock\\_test%\`.* TO 'heatclock'@'127.0.0.1';
 GRANT ALL PRIVILEGES ON heatclock_bench.* TO 'heatclock'@'127.0.0.1';
 FLUSH PRIVILEGES;
 SQL

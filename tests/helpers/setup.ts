@@ -1,6 +1,16 @@
 import { afterEach, beforeEach, vi } from 'vitest';
+import { loadConfig } from '../../server/config';
+import { perWorkerDatabases, workerDatabase } from './worker-db';
 
 process.env.NODE_ENV = 'test';
+
+// This worker's own database (tests/helpers/worker-db.ts), prepared by the global setup; set once
+// per process, before any test file reads its configuration.
+if (perWorkerDatabases() && process.env.VITEST_POOL_ID && !process.env.HEATCLOCK_TEST_DB_BASE) {
+  const base = loadConfig().db.database;
+  process.env.HEATCLOCK_TEST_DB_BASE = base;
+  process.env.DB_TEST_NAME = workerDatabase(base, process.env.VITEST_POOL_ID);
+}
 
 /** Any console.error during a test fails it: errors must be asserted, not printed. */
 let errors: unknown[][] = [];
