@@ -9,6 +9,7 @@ import type { CropParamValues } from '#shared/crops/params';
 import { dayOfYear, degreeDayTargetFromDtm, isSouthern } from '#shared/thermal/index';
 import { packetEmergenceDays, startEvent } from '#shared/thermal/start-event';
 import { monthDayToken } from '#shared/format/dates';
+import { countOf } from '#shared/format/count-words';
 import type { DailyTemp } from '#shared/thermal/index';
 import type { GddTargetDto } from '#shared/schemas/varieties';
 import { Planting } from '../../db/models';
@@ -158,7 +159,7 @@ async function packetTarget(
       valueC: t.target,
       basis: 'derived',
       countsFrom: t.countsFrom,
-      explanation: `${t.days} days from ${t.countsFrom === 'transplant' ? 'transplanting' : 'sowing'}, measured in this garden’s past weather over ${from} (${monthDayToken(window.from)} to ${monthDayToken(window.to)}, ${t.samples} samples).`,
+      explanation: `${t.days} days from ${t.countsFrom === 'transplant' ? 'transplanting' : 'sowing'}, measured in this garden’s past weather over ${from} (start days ${monthDayToken(window.from)} to ${monthDayToken(window.to)}; ${countOf(t.samples, 'sample')}).`,
       p10C: t.p10,
       p90C: t.p90,
       stale: false,
