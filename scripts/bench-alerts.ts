@@ -16,6 +16,7 @@ import { startFakeWeather } from '../fixtures/weather/server';
 import { addDays } from '#shared/thermal/dates';
 import type { Worker } from '../server/jobs/worker';
 import { figure } from './bench-figures';
+import { emptyBenchGardens } from './bench-db';
 
 const GARDENS = 200;
 const PER_GARDEN = 25;
@@ -25,14 +26,7 @@ const config = { ...base, db: { ...base.db, database: process.env.BENCH_DB_NAME 
 const sequelize = createSequelize(config.db);
 initModels(sequelize);
 await migrate(sequelize);
-// The bench database is shared with bench:api, which seeds it again on its next run.
-const TABLES = ['mail_outbox', 'alerts', 'alert_evaluations', 'garden_events', 'planting_progress', 'progress_epochs', 'planting_photos', 'planting_logs', 'plantings',
-  'germination_tests', 'seed_lots', 'varieties', 'beds', 'crop_overrides', 'job_runs', 'garden_weather_days', 'weather_imports', 'weather_days'];
-for (const table of TABLES) {
-  await sequelize.query(`DELETE FROM ${table}`);
-}
-await sequelize.query('DELETE FROM gardens');
-await sequelize.query('DELETE FROM weather_cells');
+await emptyBenchGardens(sequelize);
 
 const fake = startFakeWeather('error');
 const logger = createLogger('error');

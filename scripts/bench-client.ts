@@ -119,6 +119,9 @@ export async function benchClient(baseUrl: string): Promise<ClientFigures> {
     headless: true,
     args: CHROMIUM_ARGS,
     viewport: { width: 1280, height: 800 },
+    // A first visit: the service worker would otherwise precache every chunk while /sign-in
+    // loads and serve Today's scripts from its cache (0 bytes over the network).
+    serviceWorkers: 'block',
   });
   try {
     const signInBytes = await measure(context, `${baseUrl}/sign-in`, (page) =>

@@ -12,6 +12,7 @@ import { createWeatherService } from '../server/app';
 import { startFakeWeather } from '../fixtures/weather/server';
 import { fakeWeather } from '../fixtures/weather/control';
 import { figure } from './bench-figures';
+import { emptyBenchGardens } from './bench-db';
 
 const GARDENS = 1000;
 const CELLS = 200;
@@ -22,9 +23,7 @@ const config = { ...base, db: { ...base.db, database: process.env.BENCH_DB_NAME 
 const sequelize = createSequelize(config.db);
 initModels(sequelize);
 await migrate(sequelize);
-for (const table of ['job_runs', 'garden_weather_days', 'weather_imports', 'weather_days']) await sequelize.query(`DELETE FROM ${table}`);
-await sequelize.query('DELETE FROM gardens');
-await sequelize.query('DELETE FROM weather_cells');
+await emptyBenchGardens(sequelize);
 
 const fake = startFakeWeather('error');
 const weather = createWeatherService(config, sequelize, createLogger('error'));
