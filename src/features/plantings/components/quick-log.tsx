@@ -14,6 +14,7 @@ import { Notice } from '@/components/ui/notice';
 import { useAddLogEntry } from '@/features/plantings/api/add-log-entry';
 import { useUpdatePlanting } from '@/features/plantings/api/update-planting';
 import { CONTROL } from '@/features/plantings/components/field-styles';
+import { parseTypedNumber } from '@/lib/typed-number';
 
 /** A stage tap sets one of the planting's own dates; every other tap adds a log entry. */
 type StageKind = 'sown' | 'emerged' | 'transplanted';
@@ -97,13 +98,6 @@ function writeDraft(storageKey: string, draft: Draft | null) {
   } catch {
     // Storage full or refused (a private window): the entry still stays in the form.
   }
-}
-
-/** "1.5", "1,5" → 1.5; '' → null; anything else → NaN. */
-function parseAmount(text: string): number | null {
-  const t = text.trim().replace(',', '.');
-  if (t === '') return null;
-  return /^\d+(\.\d+)?$|^\.\d+$/.test(t) ? Number(t) : Number.NaN;
 }
 
 const STAGE_DATES = ['sownOn', 'emergedOn', 'thinnedOn', 'transplantedOn', 'firstHarvestOn', 'lastHarvestOn', 'boltedOn'] as const;
@@ -193,7 +187,7 @@ export function QuickLog({ gardenId, planting, today, units }: { gardenId: numbe
       update.mutateAsync(change).then(() => succeeded(draft.key, `${kindWords(kind)} recorded for ${when}.`), (e: unknown) => failed(e, field));
       return;
     }
-    const typed = kind === 'harvest' ? parseAmount(draft.amount) : null;
+    const typed = kind === 'harvest' ? parseTypedNumber(draft.amount) : null;
     if (typed !== null && Number.isNaN(typed)) return setProblem({ message: 'Enter the amount as a number, for example 1.5.', retry: false });
     add
       .mutateAsync({

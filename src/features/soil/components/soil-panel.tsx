@@ -15,6 +15,7 @@ import { mutationProblem } from '@/lib/problems';
 import { useSubmissionKey } from '@/lib/use-submission-key';
 import { useSoil } from '@/features/soil/api/get-soil';
 import { useAddSoilReading, useDeleteSoilReading } from '@/features/soil/api/soil-readings';
+import { parseTypedNumber } from '@/lib/typed-number';
 
 export const SOIL_SOURCE_WORDS: Record<SoilDaySource, string> = {
   reading: 'your thermometer',
@@ -56,12 +57,12 @@ function ReadingForm({ gardenId, unit, today }: { gardenId: number; unit: Displa
     formState: { errors, isSubmitting },
   } = useForm<ReadingValues>({ defaultValues: { readOn: today, temperature: '', depthCm: '', note: '' } });
   const onSubmit = handleSubmit(async (v) => {
-    const temperature = Number(v.temperature.trim().replace(',', '.').replace('−', '-'));
-    if (!v.temperature.trim() || !Number.isFinite(temperature)) {
+    const temperature = parseTypedNumber(v.temperature, { negative: true });
+    if (temperature === null || !Number.isFinite(temperature)) {
       setError('temperature', { message: `Type the thermometer’s figure in °${unit}, e.g. ${unit === 'F' ? '52' : '11'}.` });
       return;
     }
-    const depth = v.depthCm.trim() === '' ? null : Number(v.depthCm.trim().replace(',', '.'));
+    const depth = parseTypedNumber(v.depthCm);
     if (depth !== null && !Number.isFinite(depth)) {
       setError('depthCm', { message: 'Type the depth in centimetres, e.g. 5, or leave it blank.' });
       return;
