@@ -1,9 +1,10 @@
 /**
  * npm run bench:alerts — alert evaluation of 5,000 growing plantings in 200 gardens (one weather
  * cell each) after a nightly run, on the heatclock_bench database with the local fake weather:
- * two years of history per cell, then the nightly refresh leaves one pending event per garden
- * and consumer, and the worker drains them (progress, then alerts). Reports wall time, database
- * statements issued (MariaDB's own Questions counter) and peak memory.
+ * two years of history per cell, then the nightly refresh leaves one pending planting-progress
+ * event per garden, and the worker drains them (progress, then alerts). Reports wall time, database
+ * statements issued (MariaDB's own Questions counter), peak memory and Node's CPU time;
+ * BENCH_PROFILE=file.cpuprofile also writes a CPU profile of the evaluation alone.
  */
 import inspector from 'node:inspector/promises';
 import { writeFileSync } from 'node:fs';
