@@ -127,17 +127,17 @@ export class ProgressRepository {
       if ((row?.epoch ?? 0) !== epoch) return false;
       // In slices: a garden's whole answer (5,000 plantings × ~8 kB) would outgrow one packet.
       for (let i = 0; i < rows.length; i += SAVE_SLICE) {
-        const slice = rows.slice(i, i + SAVE_SLICE);
+        const params = rows.slice(i, i + SAVE_SLICE).map((r) => [r.plantingId, r.gardenId, r.computedFor, r.percent, r.readyOn, r.boltRank, JSON.stringify(r.summary), r.body]);
         // Bound, not replaced: the connector escapes the bodies as it writes the packet, where
         // Sequelize's replacements would scan and copy every byte of them first.
-        const values = slice.map((_, k) => `(${Array.from({ length: 8 }, (_, j) => `$${k * 8 + j + 1}`).join(', ')}, UTC_TIMESTAMP(3), ${PROGRESS_FORMAT})`).join(', ');
+        const values = params.map((p, k) => `(${p.map((_, j) => `$${k * p.length + j + 1}`).join(', ')}, UTC_TIMESTAMP(3), ${PROGRESS_FORMAT})`).join(', ');
         await this.db.query(
           `INSERT INTO planting_progress (planting_id, garden_id, computed_for, percent, ready_on, bolt_rank, summary_json, body_json, computed_at, format)
            VALUES ${values}
            ON DUPLICATE KEY UPDATE format = VALUES(format), computed_for = VALUES(computed_for), percent = VALUES(percent), ready_on = VALUES(ready_on),
              bolt_rank = VALUES(bolt_rank), summary_json = VALUES(summary_json), body_json = VALUES(body_json), computed_at = VALUES(computed_at)`,
           {
-            bind: slice.flatMap((r) => [r.plantingId, r.gardenId, r.computedFor, r.percent, r.readyOn, r.boltRank, JSON.stringify(r.summary), r.body]),
+            bind: params.flat(),
             transaction,
           },
         );
